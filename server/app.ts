@@ -1,0 +1,54 @@
+// The Express app (no listen): auth handler, JSON API, development helpers and, when asked, the web build.
+import fs from 'node:fs';
+import path from 'node:path';
+import express from 'express';
+import { toNodeHandler } from 'better-auth/node';
+import { auth } from './auth';
+import { config } from './config';
+import { databaseState } from './db';
+import { errorHandler, HttpError } from './http';
+import { loadUser } from './middleware/session';
+import { adminRouter } from './routes/admin';
+import { devRouter } from './routes/dev';
+import { meRouter } from './routes/me';
+import { songsRouter } from './routes/songs';
+import { studentsRouter } from './routes/students';
+import type { Health } from '../shared/schemas';
+
+// eslint-disable-next-line @typescript-eslint/no-require-imports
+const { version } = require('../package.json') as { version: string };
+
+export function createApp(opts: { serveWeb?: boolean } = {}) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  // better-auth reads the raw body itself, so it is mounted before the JSON parser.
+  app.all('/api/auth/{*splat}', toNodeHandler(auth));
+
+  app.use(express.json({ limit: '1mb' }));
+
+  app.get('/api/health', async (_req, res) => {
+    const database = await databaseState();
+    const body: Health = { status: database === 'up' ? 'ok' : 'degraded', database, version };
+    res.status(database === 'up' ? 200 : 503).json(body);
+  });
+
+  if (config.devTools) app.use(devRouter);
+
+  app.use('/api', loadUser);
+  app.use('/api/me', meRouter);
+  app.use('/api/songs', songsRouter);
+  app.use('/api/students', studentsRouter);
+  app.use('/api/admin', adminRouter);
+  app.use('/api', (req, _res, next) => next(new HttpError(404, 'not_found', `no API route ${req.method} ${req.path}`)));
+
+  if (opts.serveWeb && fs.existsSync(path.join(config.webDist, 'index.html'))) {
+    app.use(express.static(config.webDist, { index: false, maxAge: '1h' }));
+    // The web build is a single-page app: every other path gets index.html and the client router takes over.
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(config.webDist, 'index.html')));
+  }
+
+  app.use(errorHandler);
+  return app;
+}

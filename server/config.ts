@@ -1,0 +1,31 @@
+// Every setting the server reads from its environment, in one place, with the defaults the scripts use.
+import path from 'node:path';
+
+const root = process.env.TACTUS_ROOT ?? path.resolve(__dirname, '..');
+const state = process.env.TACTUS_STATE ?? path.join(root, '.tactus');
+const production = process.env.NODE_ENV === 'production';
+const port = Number(process.env.TACTUS_PORT ?? 4610);
+
+export const config = {
+  root,
+  production,
+  /** The caught-mail page and other development helpers are never mounted in production. */
+  devTools: !production || process.env.TACTUS_DEV_TOOLS === '1',
+  port,
+  publicUrl: process.env.TACTUS_PUBLIC_URL ?? `http://127.0.0.1:${port}`,
+  authSecret: process.env.TACTUS_AUTH_SECRET ?? 'tactus-local-development-secret-change-me-in-production',
+  webDist: process.env.TACTUS_WEB_DIST ?? path.join(root, 'dist'),
+  db: {
+    host: process.env.TACTUS_DB_HOST ?? '127.0.0.1',
+    port: Number(process.env.TACTUS_DB_PORT ?? 3406),
+    user: process.env.TACTUS_DB_USER ?? 'tactus',
+    password: process.env.TACTUS_DB_PASSWORD ?? 'tactus-local',
+    name: process.env.TACTUS_DB_NAME ?? 'tactus_dev',
+  },
+  mail: {
+    host: '127.0.0.1',
+    port: Number(process.env.TACTUS_SMTP_PORT ?? 2526),
+    from: process.env.TACTUS_MAIL_FROM ?? 'Tactus <hello@tactus.local>',
+    caughtDir: process.env.TACTUS_MAIL_DIR ?? path.join(state, 'mail'),
+  },
+};

@@ -1,0 +1,23 @@
+// Starts the server: migrate, then listen. Set TACTUS_SERVE_WEB=1 (or NODE_ENV=production) to serve dist/.
+import { config } from './config';
+import { createApp } from './app';
+import { migrate } from './migrator';
+import { sequelize } from './db';
+
+async function main() {
+  const applied = await migrate();
+  if (applied.length) console.log(`[tactus] applied migrations: ${applied.join(', ')}`);
+  const serveWeb = config.production || process.env.TACTUS_SERVE_WEB === '1';
+  const app = createApp({ serveWeb });
+  const server = app.listen(config.port, '127.0.0.1', () => {
+    console.log(`[tactus] serving ${serveWeb ? 'the app and ' : ''}the API at ${config.publicUrl}`);
+  });
+  const stop = () => server.close(() => sequelize.close().then(() => process.exit(0)));
+  process.on('SIGTERM', stop);
+  process.on('SIGINT', stop);
+}
+
+main().catch((err) => {
+  console.error('[tactus] could not start:', err);
+  process.exit(1);
+});

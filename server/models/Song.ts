@@ -1,0 +1,43 @@
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
+import { sequelize } from '../db';
+
+// DECIMAL comes back from the driver as a string; tempos are numbers everywhere else.
+const bpmColumn = (name: string) => ({
+  type: DataTypes.DECIMAL(6, 2),
+  allowNull: true,
+  get(this: Model) {
+    const raw = this.getDataValue(name) as string | number | null;
+    return raw === null || raw === undefined ? null : Number(raw);
+  },
+});
+
+/** A piece a player is working on, with the tempos that matter for it. */
+export class Song extends Model<InferAttributes<Song>, InferCreationAttributes<Song>> {
+  declare id: CreationOptional<string>;
+  declare ownerId: string;
+  declare title: string;
+  declare composer: string | null;
+  declare meter: CreationOptional<string>;
+  declare goalBpm: number | null;
+  declare workingBpm: number | null;
+  declare chosenBpm: number | null;
+  declare notes: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+Song.init(
+  {
+    id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    ownerId: { type: DataTypes.STRING(64), allowNull: false },
+    title: { type: DataTypes.STRING(200), allowNull: false },
+    composer: { type: DataTypes.STRING(200), allowNull: true },
+    meter: { type: DataTypes.STRING(8), allowNull: false, defaultValue: '4/4' },
+    goalBpm: bpmColumn('goalBpm'),
+    workingBpm: bpmColumn('workingBpm'),
+    chosenBpm: bpmColumn('chosenBpm'),
+    notes: { type: DataTypes.TEXT, allowNull: true },
+    createdAt: DataTypes.DATE(3),
+    updatedAt: DataTypes.DATE(3),
+  },
+  { sequelize, tableName: 'songs', modelName: 'Song' },
+);

@@ -1,0 +1,28 @@
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import { sequelize } from '../db';
+import type { Role } from '../../shared/schemas';
+
+/** A person who signs in. better-auth writes these rows through the adapter in auth-adapter.ts. */
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: string;
+  declare name: string;
+  declare email: string;
+  declare emailVerified: boolean;
+  declare image: string | null;
+  declare role: Role;
+  declare createdAt: Date;
+  declare updatedAt: Date;
+}
+User.init(
+  {
+    id: { type: DataTypes.STRING(64), primaryKey: true },
+    name: { type: DataTypes.STRING(200), allowNull: false },
+    email: { type: DataTypes.STRING(320), allowNull: false, unique: true },
+    emailVerified: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    image: { type: DataTypes.TEXT, allowNull: true },
+    role: { type: DataTypes.ENUM('player', 'teacher', 'admin'), allowNull: false, defaultValue: 'player' },
+    createdAt: DataTypes.DATE(3),
+    updatedAt: DataTypes.DATE(3),
+  },
+  { sequelize, tableName: 'users', modelName: 'User' },
+);

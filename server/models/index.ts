@@ -1,0 +1,17 @@
+// Every model and association, registered once on the shared Sequelize instance.
+import { User } from './User';
+import { Session } from './Session';
+import { Account } from './Account';
+import { Verification } from './Verification';
+import { Song } from './Song';
+import { StudioLink } from './StudioLink';
+
+User.hasMany(Song, { foreignKey: 'ownerId', as: 'songs', onDelete: 'CASCADE' });
+Song.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
+StudioLink.belongsTo(User, { foreignKey: 'studentId', as: 'student' });
+StudioLink.belongsTo(User, { foreignKey: 'teacherId', as: 'teacher' });
+
+/** better-auth's model names (after our modelName mapping) → the Sequelize model that stores them. */
+export const authModels = { users: User, sessions: Session, accounts: Account, verifications: Verification } as const;
+
+export { User, Session, Account, Verification, Song, StudioLink };

@@ -1,0 +1,17 @@
+import { Router } from 'express';
+import { handler, parseBody } from '../http';
+import { requireRole } from '../middleware/session';
+import { RoleChangeSchema } from '../../shared/schemas';
+import { listUsers, setRole } from '../services/users';
+
+export const adminRouter = Router();
+adminRouter.use(requireRole('admin'));
+
+adminRouter.get('/users', handler(async (_req, res) => {
+  res.json({ users: await listUsers() });
+}));
+
+adminRouter.patch('/users/:id/role', handler(async (req, res) => {
+  const { role } = parseBody(RoleChangeSchema, req.body);
+  res.json(await setRole(String(req.params.id), role));
+}));

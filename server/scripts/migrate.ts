@@ -1,0 +1,6 @@
+import { migrate } from '../migrator';
+import { sequelize } from '../db';
+
+migrate()
+  .then((names) => console.log(names.length ? `[tactus] applied migrations: ${names.join(', ')}` : '[tactus] schema up to date'))
+  .finally(() => sequelize.close());

@@ -1,0 +1,24 @@
+// Accounts as an admin sees them.
+import { User } from '../models';
+import { notFound } from '../http';
+import type { Role, UserSummary } from '../../shared/schemas';
+
+export const toUserSummary = (u: User): UserSummary => ({
+  id: u.id,
+  name: u.name,
+  email: u.email,
+  role: u.role,
+  emailVerified: Boolean(u.emailVerified),
+  createdAt: u.createdAt.toISOString(),
+});
+
+export async function listUsers(): Promise<UserSummary[]> {
+  return (await User.findAll({ order: [['createdAt', 'ASC']] })).map(toUserSummary);
+}
+
+export async function setRole(userId: string, role: Role): Promise<UserSummary> {
+  const user = await User.findByPk(userId);
+  if (!user) throw notFound('user');
+  await user.update({ role });
+  return toUserSummary(user);
+}

@@ -1,0 +1,105 @@
+// The single source of every API shape: the server validates with these, the client infers its types.
+import { z } from 'zod';
+
+export const ROLES = ['player', 'teacher', 'admin'] as const;
+export const RoleSchema = z.enum(ROLES);
+export type Role = z.infer<typeof RoleSchema>;
+
+/** Tempo in beats per minute. 30–300 covers what the tempo engine reports and what a metronome offers. */
+export const BpmSchema = z.number().min(30, 'tempo must be at least 30 BPM').max(300, 'tempo must be at most 300 BPM');
+
+/** A time signature such as 4/4, 3/4, 6/8 or 7/8. */
+export const MeterSchema = z
+  .string()
+  .regex(/^(?:[1-9]|1[0-9])\/(?:2|4|8|16)$/, 'meter must look like 4/4, 3/4 or 6/8');
+
+export const HealthSchema = z.object({
+  status: z.enum(['ok', 'degraded']),
+  database: z.enum(['up', 'down']),
+  version: z.string(),
+});
+export type Health = z.infer<typeof HealthSchema>;
+
+export const MeSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  email: z.string(),
+  emailVerified: z.boolean(),
+  role: RoleSchema,
+});
+export type Me = z.infer<typeof MeSchema>;
+
+export const SongInputSchema = z.object({
+  title: z.string().trim().min(1, 'title is required').max(200),
+  composer: z.string().trim().max(200).nullish(),
+  meter: MeterSchema.optional(),
+  goalBpm: BpmSchema.nullish(),
+  workingBpm: BpmSchema.nullish(),
+  chosenBpm: BpmSchema.nullish(),
+  notes: z.string().max(5000).nullish(),
+});
+export type SongInput = z.infer<typeof SongInputSchema>;
+export const SongPatchSchema = SongInputSchema.partial();
+export type SongPatch = z.infer<typeof SongPatchSchema>;
+
+export const SongSchema = z.object({
+  id: z.string(),
+  ownerId: z.string(),
+  title: z.string(),
+  composer: z.string().nullable(),
+  meter: z.string(),
+  goalBpm: z.number().nullable(),
+  workingBpm: z.number().nullable(),
+  chosenBpm: z.number().nullable(),
+  notes: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Song = z.infer<typeof SongSchema>;
+export const SongListSchema = z.object({ songs: z.array(SongSchema) });
+
+export const UserSummarySchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  email: z.string(),
+  role: RoleSchema,
+  emailVerified: z.boolean(),
+  createdAt: z.string(),
+});
+export type UserSummary = z.infer<typeof UserSummarySchema>;
+export const UserListSchema = z.object({ users: z.array(UserSummarySchema) });
+export const RoleChangeSchema = z.object({ role: RoleSchema });
+
+export const StudentSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  email: z.string(),
+  songCount: z.number().int(),
+});
+export type Student = z.infer<typeof StudentSchema>;
+export const StudentListSchema = z.object({ students: z.array(StudentSchema) });
+export const AddStudentSchema = z.object({ email: z.string().trim().email('email must be an e-mail address') });
+
+/** Every error the API sends has this shape; `field` names the offending input when there is one. */
+export const ApiErrorSchema = z.object({
+  error: z.object({
+    code: z.string(),
+    message: z.string(),
+    field: z.string().optional(),
+    issues: z.array(z.object({ field: z.string(), message: z.string() })).optional(),
+  }),
+});
+export type ApiError = z.infer<typeof ApiErrorSchema>;
+
+export const CaughtMailSchema = z.object({
+  id: z.string(),
+  to: z.array(z.string()),
+  from: z.string(),
+  subject: z.string(),
+  text: z.string(),
+  html: z.string().nullable(),
+  links: z.array(z.string()),
+  receivedAt: z.string(),
+});
+export type CaughtMail = z.infer<typeof CaughtMailSchema>;
+export const CaughtMailListSchema = z.object({ mails: z.array(CaughtMailSchema) });
