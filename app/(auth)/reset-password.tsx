@@ -1,0 +1,43 @@
+import React, { useState } from 'react';
+import { useLocalSearchParams, useRouter } from 'expo-router';
+import { View } from 'react-native';
+import { Button, Card, Field, Heading, Notice } from '../../components/ui';
+import { space } from '../../components/theme';
+import { resetPassword } from '../../client/auth';
+
+export default function ResetPassword() {
+  const router = useRouter();
+  const { token, error: linkError } = useLocalSearchParams<{ token?: string; error?: string }>();
+  const [password, setPassword] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  const submit = async () => {
+    if (!token) return;
+    setError(null);
+    setBusy(true);
+    try {
+      await resetPassword(token, password);
+      router.replace({ pathname: '/sign-in', params: { reset: '1' } });
+    } catch (e) {
+      setError((e as Error).message);
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <Card>
+      <Heading>Choose a new password</Heading>
+      {!token || linkError ? (
+        <Notice tone="error">This reset link has expired or was already used. Ask for a new one from the sign-in page.</Notice>
+      ) : (
+        <View style={{ gap: space.md }}>
+          <Field label="New password" value={password} onChangeText={setPassword} secureTextEntry hint="At least 8 characters." testID="password" />
+          {error ? <Notice tone="error">{error}</Notice> : null}
+          <Button label="Save password" onPress={submit} busy={busy} />
+        </View>
+      )}
+    </Card>
+  );
+}

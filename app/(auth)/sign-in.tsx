@@ -1,0 +1,48 @@
+import React, { useState } from 'react';
+import { Link, useLocalSearchParams, useRouter } from 'expo-router';
+import { View } from 'react-native';
+import { Body, Button, Card, Field, Heading, Notice } from '../../components/ui';
+import { space } from '../../components/theme';
+import { signIn } from '../../client/auth';
+import { clearCache } from '../../client/hooks';
+
+export default function SignIn() {
+  const router = useRouter();
+  const params = useLocalSearchParams<{ confirmed?: string; reset?: string; error?: string }>();
+  const [email, setEmail] = useState('');
+  const [password, setPassword] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  const submit = async () => {
+    setError(null);
+    setBusy(true);
+    try {
+      await signIn(email.trim(), password);
+      await clearCache();
+      router.replace('/');
+    } catch (e) {
+      setError((e as Error).message);
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <Card>
+      <Heading>Sign in</Heading>
+      {params.confirmed ? <Notice tone="success">Your e-mail is confirmed. Sign in to open your library.</Notice> : null}
+      {params.reset ? <Notice tone="success">Your password is changed. Sign in with the new one.</Notice> : null}
+      {params.error ? <Notice tone="error">That link has expired or was already used. Sign in to get a new one.</Notice> : null}
+      <View style={{ gap: space.md }}>
+        <Field label="E-mail" value={email} onChangeText={setEmail} autoComplete="email" inputMode="email" autoCapitalize="none" testID="email" />
+        <Field label="Password" value={password} onChangeText={setPassword} secureTextEntry autoComplete="current-password" onSubmitEditing={submit} testID="password" />
+        {error ? <Notice tone="error">{error}</Notice> : null}
+        <Button label="Sign in" onPress={submit} busy={busy} testID="sign-in" />
+      </View>
+      <Body muted>
+        New here? <Link href="/sign-up">Create an account</Link> · <Link href="/forgot-password">Forgot your password?</Link>
+      </Body>
+    </Card>
+  );
+}

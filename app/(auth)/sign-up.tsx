@@ -1,0 +1,55 @@
+import React, { useState } from 'react';
+import { Link, useRouter } from 'expo-router';
+import { View } from 'react-native';
+import { Body, Button, Card, Field, Heading, Notice } from '../../components/ui';
+import { space } from '../../components/theme';
+import { signUp } from '../../client/auth';
+
+export default function SignUp() {
+  const router = useRouter();
+  const [name, setName] = useState('');
+  const [email, setEmail] = useState('');
+  const [password, setPassword] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  const submit = async () => {
+    setError(null);
+    if (!name.trim()) return setError('Tell us the name your teacher and bandmates know you by.');
+    if (password.length < 8) return setError('Use at least 8 characters for your password.');
+    setBusy(true);
+    try {
+      await signUp(name.trim(), email.trim(), password);
+      router.replace({ pathname: '/check-email', params: { email: email.trim() } });
+    } catch (e) {
+      setError((e as Error).message);
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <Card>
+      <Heading>Create your account</Heading>
+      <View style={{ gap: space.md }}>
+        <Field label="Name" value={name} onChangeText={setName} autoComplete="name" testID="name" />
+        <Field label="E-mail" value={email} onChangeText={setEmail} autoComplete="email" inputMode="email" autoCapitalize="none" testID="email" />
+        <Field
+          label="Password"
+          value={password}
+          onChangeText={setPassword}
+          secureTextEntry
+          autoComplete="new-password"
+          hint="At least 8 characters."
+          onSubmitEditing={submit}
+          testID="password"
+        />
+        {error ? <Notice tone="error">{error}</Notice> : null}
+        <Button label="Create account" onPress={submit} busy={busy} testID="sign-up" />
+      </View>
+      <Body muted>
+        Already have one? <Link href="/sign-in">Sign in</Link>
+      </Body>
+    </Card>
+  );
+}

@@ -1,0 +1,27 @@
+// Practice: the log of sessions and progress toward each goal tempo (the log itself comes with passages).
+import React from 'react';
+import { EmptyState, Heading, Screen, Notice } from '../../components/ui';
+import { useSongs } from '../../client/hooks';
+import { TempoProgress } from '../../components/TempoProgress';
+
+export default function Practice() {
+  const { songs } = useSongs();
+  const withGoal = songs?.filter((s) => s.goalBpm) ?? [];
+  return (
+    <Screen testID="practice">
+      <Heading>Practice</Heading>
+      {withGoal.length === 0 ? (
+        <EmptyState title="Nothing to practise toward yet">
+          Give a song a goal tempo and a working tempo in your library. Your progress from one to the other shows here, session by
+          session.
+        </EmptyState>
+      ) : (
+        withGoal.map((s) => <TempoProgress key={s.id} title={s.title} working={s.workingBpm} goal={s.goalBpm!} />)
+      )}
+      <Notice tone="caution">
+        Long, repetitive practice strains hands, arms and ears. Warm up, take a short break every 20–30 minutes, and stop if
+        anything hurts; your teacher or a health professional can advise you on a routine that suits you.
+      </Notice>
+    </Screen>
+  );
+}

@@ -1,0 +1,50 @@
+// SWR hooks: how screens read server data. Mutations revalidate the keys they change.
+import useSWR, { mutate } from 'swr';
+import { ApiRequestError, apiFetch, fetcher } from './api';
+import type { Me, Song, SongInput, SongPatch, Student, UserSummary, Role } from '../shared/schemas';
+
+export function useMe() {
+  const { data, error, isLoading } = useSWR<Me>('/api/me', fetcher, { shouldRetryOnError: false });
+  const signedOut = error instanceof ApiRequestError && error.status === 401;
+  return { me: data, error: signedOut ? undefined : error, signedOut, isLoading };
+}
+
+export function useSongs() {
+  const { data, error, isLoading } = useSWR<{ songs: Song[] }>('/api/songs', fetcher);
+  return { songs: data?.songs, error, isLoading };
+}
+
+export async function addSong(input: SongInput) {
+  const song = await apiFetch<Song>('/api/songs', { body: input });
+  await mutate('/api/songs');
+  return song;
+}
+
+export async function changeSong(id: string, patch: SongPatch) {
+  const song = await apiFetch<Song>(`/api/songs/${id}`, { method: 'PATCH', body: patch });
+  await mutate('/api/songs');
+  return song;
+}
+
+export function useStudents(enabled: boolean) {
+  const { data, error, isLoading } = useSWR<{ students: Student[] }>(enabled ? '/api/students' : null, fetcher);
+  return { students: data?.students, error, isLoading };
+}
+
+export async function addStudent(email: string) {
+  await apiFetch('/api/students', { body: { email } });
+  await mutate('/api/students');
+}
+
+export function useUsers(enabled: boolean) {
+  const { data, error, isLoading } = useSWR<{ users: UserSummary[] }>(enabled ? '/api/admin/users' : null, fetcher);
+  return { users: data?.users, error, isLoading };
+}
+
+export async function changeRole(userId: string, role: Role) {
+  await apiFetch(`/api/admin/users/${userId}/role`, { method: 'PATCH', body: { role } });
+  await mutate('/api/admin/users');
+}
+
+/** After sign-in or sign-out every cached answer belongs to someone else: drop them all. */
+export const clearCache = () => mutate(() => true, undefined, { revalidate: true });

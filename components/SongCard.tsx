@@ -1,0 +1,24 @@
+import React from 'react';
+import { View } from 'react-native';
+import { Body, Card, Small } from './ui';
+import { TempoLabel } from './TempoLabel';
+import { space } from './theme';
+import type { Song } from '../shared/schemas';
+
+export function SongCard({ song }: { song: Song }) {
+  return (
+    <Card testID="song-card">
+      <View style={{ flexDirection: 'row', justifyContent: 'space-between', flexWrap: 'wrap', gap: space.sm }}>
+        <View style={{ flexShrink: 1 }}>
+          <Body style={{ fontWeight: '700' }}>{song.title}</Body>
+          <Small>{[song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
+        </View>
+      </View>
+      <View style={{ flexDirection: 'row', gap: space.lg, flexWrap: 'wrap' }}>
+        <TempoLabel caption="Working" bpm={song.workingBpm} />
+        <TempoLabel caption="Goal" bpm={song.goalBpm} />
+        <TempoLabel caption="Chosen" bpm={song.chosenBpm} accent />
+      </View>
+    </Card>
+  );
+}

@@ -1,0 +1,68 @@
+import React, { useState } from 'react';
+import { View } from 'react-native';
+import { Button, Card, Field, Heading, Notice } from './ui';
+import { space } from './theme';
+import { SongInputSchema, type SongInput } from '../shared/schemas';
+
+const optionalNumber = (s: string) => (s.trim() === '' ? null : Number(s.replace(',', '.')));
+
+/** New song: title, composer, meter, goal and working tempo. Validated with the same schema as the server. */
+export function SongForm({ onSubmit, onCancel }: { onSubmit: (input: SongInput) => Promise<void>; onCancel: () => void }) {
+  const [title, setTitle] = useState('');
+  const [composer, setComposer] = useState('');
+  const [meter, setMeter] = useState('4/4');
+  const [goal, setGoal] = useState('');
+  const [working, setWorking] = useState('');
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [failure, setFailure] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  const submit = async () => {
+    const parsed = SongInputSchema.safeParse({
+      title,
+      composer: composer.trim() || null,
+      meter,
+      goalBpm: optionalNumber(goal),
+      workingBpm: optionalNumber(working),
+    });
+    if (!parsed.success) {
+      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
+      return;
+    }
+    setErrors({});
+    setBusy(true);
+    try {
+      await onSubmit(parsed.data);
+    } catch (e) {
+      setFailure((e as Error).message);
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <Card testID="song-form">
+      <Heading level={3}>New song</Heading>
+      <View style={{ gap: space.md }}>
+        <Field label="Title" value={title} onChangeText={setTitle} error={errors.title} testID="song-title" />
+        <Field label="Composer or artist" value={composer} onChangeText={setComposer} error={errors.composer} />
+        <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
+          <View style={{ flexGrow: 1, flexBasis: 90 }}>
+            <Field label="Meter" value={meter} onChangeText={setMeter} error={errors.meter} hint="e.g. 4/4, 3/4, 6/8" />
+          </View>
+          <View style={{ flexGrow: 1, flexBasis: 90 }}>
+            <Field label="Goal tempo (BPM)" value={goal} onChangeText={setGoal} inputMode="decimal" error={errors.goalBpm} />
+          </View>
+          <View style={{ flexGrow: 1, flexBasis: 90 }}>
+            <Field label="Working tempo (BPM)" value={working} onChangeText={setWorking} inputMode="decimal" error={errors.workingBpm} />
+          </View>
+        </View>
+        {failure ? <Notice tone="error">{failure}</Notice> : null}
+        <View style={{ flexDirection: 'row', gap: space.md }}>
+          <Button label="Save song" onPress={submit} busy={busy} testID="save-song" />
+          <Button label="Cancel" kind="quiet" onPress={onCancel} />
+        </View>
+      </View>
+    </Card>
+  );
+}

@@ -1,0 +1,51 @@
+// The invented teaching studio that `npm start` seeds once: Harbour Lane Studio, its teacher and three players.
+import type { Role, SongInput } from '../shared/schemas';
+
+export const DEMO_PASSWORD = 'harbour-lane-demo';
+
+export interface DemoPerson {
+  name: string;
+  email: string;
+  role: Role;
+  songs: SongInput[];
+}
+
+export const demoPeople: DemoPerson[] = [
+  {
+    name: 'Odile Marsh',
+    email: 'admin@harbourlane.example',
+    role: 'admin',
+    songs: [],
+  },
+  {
+    name: 'Marta Quist',
+    email: 'marta@harbourlane.example',
+    role: 'teacher',
+    songs: [{ title: 'Slate Roof Nocturne', composer: 'Marta Quist', meter: '3/4', goalBpm: 66, workingBpm: 60 }],
+  },
+  {
+    name: 'Ilya Brandt',
+    email: 'ilya@harbourlane.example',
+    role: 'player',
+    songs: [
+      { title: 'Copperline Reel', composer: 'trad. arr. Harbour Lane', meter: '4/4', goalBpm: 112, workingBpm: 88 },
+      { title: 'Lanterns over Kessel Bay', composer: 'Ilya Brandt', meter: '6/8', goalBpm: 72, workingBpm: 72, chosenBpm: 70 },
+    ],
+  },
+  {
+    name: 'Sanne Okafor',
+    email: 'sanne@harbourlane.example',
+    role: 'player',
+    songs: [{ title: 'Nine Steps Waltz', composer: 'Pieter Vahl', meter: '3/4', goalBpm: 152, workingBpm: 126 }],
+  },
+  {
+    name: 'Tomás Reyes',
+    email: 'tomas@harbourlane.example',
+    role: 'player',
+    songs: [],
+  },
+];
+
+/** Marta teaches the three players. */
+export const demoTeacherEmail = 'marta@harbourlane.example';
+export const demoStudentEmails = ['ilya@harbourlane.example', 'sanne@harbourlane.example', 'tomas@harbourlane.example'];

@@ -1,0 +1,32 @@
+// Seeds the demo studio once (a second run finds the teacher and does nothing). Sign-ins go through better-auth.
+import crypto from 'node:crypto';
+import { auth } from './auth';
+import { Account, User, StudioLink } from './models';
+import { createSong } from './services/songs';
+import { DEMO_PASSWORD, demoPeople, demoStudentEmails, demoTeacherEmail } from './demo-data';
+
+export async function seedDemo(): Promise<{ created: boolean }> {
+  if (await User.findOne({ where: { email: demoTeacherEmail } })) return { created: false };
+  // Hash as better-auth does, and write the rows it would write for an e-mail sign-up ("credential"
+  // account); demo accounts are confirmed up front, so no confirmation mail goes out for them.
+  const { password } = await auth.$context;
+  const hash = await password.hash(DEMO_PASSWORD);
+  for (const person of demoPeople) {
+    const now = new Date();
+    const id = crypto.randomBytes(16).toString('hex');
+    const user = await User.create({ id, name: person.name, email: person.email, emailVerified: true, image: null, role: person.role, createdAt: now, updatedAt: now });
+    await Account.create({ id: crypto.randomBytes(16).toString('hex'), userId: id, accountId: id, providerId: 'credential', password: hash, createdAt: now, updatedAt: now });
+    for (const song of person.songs) await createSong(user.id, song);
+  }
+  const teacher = (await User.findOne({ where: { email: demoTeacherEmail } }))!;
+  for (const email of demoStudentEmails) {
+    const student = (await User.findOne({ where: { email } }))!;
+    await StudioLink.create({ teacherId: teacher.id, studentId: student.id });
+  }
+  return { created: true };
+}
+
+export function demoSignInTable(): string {
+  const rows = demoPeople.map((p) => `  ${p.role.padEnd(8)} ${p.name.padEnd(14)} ${p.email}`);
+  return [`Demo sign-ins (password for all: ${DEMO_PASSWORD}):`, ...rows].join('\n');
+}
