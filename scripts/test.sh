@@ -1,0 +1,17 @@
+#!/usr/bin/env bash
+# npm test: the same set-up as npm start (packages, MariaDB, web build), then every jest project. The test
+# server, its database (tactus_test, reset each run) and its mail catcher are started by tests/setup/.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+started=$(date +%s)
+
+bash "$ROOT/scripts/ensure-deps.sh"
+bash "$ROOT/scripts/mariadb.sh"
+
+log "building the web app for the browser tests"
+(cd "$ROOT" && npx expo export --platform web --output-dir dist >"$TACTUS_STATE/logs/web-build.log" 2>&1) \
+  || { tail -30 "$TACTUS_STATE/logs/web-build.log" >&2; exit 1; }
+
+log "set-up took $(( $(date +%s) - started )) s; running the tests"
+cd "$ROOT"
+npx jest --ci "$@"

@@ -1,0 +1,3 @@
+module.exports = async function globalTeardown() {
+  for (const child of globalThis.__tactusChildren ?? []) child.kill('SIGTERM');
+};
