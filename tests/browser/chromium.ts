@@ -1,0 +1,29 @@
+// Debian's Chromium driven by playwright-core (no browser download): the flags keep it off the network.
+// playwright gives every launch a fresh, empty profile of its own.
+import fs from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser } from 'playwright-core';
+
+export const outputDir = path.resolve(__dirname, '../../test-output');
+
+export async function launchChromium(): Promise<Browser> {
+  fs.mkdirSync(outputDir, { recursive: true });
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+}
+
+export const viewports = [
+  { name: 'phone', width: 390, height: 844 },
+  { name: 'desktop', width: 1280, height: 800 },
+] as const;

@@ -1,0 +1,58 @@
+// The demo studio that npm start seeds: a demo player signs in and sees their songs; the teacher sees students.
+import { execFileSync } from 'node:child_process';
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { launchChromium, outputDir, viewports } from './chromium';
+import { baseUrl } from '../api/helpers';
+import { DEMO_PASSWORD } from '../../server/demo-data';
+
+const root = path.resolve(__dirname, '../..');
+let browser: Browser;
+
+beforeAll(async () => {
+  // The seed script is the one npm start runs; twice in a row must be harmless.
+  const seed = () =>
+    execFileSync(path.join(root, 'node_modules/.bin/tsx'), [path.join(root, 'server/scripts/seed.ts')], {
+      env: { ...process.env, TACTUS_DB_NAME: 'tactus_test' },
+      encoding: 'utf8',
+    });
+  expect(seed()).toMatch(/demo studio (seeded|already present)/);
+  expect(seed()).toContain('demo studio already present');
+  browser = await launchChromium();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function signIn(page: Page, email: string) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByTestId('email').fill(email);
+  await page.getByTestId('password').fill(DEMO_PASSWORD);
+  await page.getByTestId('sign-in').click();
+  await page.getByTestId('library').waitFor();
+}
+
+describe.each(viewports)('demo studio at $name width', (viewport) => {
+  test('a demo player sees their songs with working, goal and chosen tempos', async () => {
+    const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+    const page = await context.newPage();
+    await signIn(page, 'ilya@harbourlane.example');
+    await page.getByText('Copperline Reel').waitFor();
+    await page.getByText('Lanterns over Kessel Bay').waitFor();
+    expect(await page.getByTestId('song-card').count()).toBe(2);
+    await page.screenshot({ path: path.join(outputDir, `demo-library-${viewport.name}.png`) });
+    await context.close();
+  });
+
+  test('the demo teacher sees the Students page with three students', async () => {
+    const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+    const page = await context.newPage();
+    await signIn(page, 'marta@harbourlane.example');
+    await page.getByRole('link', { name: 'Students' }).click();
+    await page.getByTestId('students').waitFor();
+    await page.getByText('Sanne Okafor').waitFor();
+    await page.getByText('Tomás Reyes').waitFor();
+    await page.screenshot({ path: path.join(outputDir, `demo-students-${viewport.name}.png`) });
+    await context.close();
+  });
+});
