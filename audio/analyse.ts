@@ -1,0 +1,108 @@
+// The tempo engine: samples in, analysis out. Each stage is one function in its own file, called here in
+// the order the signal flows: onset → periodicity → tempo → beats → meter → curve → summary.
+import type { Analysis } from './types';
+import { onsetEnvelope } from './onset';
+import { bpmToLag, globalPeriodicity, lagToBpm, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
+import { estimateTempo, relationTo, round1, round3 } from './tempo';
+import { trackBeats } from './beats';
+import { estimateMeter } from './meter';
+import { regressionBpm, summarise, tempoCurve, round, interBeatTempi, median } from './curve';
+import { ANALYSIS_RATE, resample } from './resample';
+
+/** Beat-to-beat tempo varying less than this (coefficient of variation) counts as a steady piece. */
+const STEADY_CV = 0.03;
+/**
+ * Measured on synthetic click tracks (exact click times): the flux peak of a Hann-windowed frame comes about
+ * 13 ms before the attack's sample position at this frame size, so beat times are moved later by that much.
+ */
+const ONSET_LATENCY_SEC = -0.013;
+
+export function analyse(samples: Float32Array, sampleRate: number): Analysis {
+  const started = performance.now();
+  const audio = sampleRate === ANALYSIS_RATE ? samples : resample(samples, sampleRate, ANALYSIS_RATE);
+  const durationSec = samples.length / sampleRate;
+  const env = onsetEnvelope(audio, ANALYSIS_RATE);
+  const fr = env.frameRate;
+  const empty: Analysis = {
+    bpm: null,
+    confidence: 0,
+    candidates: [],
+    beats: [],
+    downbeats: [],
+    meter: null,
+    curve: [],
+    startBpm: null,
+    endBpm: null,
+    driftPct: null,
+    stabilityCv: null,
+    beatCount: 0,
+    durationSec: round(durationSec, 3),
+    analysisMs: 0,
+  };
+  const finish = (a: Analysis) => ({ ...a, analysisMs: Math.round(performance.now() - started) });
+
+  // Nothing moves at all (silence, or too short to hold two beats at the slowest tempo).
+  let energy = 0;
+  for (let i = 0; i < env.strength.length; i++) energy += env.strength[i]!;
+  if (energy < 1e-3 || env.strength.length < bpmToLag(MIN_BPM, fr) * 2) return finish(empty);
+
+  const periodicity = globalPeriodicity(env.strength, fr);
+  const tempo = estimateTempo(periodicity);
+  if (!tempo) return finish(empty);
+
+  // Follow the tempo over time within ±45 % of the global period, so the grid keeps its metrical level.
+  const lag0 = bpmToLag(tempo.bpm, fr);
+  const minLag = Math.max(2, Math.floor(Math.max(bpmToLag(MAX_BPM, fr), lag0 / 1.45)));
+  const maxLag = Math.ceil(Math.min(bpmToLag(MIN_BPM, fr), lag0 * 1.45));
+  const tg = localTempogram(env.strength, fr, minLag, maxLag);
+  const path = trackPeriod(tg);
+  const periodAt = new Float32Array(env.strength.length);
+  for (let i = 0, w = 0; i < periodAt.length; i++) {
+    while (w < tg.centres.length - 1 && tg.centres[w + 1]! <= i) w++;
+    const a = tg.centres[w]!;
+    const b = tg.centres[Math.min(w + 1, tg.centres.length - 1)]!;
+    const f = b > a ? Math.max(0, Math.min(1, (i - a) / (b - a))) : 0;
+    periodAt[i] = path[w]! * (1 - f) + path[Math.min(w + 1, path.length - 1)]! * f;
+  }
+
+  const beatFrames = trackBeats(env.strength, periodAt);
+  const toSec = (f: number) => f / fr + env.offsetSec - ONSET_LATENCY_SEC;
+  const beats = beatFrames.map((f) => round(Math.max(0, toSec(f)), 4));
+  const summary = summarise(beats);
+  const meter = estimateMeter(beatFrames, env.low, env.strength);
+  const downbeats = meter ? beats.filter((_, i) => i >= meter.phase && (i - meter.phase) % meter.beatsPerBar === 0) : [];
+
+  // Steady pieces: the regression through all beats gives sub-BPM precision; otherwise the median beat tempo.
+  const steady = summary !== null && summary.stabilityCv < STEADY_CV && Math.abs(summary.driftPct) < 3;
+  const fromBeats = steady ? regressionBpm(beats) : beats.length > 2 ? median(interBeatTempi(beats).map((x) => x.bpm)) : null;
+  const bpm = fromBeats && Math.abs(fromBeats / tempo.bpm - 1) < 0.5 ? fromBeats : tempo.bpm;
+
+  const candidates = tempo.candidates.map((c, i) =>
+    i === 0 ? { ...c, bpm: round1(bpm) } : { ...c, relation: relationTo(c.bpm, bpm) },
+  );
+  return finish({
+    bpm: round(bpm, 2),
+    confidence: round3(confidenceFrom(tempo.strength, summary?.stabilityCv ?? 1)),
+    candidates,
+    beats,
+    downbeats,
+    meter: meter ? `${meter.beatsPerBar}/4` : null,
+    curve: tempoCurve(beats),
+    startBpm: summary?.startBpm ?? null,
+    endBpm: summary?.endBpm ?? null,
+    driftPct: summary?.driftPct ?? null,
+    stabilityCv: summary?.stabilityCv ?? null,
+    beatCount: beats.length,
+    durationSec: round(durationSec, 3),
+    analysisMs: 0,
+  });
+}
+
+/** Periodicity strength, discounted when the beats wander: both must hold for a confident answer. */
+function confidenceFrom(strength: number, cv: number): number {
+  const periodic = Math.max(0, Math.min(1, (strength - 0.05) / 0.45));
+  const regular = Math.max(0, Math.min(1, 1 - cv / 0.25));
+  return periodic * (0.5 + 0.5 * regular);
+}
+
+export { lagToBpm };

@@ -1,0 +1,104 @@
+// Stage 4 — beat times by dynamic programming (Ellis 2007, "Beat Tracking by Dynamic Programming", JNMR
+// 36(1)), with the target period taken frame by frame from the tracked tempo path so the grid follows
+// tempo changes. Beat positions are then refined to the sub-frame peak of the onset envelope.
+
+export interface BeatTrackOptions {
+  /** How strongly beat-to-beat intervals are held to the local period (Ellis's α; librosa's 100). */
+  tightness?: number;
+}
+
+/** Returns beat positions in (fractional) frames. */
+export function trackBeats(onset: Float32Array, periodAt: Float32Array, opts: BeatTrackOptions = {}): number[] {
+  const n = onset.length;
+  if (n === 0) return [];
+  const tightness = opts.tightness ?? 100;
+
+  // Normalise by the standard deviation and smooth lightly (librosa's local score).
+  let mean = 0;
+  for (let i = 0; i < n; i++) mean += onset[i]!;
+  mean /= n;
+  let sd = 0;
+  for (let i = 0; i < n; i++) sd += (onset[i]! - mean) ** 2;
+  sd = Math.sqrt(sd / n) || 1;
+  const local = new Float32Array(n);
+  const sigma = 1.5;
+  for (let i = 0; i < n; i++) {
+    let acc = 0;
+    let wsum = 0;
+    for (let d = -4; d <= 4; d++) {
+      const j = i + d;
+      if (j < 0 || j >= n) continue;
+      const w = Math.exp(-0.5 * (d / sigma) ** 2);
+      acc += w * onset[j]!;
+      wsum += w;
+    }
+    local[i] = acc / wsum / sd;
+  }
+
+  const cum = new Float32Array(n);
+  const prev = new Int32Array(n).fill(-1);
+  for (let i = 0; i < n; i++) {
+    const tau = periodAt[i]!;
+    const lo = Math.max(0, Math.floor(i - 2 * tau));
+    const hi = Math.floor(i - tau / 2);
+    let best = -Infinity;
+    let arg = -1;
+    for (let p = hi; p >= lo; p--) {
+      const l = Math.log((i - p) / tau);
+      const s = cum[p]! - tightness * l * l;
+      if (s > best) {
+        best = s;
+        arg = p;
+      }
+    }
+    if (arg >= 0 && best > 0) {
+      cum[i] = local[i]! + best;
+      prev[i] = arg;
+    } else {
+      cum[i] = local[i]!;
+    }
+  }
+
+  // Last beat: the best cumulative score among local maxima within the final period.
+  const lastPeriod = Math.ceil(periodAt[n - 1]!);
+  let end = n - 1;
+  let endScore = -Infinity;
+  for (let i = Math.max(0, n - lastPeriod); i < n; i++) {
+    if (cum[i]! > endScore) {
+      endScore = cum[i]!;
+      end = i;
+    }
+  }
+  const frames: number[] = [];
+  for (let b = end; b >= 0; b = prev[b]!) frames.push(b);
+  frames.reverse();
+  return trimWeakEdges(frames, local).map((f) => refinePeak(onset, f));
+}
+
+/** Drops leading and trailing beats that fall where there is no music (below half the RMS of the beat strengths). */
+function trimWeakEdges(frames: number[], local: Float32Array): number[] {
+  if (frames.length < 3) return frames;
+  const strengths = frames.map((f) => local[f]!);
+  const rms = Math.sqrt(strengths.reduce((a, s) => a + s * s, 0) / strengths.length);
+  const threshold = 0.5 * rms;
+  let a = 0;
+  let b = frames.length - 1;
+  while (a < b && strengths[a]! < threshold) a++;
+  while (b > a && strengths[b]! < threshold) b--;
+  return frames.slice(a, b + 1);
+}
+
+/** The onset peak within ±2 frames of a beat, to a fraction of a frame by parabolic interpolation. */
+function refinePeak(onset: Float32Array, f: number): number {
+  let best = f;
+  for (let d = -2; d <= 2; d++) {
+    const j = f + d;
+    if (j > 0 && j < onset.length - 1 && onset[j]! > onset[best]!) best = j;
+  }
+  if (best <= 0 || best >= onset.length - 1 || onset[best]! <= 0) return f;
+  const a = onset[best - 1]!;
+  const b = onset[best]!;
+  const c = onset[best + 1]!;
+  const d = a - 2 * b + c;
+  return d < 0 ? best + Math.max(-0.5, Math.min(0.5, (0.5 * (a - c)) / d)) : best;
+}
