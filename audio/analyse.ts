@@ -2,7 +2,7 @@
 // the order the signal flows: onset → periodicity → tempo → beats → meter → curve → summary.
 import type { Analysis } from './types';
 import { onsetEnvelope } from './onset';
-import { bpmToLag, globalPeriodicity, lagToBpm, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
+import { bpmToLag, globalPeriodicity, lagToBpm, localPulse, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
 import { estimateTempo, relationTo, round1, round3 } from './tempo';
 import { trackBeats } from './beats';
 import { estimateMeter } from './meter';
@@ -47,7 +47,7 @@ export function analyse(samples: Float32Array, sampleRate: number): Analysis {
   if (energy < 1e-3 || env.strength.length < bpmToLag(MIN_BPM, fr) * 2) return finish(empty);
 
   const periodicity = globalPeriodicity(env.strength, fr);
-  const tempo = estimateTempo(periodicity);
+  const tempo = estimateTempo(periodicity, (b) => localPulse(env.strength, fr, b));
   if (!tempo) return finish(empty);
 
   // Follow the tempo over time within ±45 % of the global period, so the grid keeps its metrical level.

@@ -9,7 +9,7 @@ export interface OnsetEnvelope {
   low: Float32Array;
   /** Frames per second. */
   frameRate: number;
-  /** Seconds of the first frame's centre. */
+  /** Seconds of the first frame's centre (negative: the first frames hang over the start). */
   offsetSec: number;
 }
 
@@ -21,7 +21,7 @@ const LOW_BAND_HZ = 220;
 export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetEnvelope {
   const bins = FRAME_SIZE / 2 + 1;
   const lowBins = Math.max(2, Math.round((LOW_BAND_HZ * FRAME_SIZE) / sampleRate));
-  const frames = Math.max(0, Math.floor((samples.length - FRAME_SIZE) / HOP) + 1);
+  const frames = Math.max(0, Math.floor(samples.length / HOP) + 1);
   const strength = new Float32Array(frames);
   const low = new Float32Array(frames);
   let prev = new Float32Array(bins);
@@ -44,13 +44,14 @@ export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetE
     const t = prev;
     prev = cur;
     cur = t;
-  });
+  }, FRAME_SIZE);
   const frameRate = sampleRate / HOP;
   return {
     strength: removeTrend(strength, Math.round(frameRate * 0.4)),
     low: removeTrend(low, Math.round(frameRate * 0.4)),
     frameRate,
-    offsetSec: FRAME_SIZE / 2 / sampleRate,
+    // FRAME_SIZE zeros are read before the signal: frame f is centred at f·HOP − FRAME_SIZE/2 samples.
+    offsetSec: -FRAME_SIZE / 2 / sampleRate,
   };
 }
 

@@ -62,6 +62,35 @@ export function peakNear(acf: Float32Array, lag: number): number {
   return best;
 }
 
+/**
+ * How strongly the envelope repeats at one tempo, judged window by window (8 s, so a drifting tempo does not
+ * smear the peak as it does over a whole take): the mean over windows of the best normalised local
+ * autocorrelation within ±3 % of the tempo's lag.
+ */
+export function localPulse(envelope: Float32Array, frameRate: number, bpm: number, windowSec = 8): number {
+  const lag = bpmToLag(bpm, frameRate);
+  const lo = Math.max(1, Math.floor(lag * 0.97));
+  const hi = Math.ceil(lag * 1.03);
+  const win = Math.min(envelope.length, Math.round(windowSec * frameRate));
+  if (win <= hi + 1) return 0;
+  let total = 0;
+  let count = 0;
+  for (let s = 0; s + win <= envelope.length; s += Math.round(win / 2)) {
+    let energy = 0;
+    for (let i = s; i < s + win; i++) energy += envelope[i]! * envelope[i]!;
+    if (energy <= 0) continue;
+    let best = 0;
+    for (let l = lo; l <= hi; l++) {
+      let acc = 0;
+      for (let i = s; i < s + win - l; i++) acc += envelope[i]! * envelope[i + l]!;
+      best = Math.max(best, (acc / energy) * (win / (win - l)));
+    }
+    total += best;
+    count++;
+  }
+  return count ? total / count : 0;
+}
+
 export interface Tempogram {
   /** Window centres, in frames. */
   centres: number[];

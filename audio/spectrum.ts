@@ -7,22 +7,28 @@ export function hannWindow(size: number): Float32Array {
   return w;
 }
 
-/** Calls `onFrame(frameIndex, magnitudes)` for each hop; the magnitudes array is reused between calls. */
+/**
+ * Calls `onFrame(frameIndex, magnitudes)` for each hop; the magnitudes array is reused between calls.
+ * The signal is read as if `padStart` zeros came before it, so an attack at the very first sample still
+ * has a silent frame before it.
+ */
 export function forEachSpectrum(
   samples: Float32Array,
   frameSize: number,
   hop: number,
   onFrame: (index: number, magnitudes: Float32Array) => void,
+  padStart = 0,
 ): number {
   const fft = new FFT(frameSize);
   const window = hannWindow(frameSize);
   const input = new Float64Array(frameSize);
   const out = fft.createComplexArray() as number[];
   const mags = new Float32Array(frameSize / 2 + 1);
-  const frames = Math.max(0, Math.floor((samples.length - frameSize) / hop) + 1);
+  const frames = Math.max(0, Math.floor((samples.length + padStart - frameSize) / hop) + 1);
   for (let f = 0; f < frames; f++) {
-    const start = f * hop;
-    for (let i = 0; i < frameSize; i++) input[i] = samples[start + i]! * window[i]!;
+    const start = f * hop - padStart;
+    if (start >= 0) for (let i = 0; i < frameSize; i++) input[i] = samples[start + i]! * window[i]!;
+    else for (let i = 0; i < frameSize; i++) input[i] = start + i >= 0 ? samples[start + i]! * window[i]! : 0;
     fft.realTransform(out, input);
     for (let k = 0; k <= frameSize / 2; k++) {
       const re = out[2 * k]!;

@@ -2,7 +2,7 @@
 // as in Ellis 2007 and librosa's beat tracker), with the other strong peaks ranked and named by their
 // relation to it (half, double, dotted …).
 import type { TempoCandidate, TempoRelation } from './types';
-import { peakNear, type PeriodicityCurve } from './periodicity';
+import type { PeriodicityCurve } from './periodicity';
 
 const PRIOR_CENTRE_BPM = 120;
 const PRIOR_OCTAVES = 1.0;
@@ -31,8 +31,6 @@ export function relationTo(bpm: number, primary: number): TempoRelation {
 const FASTEST_PREFERRED_BPM = 210;
 const COMPLETE_PULSE = 0.9;
 
-/** The plain autocorrelation (no comb) at one tempo. */
-const pulseAt = (curve: PeriodicityCurve, bpm: number) => peakNear(curve.acf, (60 * curve.frameRate) / bpm);
 
 export interface TempoEstimate {
   bpm: number;
@@ -41,7 +39,11 @@ export interface TempoEstimate {
   candidates: TempoCandidate[];
 }
 
-export function estimateTempo(curve: PeriodicityCurve, maxCandidates = 5): TempoEstimate | null {
+/**
+ * @param pulseAt strength of the plain pulse at a tempo (see localPulse), used to decide between a tempo and
+ *   its double.
+ */
+export function estimateTempo(curve: PeriodicityCurve, pulseAt: (bpm: number) => number, maxCandidates = 5): TempoEstimate | null {
   const { bpm, score } = curve;
   const peaks: { i: number; s: number }[] = [];
   for (let i = 1; i < score.length - 1; i++) {
@@ -53,7 +55,7 @@ export function estimateTempo(curve: PeriodicityCurve, maxCandidates = 5): Tempo
   // A pulse that is just as strong at half the period has no weaker off-beats between its beats: then the
   // faster pulse is the beat (every click of a plain click track, for instance), while it stays playable.
   const twice = 2 * bpm[best.i]!;
-  if (twice <= FASTEST_PREFERRED_BPM && pulseAt(curve, twice) >= COMPLETE_PULSE * pulseAt(curve, bpm[best.i]!)) {
+  if (twice <= FASTEST_PREFERRED_BPM && pulseAt(twice) >= COMPLETE_PULSE * pulseAt(bpm[best.i]!)) {
     const faster = peaks.filter((p) => Math.abs(bpm[p.i]! / twice - 1) < 0.03).sort((a, b) => b.s - a.s)[0];
     if (faster) best = faster;
   }
