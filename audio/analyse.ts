@@ -9,6 +9,7 @@ import { estimateMeter } from './meter';
 import { regressionBpm, summarise, tempoCurve, round, interBeatTempi, median } from './curve';
 import { ANALYSIS_RATE, resample } from './resample';
 
+const TEMPO_PATH_RANGE = 1.32;
 /** Beat-to-beat tempo varying less than this (coefficient of variation) counts as a steady piece. */
 const STEADY_CV = 0.03;
 /**
@@ -50,12 +51,13 @@ export function analyse(samples: Float32Array, sampleRate: number): Analysis {
   const tempo = estimateTempo(periodicity, (b) => localPulse(env.strength, fr, b));
   if (!tempo) return finish(empty);
 
-  // Follow the tempo over time within ±45 % of the global period, so the grid keeps its metrical level.
+  // Follow the tempo over time within ±35 % of the global period (a ritardando of a quarter, a ramp from 90 to
+  // 130), which keeps the grid on its metrical level: ×4/3 and ×3/2 pulses lie outside it.
   const lag0 = bpmToLag(tempo.bpm, fr);
-  const minLag = Math.max(2, Math.floor(Math.max(bpmToLag(MAX_BPM, fr), lag0 / 1.45)));
-  const maxLag = Math.ceil(Math.min(bpmToLag(MIN_BPM, fr), lag0 * 1.45));
+  const minLag = Math.max(2, Math.floor(Math.max(bpmToLag(MAX_BPM, fr), lag0 / TEMPO_PATH_RANGE)));
+  const maxLag = Math.ceil(Math.min(bpmToLag(MIN_BPM, fr), lag0 * TEMPO_PATH_RANGE));
   const tg = localTempogram(env.strength, fr, minLag, maxLag);
-  const path = trackPeriod(tg);
+  const path = trackPeriod(tg, lag0);
   const periodAt = new Float32Array(env.strength.length);
   for (let i = 0, w = 0; i < periodAt.length; i++) {
     while (w < tg.centres.length - 1 && tg.centres[w + 1]! <= i) w++;

@@ -54,7 +54,7 @@ export function estimateMeter(beatFrames: number[], low: Float32Array, all: Floa
   const three = contrastFor(3);
   const four = contrastFor(4);
   // A triple grouping must clearly beat the duple ones to be believed.
-  if (three.contrast > 1.15 * Math.max(two.contrast, four.contrast) && three.contrast > 0.3) {
+  if (three.contrast > 1.3 * Math.max(two.contrast, four.contrast) && three.contrast > 0.6) {
     return { beatsPerBar: 3, phase: three.phase, contrast: three.contrast };
   }
   const duple = four.contrast >= two.contrast * 0.9 ? four : { phase: two.phase, contrast: two.contrast };

@@ -16,7 +16,7 @@ export interface OnsetEnvelope {
 export const FRAME_SIZE = 512;
 export const HOP = 128;
 const COMPRESSION = 1000; // γ in log(1 + γ|X|)
-const LOW_BAND_HZ = 220;
+const LOW_BAND_HZ = 150; // kick drum and bass fundamentals; a snare's body sits above
 
 export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetEnvelope {
   const bins = FRAME_SIZE / 2 + 1;

@@ -130,13 +130,17 @@ export function localTempogram(envelope: Float32Array, frameRate: number, minLag
  * The beat period over time, kept near one metrical level: a Viterbi path through the tempogram whose steps
  * cost in proportion to the change of log-period, so that ramps and ritardandos are followed but a jump to
  * the double or half tempo is not taken.
+ * @param centreLag the period of the global tempo, in frames
  */
-export function trackPeriod(tg: Tempogram, changePenalty = 30): number[] {
+export function trackPeriod(tg: Tempogram, centreLag: number, changePenalty = 30, centrePull = 0.5): number[] {
   const states = tg.maxLag - tg.minLag + 1;
   const W = tg.values.length;
   if (W === 0) return [];
   const logLag = Float64Array.from({ length: states }, (_, i) => Math.log(tg.minLag + i));
-  let cost = Float64Array.from(tg.values[0]!, (v) => -v);
+  // A gentle pull toward the global tempo: a competing pulse of a syncopated groove (the dotted eighth of a
+  // funk pattern) must be much stronger than the beat, window after window, to take the path over.
+  const pull = Float64Array.from(logLag, (l) => centrePull * Math.abs(l - Math.log(centreLag)));
+  let cost = Float64Array.from(tg.values[0]!, (v, j) => pull[j]! - v);
   const back: Int32Array[] = [];
   for (let w = 1; w < W; w++) {
     const next = new Float64Array(states);
@@ -155,7 +159,7 @@ export function trackPeriod(tg: Tempogram, changePenalty = 30): number[] {
           arg = i;
         }
       }
-      next[j] = best - row[j]!;
+      next[j] = best - row[j]! + pull[j]!;
       from[j] = arg;
     }
     back.push(from);

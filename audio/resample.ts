@@ -8,9 +8,10 @@ export function resample(input: Float32Array, fromRate: number, toRate: number =
   const ratio = fromRate / toRate;
   const outLength = Math.floor(input.length / ratio);
   const out = new Float32Array(outLength);
-  // Cut-off just under the lower Nyquist frequency; 16 zero crossings each side, Blackman window.
+  // Cut-off just under the lower Nyquist frequency; 8 zero crossings each side, Blackman window (ample for
+  // onset analysis, and twice as fast as 16).
   const cutoff = 0.94 * Math.min(1, 1 / ratio);
-  const halfTaps = Math.ceil(16 / cutoff);
+  const halfTaps = Math.ceil(8 / cutoff);
   const tableRes = 64;
   const table = new Float32Array(halfTaps * tableRes + 2);
   for (let i = 0; i < table.length; i++) {

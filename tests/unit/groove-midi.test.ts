@@ -1,0 +1,21 @@
+// A human drum performance from the Groove MIDI Dataset (Gillick et al., ICML 2019), played to a 138 BPM
+// metronome and not quantised (../shared/reference-data/groove-midi/info.csv), rendered here with fluidsynth.
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { analyse } from '../../audio/analyse';
+import { accuracy1 } from '../../audio/evaluation';
+import { decodeFile } from '../../server/analysis/decode';
+import { renderMidi } from '../../fixtures/render';
+
+const MIDI = path.resolve(__dirname, '../../../shared/reference-data/groove-midi/1_funk-groove1_138_beat_4-4.mid');
+
+test('the drummer reads 138 BPM within 4 % (Accuracy1)', async () => {
+  const wav = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-groove-')), 'groove.wav');
+  renderMidi(MIDI, wav);
+  const { samples, sampleRate } = await decodeFile(wav);
+  expect(samples.length / sampleRate).toBeGreaterThan(27);
+  const a = analyse(samples, sampleRate);
+  expect(accuracy1(a.bpm!, 138)).toBe(true);
+  expect(a.meter).toBe('4/4');
+});
