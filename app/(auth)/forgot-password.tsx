@@ -4,25 +4,15 @@ import { View } from 'react-native';
 import { Body, Button, Card, Field, Heading, Notice } from '../../components/ui';
 import { space } from '../../components/theme';
 import { requestPasswordReset } from '../../client/auth';
+import { useAction } from '../../client/useAction';
 
 export default function ForgotPassword() {
   const [email, setEmail] = useState('');
   const [sent, setSent] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  const submit = async () => {
-    setError(null);
-    setBusy(true);
-    try {
-      await requestPasswordReset(email.trim());
-      setSent(true);
-    } catch (e) {
-      setError((e as Error).message);
-    } finally {
-      setBusy(false);
-    }
-  };
+  const { run: submit, busy, error } = useAction(async () => {
+    await requestPasswordReset(email.trim());
+    setSent(true);
+  });
 
   return (
     <Card>

@@ -4,27 +4,17 @@ import { View } from 'react-native';
 import { Button, Card, Field, Heading, Notice } from '../../components/ui';
 import { space } from '../../components/theme';
 import { resetPassword } from '../../client/auth';
+import { useAction } from '../../client/useAction';
 
 export default function ResetPassword() {
   const router = useRouter();
   const { token, error: linkError } = useLocalSearchParams<{ token?: string; error?: string }>();
   const [password, setPassword] = useState('');
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  const submit = async () => {
+  const { run: submit, busy, error } = useAction(async () => {
     if (!token) return;
-    setError(null);
-    setBusy(true);
-    try {
-      await resetPassword(token, password);
-      router.replace({ pathname: '/sign-in', params: { reset: '1' } });
-    } catch (e) {
-      setError((e as Error).message);
-    } finally {
-      setBusy(false);
-    }
-  };
+    await resetPassword(token, password);
+    router.replace({ pathname: '/sign-in', params: { reset: '1' } });
+  });
 
   return (
     <Card>

@@ -5,28 +5,18 @@ import { Body, Button, Card, Field, Heading, Notice } from '../../components/ui'
 import { space } from '../../components/theme';
 import { signIn } from '../../client/auth';
 import { clearCache } from '../../client/hooks';
+import { useAction } from '../../client/useAction';
 
 export default function SignIn() {
   const router = useRouter();
   const params = useLocalSearchParams<{ confirmed?: string; reset?: string; error?: string }>();
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  const submit = async () => {
-    setError(null);
-    setBusy(true);
-    try {
-      await signIn(email.trim(), password);
-      await clearCache();
-      router.replace('/');
-    } catch (e) {
-      setError((e as Error).message);
-    } finally {
-      setBusy(false);
-    }
-  };
+  const { run: submit, busy, error } = useAction(async () => {
+    await signIn(email.trim(), password);
+    await clearCache();
+    router.replace('/');
+  });
 
   return (
     <Card>

@@ -4,29 +4,19 @@ import { View } from 'react-native';
 import { Body, Button, Card, Field, Heading, Notice } from '../../components/ui';
 import { space } from '../../components/theme';
 import { signUp } from '../../client/auth';
+import { useAction } from '../../client/useAction';
 
 export default function SignUp() {
   const router = useRouter();
   const [name, setName] = useState('');
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  const submit = async () => {
-    setError(null);
-    if (!name.trim()) return setError('Tell us the name your teacher and bandmates know you by.');
-    if (password.length < 8) return setError('Use at least 8 characters for your password.');
-    setBusy(true);
-    try {
-      await signUp(name.trim(), email.trim(), password);
-      router.replace({ pathname: '/check-email', params: { email: email.trim() } });
-    } catch (e) {
-      setError((e as Error).message);
-    } finally {
-      setBusy(false);
-    }
-  };
+  const { run: submit, busy, error } = useAction(async () => {
+    if (!name.trim()) throw new Error('Tell us the name your teacher and bandmates know you by.');
+    if (password.length < 8) throw new Error('Use at least 8 characters for your password.');
+    await signUp(name.trim(), email.trim(), password);
+    router.replace({ pathname: '/check-email', params: { email: email.trim() } });
+  });
 
   return (
     <Card>

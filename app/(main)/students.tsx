@@ -4,14 +4,17 @@ import { View } from 'react-native';
 import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Screen, Small } from '../../components/ui';
 import { space } from '../../components/theme';
 import { addStudent, useMe, useStudents } from '../../client/hooks';
+import { useAction } from '../../client/useAction';
 
 export default function Students() {
   const { me } = useMe();
   const allowed = me?.role === 'teacher' || me?.role === 'admin';
   const { students, isLoading } = useStudents(allowed);
   const [email, setEmail] = useState('');
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { run: submit, busy, error } = useAction(async () => {
+    await addStudent(email.trim());
+    setEmail('');
+  });
 
   if (!allowed) {
     return (
@@ -20,19 +23,6 @@ export default function Students() {
       </Screen>
     );
   }
-
-  const submit = async () => {
-    setError(null);
-    setBusy(true);
-    try {
-      await addStudent(email.trim());
-      setEmail('');
-    } catch (e) {
-      setError((e as Error).message);
-    } finally {
-      setBusy(false);
-    }
-  };
 
   return (
     <Screen testID="students">
