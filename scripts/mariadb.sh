@@ -13,6 +13,14 @@ if [ ${#SOCK} -gt 100 ]; then SOCK="/tmp/tactus-$(echo "$ROOT" | sha1sum | cut -
 export TACTUS_DB_SOCKET="$SOCK"
 mkdir -p "$RUNDIR"
 
+# Debian's mariadb-server is the only source; install it when it is missing (also done by ensure-deps.sh).
+if ! command -v mariadbd >/dev/null 2>&1 && [ ! -x /usr/sbin/mariadbd ]; then
+  log "installing Debian's mariadb-server"
+  SUDO=""; [ "$(id -u)" -eq 0 ] || SUDO="sudo"
+  exec 8>/tmp/tactus-apt.lock; flock 8
+  $SUDO apt-get update -qq && DEBIAN_FRONTEND=noninteractive $SUDO apt-get install -y -qq mariadb-server >/dev/null
+  exec 8>&-
+fi
 MARIADBD="$(command -v mariadbd || echo /usr/sbin/mariadbd)"
 ping_db() { mariadb-admin --no-defaults --socket="$SOCK" -uroot ping >/dev/null 2>&1; }
 
