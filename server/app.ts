@@ -13,6 +13,7 @@ import { devRouter } from './routes/dev';
 import { meRouter } from './routes/me';
 import { songsRouter } from './routes/songs';
 import { studentsRouter } from './routes/students';
+import { recordingsRouter, songRecordingsRouter } from './routes/recordings';
 import type { Health } from '../shared/schemas';
 
 // eslint-disable-next-line @typescript-eslint/no-require-imports
@@ -38,7 +39,9 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
 
   app.use('/api', loadUser);
   app.use('/api/me', meRouter);
+  app.use('/api/songs/:songId/recordings', songRecordingsRouter);
   app.use('/api/songs', songsRouter);
+  app.use('/api/recordings', recordingsRouter);
   app.use('/api/students', studentsRouter);
   app.use('/api/admin', adminRouter);
   app.use('/api', (req, _res, next) => next(new HttpError(404, 'not_found', `no API route ${req.method} ${req.path}`)));

@@ -22,6 +22,30 @@ export const config = {
     password: process.env.TACTUS_DB_PASSWORD ?? 'tactus-local',
     name: process.env.TACTUS_DB_NAME ?? 'tactus_dev',
   },
+  storage: {
+    driver: (process.env.TACTUS_STORAGE ?? 'disk') as 'disk' | 's3',
+    dir: process.env.TACTUS_STORAGE_DIR ?? path.join(state, 'recordings'),
+    /** Uploads are spooled here while they are checked; never under a real name. */
+    spoolDir: process.env.TACTUS_SPOOL_DIR ?? path.join(state, 'spool'),
+    s3: {
+      endpoint: process.env.TACTUS_S3_ENDPOINT ?? 'http://127.0.0.1:4569',
+      bucket: process.env.TACTUS_S3_BUCKET ?? 'tactus-recordings',
+      region: process.env.TACTUS_S3_REGION ?? 'us-east-1',
+      accessKeyId: process.env.TACTUS_S3_ACCESS_KEY ?? 'S3RVER',
+      secretAccessKey: process.env.TACTUS_S3_SECRET_KEY ?? 'S3RVER',
+    },
+  },
+  uploads: {
+    maxBytes: Number(process.env.TACTUS_MAX_UPLOAD_BYTES ?? 200 * 1024 * 1024),
+    maxDurationSec: Number(process.env.TACTUS_MAX_DURATION_SEC ?? 20 * 60),
+  },
+  analysis: {
+    /** Worker threads per server process; default: one per core but one, at least one. */
+    workers: Number(process.env.TACTUS_ANALYSIS_WORKERS ?? 0),
+    /** A running job whose heartbeat is older than this is taken to be orphaned (its process died). */
+    staleAfterMs: Number(process.env.TACTUS_JOB_STALE_MS ?? 15_000),
+    maxAttempts: 3,
+  },
   mail: {
     host: '127.0.0.1',
     port: Number(process.env.TACTUS_SMTP_PORT ?? 2526),

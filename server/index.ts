@@ -3,16 +3,21 @@ import { config } from './config';
 import { createApp } from './app';
 import { migrate } from './migrator';
 import { sequelize } from './db';
+import { startAnalysisRunner } from './jobs/runner';
+import { cleanSpool } from './middleware/upload';
 
 async function main() {
   const applied = await migrate();
   if (applied.length) console.log(`[tactus] applied migrations: ${applied.join(', ')}`);
+  cleanSpool();
+  // Queued jobs, and jobs whose process died mid-way, are picked up again from the table.
+  const runner = startAnalysisRunner();
   const serveWeb = config.production || process.env.TACTUS_SERVE_WEB === '1';
   const app = createApp({ serveWeb });
   const server = app.listen(config.port, '127.0.0.1', () => {
     console.log(`[tactus] serving ${serveWeb ? 'the app and ' : ''}the API at ${config.publicUrl}`);
   });
-  const stop = () => server.close(() => sequelize.close().then(() => process.exit(0)));
+  const stop = () => server.close(() => void runner.stop().then(() => sequelize.close()).then(() => process.exit(0)));
   process.on('SIGTERM', stop);
   process.on('SIGINT', stop);
 }

@@ -103,3 +103,73 @@ export const CaughtMailSchema = z.object({
 });
 export type CaughtMail = z.infer<typeof CaughtMailSchema>;
 export const CaughtMailListSchema = z.object({ mails: z.array(CaughtMailSchema) });
+
+// ── Recordings and their analysis ────────────────────────────────────────────────────────────────────
+
+export const RecordingKindSchema = z.enum(['reference', 'take'], { message: "kind must be 'reference' or 'take'" });
+export type RecordingKind = z.infer<typeof RecordingKindSchema>;
+
+/** The text fields of an upload (multipart); the file itself is the field `file`. */
+export const RecordingUploadFieldsSchema = z.object({
+  kind: RecordingKindSchema,
+  label: z.string().trim().max(200, 'label must be at most 200 characters').optional(),
+});
+
+export const RecordingPatchSchema = z
+  .object({
+    label: z.string().trim().max(200).nullable().optional(),
+    correctedBpm: BpmSchema.nullable().optional(),
+    beatOffsetSec: z.number().min(0, 'beatOffsetSec must not be negative').max(3600).nullable().optional(),
+  })
+  .strict();
+export type RecordingPatch = z.infer<typeof RecordingPatchSchema>;
+
+export const TempoCandidateSchema = z.object({
+  bpm: z.number(),
+  score: z.number(),
+  relation: z.enum(['primary', 'half', 'double', 'triple', 'third', 'quadruple', 'quarter', 'three-halves', 'two-thirds', 'unrelated']),
+});
+
+export const AnalysisSchema = z.object({
+  bpm: z.number().nullable(),
+  confidence: z.number(),
+  candidates: z.array(TempoCandidateSchema),
+  beats: z.array(z.number()),
+  downbeats: z.array(z.number()),
+  meter: z.string().nullable(),
+  curve: z.array(z.object({ t: z.number(), bpm: z.number() })),
+  startBpm: z.number().nullable(),
+  endBpm: z.number().nullable(),
+  driftPct: z.number().nullable(),
+  stabilityCv: z.number().nullable(),
+  beatCount: z.number(),
+  durationSec: z.number(),
+  analysisMs: z.number(),
+});
+export type AnalysisResult = z.infer<typeof AnalysisSchema>;
+
+export const RecordingSchema = z.object({
+  id: z.string(),
+  songId: z.string(),
+  ownerId: z.string(),
+  kind: RecordingKindSchema,
+  label: z.string().nullable(),
+  originalName: z.string().nullable(),
+  format: z.enum(['mp3', 'wav', 'flac', 'ogg', 'm4a']),
+  sizeBytes: z.number(),
+  durationSec: z.number(),
+  status: z.enum(['queued', 'running', 'done', 'failed']),
+  progress: z.number(),
+  error: z.string().nullable(),
+  /** The tempo to use: the player's correction if any, else the analysis's. */
+  originalBpm: z.number().nullable(),
+  correctedBpm: z.number().nullable(),
+  beatOffsetSec: z.number().nullable(),
+  analysis: AnalysisSchema.nullable(),
+  createdAt: z.string(),
+});
+export type Recording = z.infer<typeof RecordingSchema>;
+export const RecordingListSchema = z.object({ recordings: z.array(RecordingSchema) });
+
+export const PeaksSchema = z.object({ minMax: z.array(z.number()), buckets: z.number(), durationSec: z.number() });
+export type PeaksDto = z.infer<typeof PeaksSchema>;

@@ -5,13 +5,20 @@ import { Account } from './Account';
 import { Verification } from './Verification';
 import { Song } from './Song';
 import { StudioLink } from './StudioLink';
+import { Recording } from './Recording';
+import { Analysis } from './Analysis';
+import { AnalysisJob } from './AnalysisJob';
 
 User.hasMany(Song, { foreignKey: 'ownerId', as: 'songs', onDelete: 'CASCADE' });
 Song.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
 StudioLink.belongsTo(User, { foreignKey: 'studentId', as: 'student' });
 StudioLink.belongsTo(User, { foreignKey: 'teacherId', as: 'teacher' });
+Song.hasMany(Recording, { foreignKey: 'songId', as: 'recordings', onDelete: 'CASCADE' });
+Recording.belongsTo(Song, { foreignKey: 'songId', as: 'song' });
+Recording.hasOne(Analysis, { foreignKey: 'recordingId', as: 'analysis', onDelete: 'CASCADE' });
+Recording.hasOne(AnalysisJob, { foreignKey: 'recordingId', as: 'job', onDelete: 'CASCADE' });
 
 /** better-auth's model names (after our modelName mapping) → the Sequelize model that stores them. */
 export const authModels = { users: User, sessions: Session, accounts: Account, verifications: Verification } as const;
 
-export { User, Session, Account, Verification, Song, StudioLink };
+export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob };

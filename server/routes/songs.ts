@@ -3,6 +3,7 @@ import { handler, parseBody } from '../http';
 import { currentUser, requireUser } from '../middleware/session';
 import { SongInputSchema, SongPatchSchema } from '../../shared/schemas';
 import { createSong, listSongs, songForOwner, songForReader, toSongDto, updateSong } from '../services/songs';
+import { deleteSong } from '../services/recordings';
 
 export const songsRouter = Router();
 songsRouter.use(requireUser);
@@ -28,6 +29,7 @@ songsRouter.patch('/:id', handler(async (req, res) => {
 
 songsRouter.delete('/:id', handler(async (req, res) => {
   const song = await songForOwner(currentUser(req), String(req.params.id));
-  await song.destroy();
+  // Its recordings' rows go with it (cascade), and their stored files too.
+  await deleteSong(song);
   res.status(204).end();
 }));

@@ -1,0 +1,82 @@
+// Is an upload an audio file we accept? Judged by its content (music-metadata sniffs the bytes; the file
+// name and the Content-Type header are never consulted), then decoded once to be sure it holds what its
+// header claims (a truncated file, or a WAV whose header promises more data than it has, is refused).
+import fs from 'node:fs';
+import { fileTypeFromFile } from 'file-type';
+import { parseFile } from 'music-metadata';
+import { decodeFile, NotAudioError } from './decode';
+import { HttpError } from '../http';
+import type { AudioFormat } from '../models/Recording';
+
+export interface CheckedAudio {
+  format: AudioFormat;
+  mimeType: string;
+  durationSec: number;
+}
+
+const MIME: Record<AudioFormat, string> = {
+  mp3: 'audio/mpeg',
+  wav: 'audio/wav',
+  flac: 'audio/flac',
+  ogg: 'audio/ogg',
+  m4a: 'audio/mp4',
+};
+
+function formatOf(container: string | undefined, codec: string | undefined): AudioFormat | null {
+  const c = (container ?? '').toLowerCase();
+  const k = (codec ?? '').toLowerCase();
+  if (c === 'mpeg' && (k.includes('layer 3') || k === 'mp3' || k === '')) return 'mp3';
+  if (c === 'wave') return 'wav';
+  if (c === 'flac') return 'flac';
+  if (c === 'ogg' && (k.includes('vorbis') || k.includes('opus'))) return 'ogg';
+  if ((c.startsWith('m4a') || c.startsWith('mp4') || c.includes('isom') || c.includes('mp42')) && k.includes('aac')) return 'm4a';
+  return null;
+}
+
+const refuse = (message: string, status = 400) => new HttpError(status, 'bad_audio', message, 'file');
+
+export async function checkAudio(file: string, maxDurationSec: number): Promise<CheckedAudio> {
+  const { size } = await fs.promises.stat(file);
+  if (size === 0) throw refuse('the file is empty');
+  // The container is named from the file's first bytes by file-type; music-metadata then parses the file with
+  // that container's parser, chosen through a hard link named with the sniffed extension. (Its own content
+  // sniffing picks no parser for MPEG audio in this set-up, and it chooses by extension when it has one.)
+  const sniffed = await fileTypeFromFile(file).catch(() => undefined);
+  if (!sniffed) throw refuse('this is not an audio file Tactus can read (MP3, WAV, FLAC, OGG or M4A)', 415);
+  const named = `${file}.${sniffed.ext}`;
+  let meta;
+  try {
+    await fs.promises.link(file, named);
+    meta = await parseFile(named, { duration: true, skipCovers: true });
+  } catch {
+    throw refuse(`this ${sniffed.ext.toUpperCase()} file is not audio Tactus can read (MP3, WAV, FLAC, OGG or M4A)`, 415);
+  } finally {
+    await fs.promises.rm(named, { force: true });
+  }
+  const format = formatOf(meta.format.container, meta.format.codec);
+  if (!format) {
+    throw refuse(`${meta.format.container ?? 'this'} files are not supported: use MP3, WAV, FLAC, OGG or M4A`, 415);
+  }
+  const declared = meta.format.duration ?? 0;
+  if (declared > maxDurationSec) {
+    throw refuse(`the recording is ${Math.round(declared / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`, 413);
+  }
+  // Decode at a low rate just to count what is really there.
+  const rate = 8000;
+  let decodedSec: number;
+  try {
+    const { samples } = await decodeFile(file, rate);
+    decodedSec = samples.length / rate;
+  } catch (err) {
+    if (err instanceof NotAudioError) throw refuse('the audio in this file cannot be decoded', 415);
+    throw err;
+  }
+  if (decodedSec < 0.2) throw refuse('the file holds no audio');
+  if (declared > 1 && decodedSec < 0.9 * declared) {
+    throw refuse(`the file is cut short: its header promises ${declared.toFixed(1)} s but it holds ${decodedSec.toFixed(1)} s`);
+  }
+  if (decodedSec > maxDurationSec) {
+    throw refuse(`the recording is ${Math.round(decodedSec / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`, 413);
+  }
+  return { format, mimeType: MIME[format], durationSec: Math.round(decodedSec * 1000) / 1000 };
+}

@@ -1,0 +1,44 @@
+// Runs in a worker thread: fetch the stored file, decode it, run the tempo engine, compute waveform peaks.
+// The heavy work stays off the request thread; the parent stores the result (jobs/runner.ts).
+import fs from 'node:fs';
+import path from 'node:path';
+import crypto from 'node:crypto';
+import { pipeline } from 'node:stream/promises';
+import { parentPort } from 'node:worker_threads';
+import { analyse } from '../../audio/analyse';
+import { waveformPeaks } from '../../audio/peaks';
+import { decodeFile } from '../analysis/decode';
+import { objectStore } from '../storage';
+import { config } from '../config';
+
+export interface WorkRequest {
+  storageKey: string;
+}
+export type WorkMessage =
+  | { type: 'progress'; value: number }
+  | { type: 'done'; result: ReturnType<typeof analyse>; peaks: ReturnType<typeof waveformPeaks>; engineMs: number }
+  | { type: 'failed'; reason: string };
+
+const post = (m: WorkMessage) => parentPort!.postMessage(m);
+/** Test knob only (the interruption tests need a job that is still running when they kill the process). */
+const testDelayMs = Number(process.env.TACTUS_ANALYSIS_TEST_DELAY_MS ?? 0);
+
+parentPort!.on('message', async ({ storageKey }: WorkRequest) => {
+  const temp = path.join(config.storage.spoolDir, `.analysis-${crypto.randomBytes(8).toString('hex')}`);
+  try {
+    fs.mkdirSync(config.storage.spoolDir, { recursive: true });
+    await pipeline(await objectStore().read(storageKey), fs.createWriteStream(temp));
+    post({ type: 'progress', value: 0.2 });
+    const { samples, sampleRate } = await decodeFile(temp);
+    post({ type: 'progress', value: 0.5 });
+    if (testDelayMs) await new Promise((r) => setTimeout(r, testDelayMs));
+    const started = performance.now();
+    const result = analyse(samples, sampleRate);
+    const peaks = waveformPeaks(samples, sampleRate);
+    post({ type: 'done', result, peaks, engineMs: Math.round(performance.now() - started) });
+  } catch (err) {
+    post({ type: 'failed', reason: `analysis failed: ${(err as Error).message}` });
+  } finally {
+    fs.rmSync(temp, { force: true });
+  }
+});

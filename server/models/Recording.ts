@@ -1,0 +1,58 @@
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
+import { sequelize } from '../db';
+
+export type RecordingKind = 'reference' | 'take';
+export type AudioFormat = 'mp3' | 'wav' | 'flac' | 'ogg' | 'm4a';
+export type AnalysisStatus = 'queued' | 'running' | 'done' | 'failed';
+
+/** An uploaded audio file: someone else's recording (reference) or the player's own (take). */
+export class Recording extends Model<InferAttributes<Recording>, InferCreationAttributes<Recording>> {
+  declare id: CreationOptional<string>;
+  declare songId: string;
+  declare ownerId: string;
+  declare kind: RecordingKind;
+  declare label: string | null;
+  declare originalName: string | null;
+  declare storageKey: string;
+  declare format: AudioFormat;
+  declare mimeType: string;
+  declare sizeBytes: number;
+  declare durationSec: number;
+  declare status: CreationOptional<AnalysisStatus>;
+  declare progress: CreationOptional<number>;
+  declare error: CreationOptional<string | null>;
+  declare correctedBpm: CreationOptional<number | null>;
+  declare beatOffsetSec: CreationOptional<number | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+Recording.init(
+  {
+    id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    songId: { type: DataTypes.UUID, allowNull: false },
+    ownerId: { type: DataTypes.STRING(64), allowNull: false },
+    kind: { type: DataTypes.ENUM('reference', 'take'), allowNull: false },
+    label: { type: DataTypes.STRING(200), allowNull: true },
+    originalName: { type: DataTypes.STRING(255), allowNull: true },
+    storageKey: { type: DataTypes.STRING(100).BINARY, allowNull: false, unique: true },
+    format: { type: DataTypes.ENUM('mp3', 'wav', 'flac', 'ogg', 'm4a'), allowNull: false },
+    mimeType: { type: DataTypes.STRING(64), allowNull: false },
+    sizeBytes: { type: DataTypes.BIGINT, allowNull: false, get(this: Recording) { return Number(this.getDataValue('sizeBytes')); } },
+    durationSec: { type: DataTypes.DOUBLE, allowNull: false },
+    status: { type: DataTypes.ENUM('queued', 'running', 'done', 'failed'), allowNull: false, defaultValue: 'queued' },
+    progress: { type: DataTypes.FLOAT, allowNull: false, defaultValue: 0 },
+    error: { type: DataTypes.TEXT, allowNull: true },
+    correctedBpm: {
+      type: DataTypes.DECIMAL(6, 2),
+      allowNull: true,
+      get(this: Recording) {
+        const raw = this.getDataValue('correctedBpm') as unknown as string | null;
+        return raw === null || raw === undefined ? null : Number(raw);
+      },
+    },
+    beatOffsetSec: { type: DataTypes.DOUBLE, allowNull: true },
+    createdAt: DataTypes.DATE(3),
+    updatedAt: DataTypes.DATE(3),
+  },
+  { sequelize, tableName: 'recordings', modelName: 'Recording' },
+);

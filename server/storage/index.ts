@@ -1,0 +1,26 @@
+// Where recordings' files live: one small interface, two drivers (local disk, S3-compatible object storage).
+import type { Readable } from 'node:stream';
+import { config } from '../config';
+import { DiskStore } from './disk';
+import { S3Store } from './s3';
+
+export interface ByteRange {
+  start: number;
+  /** Inclusive. */
+  end: number;
+}
+
+export interface ObjectStore {
+  /** Streams `source` in under `key`; a failure part-way leaves nothing under that key. */
+  put(key: string, source: Readable, contentType: string): Promise<void>;
+  read(key: string, range?: ByteRange): Promise<Readable>;
+  remove(key: string): Promise<void>;
+  exists(key: string): Promise<boolean>;
+}
+
+let store: ObjectStore | null = null;
+
+export function objectStore(): ObjectStore {
+  if (!store) store = config.storage.driver === 's3' ? new S3Store(config.storage.s3) : new DiskStore(config.storage.dir);
+  return store;
+}

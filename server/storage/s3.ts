@@ -1,0 +1,65 @@
+// S3-compatible object storage through @aws-sdk/client-s3. A multipart upload either completes into the
+// object or is aborted, so a failed upload leaves no object under the key.
+import { Readable } from 'node:stream';
+import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, S3Client, CreateBucketCommand, HeadBucketCommand } from '@aws-sdk/client-s3';
+import { Upload } from '@aws-sdk/lib-storage';
+import type { ByteRange, ObjectStore } from './index';
+
+export interface S3Settings {
+  endpoint: string;
+  bucket: string;
+  region: string;
+  accessKeyId: string;
+  secretAccessKey: string;
+}
+
+export class S3Store implements ObjectStore {
+  private readonly client: S3Client;
+  private bucketReady: Promise<void> | null = null;
+
+  constructor(private readonly s: S3Settings) {
+    this.client = new S3Client({
+      endpoint: s.endpoint,
+      region: s.region,
+      forcePathStyle: true,
+      credentials: { accessKeyId: s.accessKeyId, secretAccessKey: s.secretAccessKey },
+    });
+  }
+
+  /** Creates the bucket on first use if it is missing (a local fake starts empty). */
+  private ensureBucket() {
+    this.bucketReady ??= this.client
+      .send(new HeadBucketCommand({ Bucket: this.s.bucket }))
+      .then(() => undefined)
+      .catch(async () => {
+        await this.client.send(new CreateBucketCommand({ Bucket: this.s.bucket }));
+      });
+    return this.bucketReady;
+  }
+
+  async put(key: string, source: Readable, contentType: string): Promise<void> {
+    await this.ensureBucket();
+    const upload = new Upload({ client: this.client, params: { Bucket: this.s.bucket, Key: key, Body: source, ContentType: contentType }, leavePartsOnError: false });
+    await upload.done();
+  }
+
+  async read(key: string, range?: ByteRange): Promise<Readable> {
+    const res = await this.client.send(
+      new GetObjectCommand({ Bucket: this.s.bucket, Key: key, Range: range ? `bytes=${range.start}-${range.end}` : undefined }),
+    );
+    return res.Body as Readable;
+  }
+
+  async remove(key: string): Promise<void> {
+    await this.client.send(new DeleteObjectCommand({ Bucket: this.s.bucket, Key: key }));
+  }
+
+  async exists(key: string): Promise<boolean> {
+    try {
+      await this.client.send(new HeadObjectCommand({ Bucket: this.s.bucket, Key: key }));
+      return true;
+    } catch {
+      return false;
+    }
+  }
+}
