@@ -57,6 +57,7 @@ export async function checkAudio(file: string, maxDurationSec: number): Promise<
   if (!format) {
     throw refuse(`${meta.format.container ?? 'this'} files are not supported: use MP3, WAV, FLAC, OGG or M4A`, 415);
   }
+  if (format === 'wav') await checkWavData(file, size);
   const declared = meta.format.duration ?? 0;
   if (declared > maxDurationSec) {
     throw refuse(`the recording is ${Math.round(declared / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`, 413);
@@ -79,4 +80,29 @@ export async function checkAudio(file: string, maxDurationSec: number): Promise<
     throw refuse(`the recording is ${Math.round(decodedSec / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`, 413);
   }
   return { format, mimeType: MIME[format], durationSec: Math.round(decodedSec * 1000) / 1000 };
+}
+
+/** A RIFF/WAVE file's data chunk must hold the bytes its header promises. */
+async function checkWavData(file: string, size: number): Promise<void> {
+  const fd = await fs.promises.open(file, 'r');
+  try {
+    const head = Buffer.alloc(Math.min(size, 1 << 16));
+    await fd.read(head, 0, head.length, 0);
+    let at = 12; // after "RIFF", size, "WAVE"
+    while (at + 8 <= head.length) {
+      const id = head.toString('latin1', at, at + 4);
+      const length = head.readUInt32LE(at + 4);
+      if (id === 'data') {
+        const available = size - (at + 8);
+        // 0xFFFFFFFF (and 0) mark a stream written without knowing its length: nothing is promised.
+        if (length !== 0xffffffff && length !== 0 && length > available) {
+          throw refuse(`the file is cut short: its header promises ${length} bytes of audio but it holds ${available}`);
+        }
+        return;
+      }
+      at += 8 + length + (length % 2);
+    }
+  } finally {
+    await fd.close();
+  }
 }

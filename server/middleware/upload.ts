@@ -45,6 +45,8 @@ const spoolEngine: multer.StorageEngine = {
 const parser = multer({
   storage: spoolEngine,
   limits: { fileSize: config.uploads.maxBytes, files: 1, fields: 8, fieldSize: 4096 },
+  // Keep the name as sent, so one with folders in it can be refused instead of silently shortened.
+  preservePath: true,
 }).single('file');
 
 const megabytes = (n: number) => `${Math.round(n / (1024 * 1024))} MB`;
@@ -61,9 +63,9 @@ export function receiveUpload(req: Request, res: Response, next: NextFunction) {
         return next(new HttpError(413, 'too_large', `the file is larger than the ${megabytes(config.uploads.maxBytes)} limit`, 'file'));
       }
       if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(new HttpError(400, 'invalid_body', `send one file, in the field "file" (got "${err.field}")`, 'file'));
-      return next(new HttpError(400, 'invalid_body', `the upload could not be read: ${err.message}`, err.field));
+      return next(new HttpError(400, 'invalid_body', `the upload could not be read: ${err.message}`, err.field ?? 'file'));
     }
-    next(new HttpError(400, 'invalid_body', `the upload could not be read: ${(err as Error).message}`));
+    next(new HttpError(400, 'invalid_body', `the upload could not be read: ${(err as Error).message}`, 'file'));
   });
 }
 

@@ -11,7 +11,7 @@ import { analysisRunner } from '../jobs/runner';
 import { retry } from '../jobs/queue';
 import { songForOwner, songForReader } from '../services/songs';
 import {
-  cleanFileName,
+  checkFileName,
   deleteRecordings,
   listRecordings,
   patchRecording,
@@ -44,6 +44,7 @@ songRecordingsRouter.post(
       const fields = parseBody(RecordingUploadFieldsSchema, req.body);
       const file = spooledFile(req);
       if (!file) throw new HttpError(400, 'invalid_body', 'file: attach the recording in the field "file"', 'file');
+      const originalName = checkFileName(req.file?.originalname);
       const audio = await checkAudio(file.path, config.uploads.maxDurationSec);
       const song = await songForOwner(currentUser(req), String(req.params.songId));
       const recording = await storeRecording({
@@ -51,7 +52,7 @@ songRecordingsRouter.post(
         ownerId: currentUser(req).id,
         kind: fields.kind,
         label: fields.label || null,
-        originalName: cleanFileName(req.file?.originalname),
+        originalName,
         spoolFile: file.path,
         sizeBytes: file.size,
         audio,

@@ -3,19 +3,22 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import { sequelize } from '../db';
 import { Analysis, Recording, Song, StudioLink } from '../models';
-import { notFound } from '../http';
+import { HttpError, notFound } from '../http';
 import { objectStore } from '../storage';
 import { enqueue } from '../jobs/queue';
 import type { CheckedAudio } from '../analysis/audio-check';
 import type { Me, Recording as RecordingDto, RecordingKind, RecordingPatch } from '../../shared/schemas';
 
-/** A display name from an uploaded file name: no folders, no control characters, at most 255 characters. */
-export function cleanFileName(name: string | undefined): string | null {
+/**
+ * The uploaded file name, kept only to show it back. Browsers send a bare name; one with folders or control
+ * characters is refused rather than guessed at (it is never used to store the file either way).
+ */
+export function checkFileName(name: string | undefined): string | null {
   if (!name) return null;
-  const base = name.split(/[\\/]/).pop() ?? '';
   // eslint-disable-next-line no-control-regex
-  const clean = base.replace(/[\u0000-\u001f\u007f]/g, '').replace(/^\.+/, '').trim().slice(0, 255);
-  return clean || null;
+  if (/[\u0000-\u001f\u007f]/.test(name)) throw new HttpError(400, 'invalid_body', 'file: the file name contains control characters', 'file');
+  if (/[\\/]/.test(name) || name.split(/[\\/]/).includes('..')) throw new HttpError(400, 'invalid_body', 'file: send the file name without folders', 'file');
+  return name.trim().slice(0, 255) || null;
 }
 
 export async function storeRecording(opts: {

@@ -6,17 +6,24 @@ import type { CaughtMail, Role } from '../../shared/schemas';
 
 export const baseUrl = process.env.TACTUS_TEST_URL!;
 
+/** The two test servers: files on local disk, or in the fake S3 (each with its own database). */
+export const servers = {
+  disk: { name: 'disk', url: process.env.TACTUS_TEST_URL!, db: 'tactus_test', spool: process.env.TACTUS_TEST_DISK_SPOOL! },
+  s3: { name: 's3', url: process.env.TACTUS_TEST_S3_URL!, db: 'tactus_test_s3', spool: process.env.TACTUS_TEST_S3_SPOOL! },
+};
+export type TestServer = (typeof servers)['disk'];
+
 /** better-auth refuses cookie-bearing POSTs without an Origin, as a browser would send it. */
-export function agent() {
-  return request.agent(baseUrl).set('Origin', baseUrl);
+export function agent(url = baseUrl) {
+  return request.agent(url).set('Origin', url);
 }
 
 export const uniqueEmail = (label: string) => `${label}-${crypto.randomBytes(4).toString('hex')}@players.example`;
 
-export async function waitForMail(to: string, subject: RegExp, timeoutMs = 10_000): Promise<CaughtMail> {
+export async function waitForMail(to: string, subject: RegExp, timeoutMs = 10_000, url = baseUrl): Promise<CaughtMail> {
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
-    const res = await request(baseUrl).get('/api/dev/mail').query({ to });
+    const res = await request(url).get('/api/dev/mail').query({ to });
     const mail = (res.body.mails as CaughtMail[]).find((m) => subject.test(m.subject));
     if (mail) return mail;
     await new Promise((r) => setTimeout(r, 150));
@@ -25,38 +32,43 @@ export async function waitForMail(to: string, subject: RegExp, timeoutMs = 10_00
 }
 
 /** The path and query of the first link in a caught mail that points at our server. */
-export function linkPath(mail: CaughtMail): string {
-  const link = mail.links.find((l) => l.startsWith(baseUrl));
-  if (!link) throw new Error(`mail "${mail.subject}" has no link to ${baseUrl}`);
-  return link.slice(baseUrl.length);
+export function linkPath(mail: CaughtMail, url = baseUrl): string {
+  const link = mail.links.find((l) => l.startsWith(url));
+  if (!link) throw new Error(`mail "${mail.subject}" has no link to ${url}`);
+  return link.slice(url.length);
 }
 
 export const PASSWORD = 'metronome-at-96';
 
 /** Signs up, confirms through the caught mail and signs in; returns the signed-in agent. */
-export async function signedInUser(label: string, role: Role = 'player') {
+export async function signedInUser(label: string, role: Role = 'player', server: TestServer = servers.disk) {
   const email = uniqueEmail(label);
-  const a = agent();
+  const a = agent(server.url);
   await a.post('/api/auth/sign-up/email').send({ name: `Test ${label}`, email, password: PASSWORD }).expect(200);
-  const mail = await waitForMail(email, /confirm/i);
-  await a.get(linkPath(mail)).expect(302);
-  if (role !== 'player') await setRoleDirectly(email, role);
+  const mail = await waitForMail(email, /confirm/i, 10_000, server.url);
+  await a.get(linkPath(mail, server.url)).expect(302);
+  if (role !== 'player') await setRoleDirectly(email, role, server.db);
   await a.post('/api/auth/sign-in/email').send({ email, password: PASSWORD }).expect(200);
   const me = await a.get('/api/me').expect(200);
   return { agent: a, email, id: me.body.id as string };
 }
 
 /** The first admin has to come from somewhere: tests write it into the database as an operator would. */
-export async function setRoleDirectly(email: string, role: Role) {
+export async function setRoleDirectly(email: string, role: Role, database = 'tactus_test') {
+  await query(database, 'UPDATE users SET role = ? WHERE email = ?', [role, email]);
+}
+
+/** One query on a test database, for checks the API does not expose (rows left behind, job counts). */
+export async function query<T = Record<string, unknown>>(database: string, sql: string, params: unknown[] = []): Promise<T[]> {
   const conn = await mariadb.createConnection({
     host: '127.0.0.1',
     port: Number(process.env.TACTUS_DB_PORT ?? 3406),
     user: process.env.TACTUS_DB_USER ?? 'tactus',
     password: process.env.TACTUS_DB_PASSWORD ?? 'tactus-local',
-    database: 'tactus_test',
+    database,
   });
   try {
-    await conn.query('UPDATE users SET role = ? WHERE email = ?', [role, email]);
+    return (await conn.query(sql, params)) as T[];
   } finally {
     await conn.end();
   }
