@@ -1,7 +1,7 @@
 // SWR hooks: how screens read server data. Mutations revalidate the keys they change.
 import useSWR, { mutate } from 'swr';
 import { ApiRequestError, apiFetch, fetcher } from './api';
-import type { Me, Song, SongInput, SongPatch, Student, UserSummary, Role } from '../shared/schemas';
+import type { Me, PeaksDto, Recording, RecordingPatch, Song, SongInput, SongPatch, Student, UserSummary, Role } from '../shared/schemas';
 
 export function useMe() {
   const { data, error, isLoading } = useSWR<Me>('/api/me', fetcher, { shouldRetryOnError: false });
@@ -48,3 +48,36 @@ export async function changeRole(userId: string, role: Role) {
 
 /** After sign-in or sign-out every cached answer belongs to someone else: drop them all. */
 export const clearCache = () => mutate(() => true, undefined, { revalidate: true });
+
+export function useSong(id: string) {
+  const { data, error, isLoading } = useSWR<Song>(`/api/songs/${id}`, fetcher);
+  return { song: data, error, isLoading };
+}
+
+export function useRecordings(songId: string) {
+  const key = `/api/songs/${songId}/recordings`;
+  const { data, error, isLoading } = useSWR<{ recordings: Recording[] }>(key, fetcher, {
+    // While an analysis is under way, look again every second.
+    refreshInterval: (d) => (d?.recordings.some((r) => r.status === 'queued' || r.status === 'running') ? 1000 : 0),
+  });
+  return { recordings: data?.recordings, error, isLoading };
+}
+
+export function useRecording(id: string) {
+  const { data, error, isLoading } = useSWR<Recording>(`/api/recordings/${id}`, fetcher, {
+    refreshInterval: (d) => (d && (d.status === 'queued' || d.status === 'running') ? 1000 : 0),
+  });
+  return { recording: data, error, isLoading };
+}
+
+export function usePeaks(id: string, ready: boolean) {
+  const { data } = useSWR<PeaksDto>(ready ? `/api/recordings/${id}/peaks` : null, fetcher);
+  return data;
+}
+
+export async function correctRecording(id: string, patch: RecordingPatch) {
+  const r = await apiFetch<Recording>(`/api/recordings/${id}`, { method: 'PATCH', body: patch });
+  await mutate(`/api/recordings/${id}`, r, { revalidate: false });
+  await mutate(`/api/songs/${r.songId}/recordings`);
+  return r;
+}

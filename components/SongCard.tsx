@@ -1,12 +1,15 @@
 import React from 'react';
-import { View } from 'react-native';
+import { Pressable, View } from 'react-native';
+import { useRouter } from 'expo-router';
 import { Body, Card, Small } from './ui';
 import { TempoLabel } from './TempoLabel';
 import { space } from './theme';
 import type { Song } from '../shared/schemas';
 
 export function SongCard({ song }: { song: Song }) {
+  const router = useRouter();
   return (
+    <Pressable role="link" accessibilityLabel={`Open ${song.title}`} onPress={() => router.navigate(`/songs/${song.id}` as never)}>
     <Card testID="song-card">
       <View style={{ flexDirection: 'row', justifyContent: 'space-between', flexWrap: 'wrap', gap: space.sm }}>
         <View style={{ flexShrink: 1 }}>
@@ -20,5 +23,6 @@ export function SongCard({ song }: { song: Song }) {
         <TempoLabel caption="Chosen" bpm={song.chosenBpm} accent />
       </View>
     </Card>
+    </Pressable>
   );
 }

@@ -53,6 +53,8 @@ export function Button({
   disabled?: boolean;
   testID?: string;
 }) {
+  // Quiet buttons are links in running text (back, undo): as wide as their words, at the start of the line.
+  const fit = kind === 'quiet' ? ({ alignSelf: 'flex-start', paddingHorizontal: space.sm } as const) : null;
   const palette = buttonColors[kind];
   return (
     <Pressable
@@ -63,6 +65,7 @@ export function Button({
       disabled={disabled || busy}
       style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [
         styles.button,
+        fit,
         { backgroundColor: palette.bg, borderColor: palette.border },
         (pressed || hovered) && { backgroundColor: palette.active },
         (disabled || busy) && { opacity: 0.55 },

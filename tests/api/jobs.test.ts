@@ -101,7 +101,7 @@ test('a server killed while a job runs: the next server finishes it, with one re
   const second = await startServer('second');
   // The session lives in the database, so the same cookie works against the new process.
   const b = agent(second.url);
-  b.jar.setCookies((a.jar.getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false }) as unknown[]).map(String));
+  b.jar.setCookies((a.jar.getCookies({ domain: "127.0.0.1", path: "/", secure: false, script: false }) as unknown as unknown[]).map(String));
   await until(async () => (await statusOf(b, id)) === 'done', 40_000, 'the job to finish after the restart');
   const [job] = await query<{ status: string; attempts: number; finishedBy: string }>(DB, 'SELECT status, attempts, finishedBy FROM analysis_jobs WHERE recordingId = ?', [id]);
   expect(job!.status).toBe('done');

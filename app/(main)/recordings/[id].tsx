@@ -1,0 +1,84 @@
+// A recording: its analysis as it runs, then the tempo with its confidence and related tempos, the beat grid
+// over the waveform, and the player's correction.
+import React from 'react';
+import { useLocalSearchParams, useRouter } from 'expo-router';
+import { Text, View } from 'react-native';
+import { Body, Button, Card, Heading, Loading, Notice, Screen, Small } from '../../../components/ui';
+import { Waveform } from '../../../components/Waveform';
+import { ProgressBar } from '../../../components/ProgressBar';
+import { TempoCorrection } from '../../../components/TempoCorrection';
+import { formatBpm } from '../../../components/TempoLabel';
+import { formatDuration } from '../../../components/RecordingRow';
+import { colors, space, type } from '../../../components/theme';
+import { correctRecording, usePeaks, useRecording } from '../../../client/hooks';
+import { apiFetch } from '../../../client/api';
+import { mutate } from 'swr';
+
+export default function RecordingScreen() {
+  const { id } = useLocalSearchParams<{ id: string }>();
+  const router = useRouter();
+  const { recording: r, error } = useRecording(id);
+  const peaks = usePeaks(id, r?.status === 'done');
+  if (error) return <Screen><Notice tone="error">This recording could not be opened: {error.message}</Notice></Screen>;
+  if (!r) return <Loading />;
+  const a = r.analysis;
+  const bpm = r.originalBpm;
+
+  return (
+    <Screen testID="recording">
+      <Button label="‹ Song" kind="quiet" onPress={() => router.navigate(`/songs/${r.songId}` as never)} />
+      <View style={{ gap: space.xs }}>
+        <Heading>{r.label || r.originalName || 'Recording'}</Heading>
+        <Small>
+          {r.kind === 'take' ? 'Your take' : 'Reference'} · {r.format.toUpperCase()} · {formatDuration(r.durationSec)}
+        </Small>
+      </View>
+
+      {r.status === 'queued' || r.status === 'running' ? (
+        <Card testID="analysis-status">
+          <Body>{r.status === 'queued' ? 'Waiting for a free analyser…' : 'Listening for the beat…'}</Body>
+          <ProgressBar value={r.progress} label="Analysis progress" />
+        </Card>
+      ) : null}
+
+      {r.status === 'failed' ? (
+        <Card>
+          <Notice tone="error">{r.error ?? 'The analysis failed.'}</Notice>
+          <Button label="Try the analysis again" onPress={async () => {
+            await apiFetch(`/api/recordings/${r.id}/retry`, { method: 'POST', body: {} });
+            await mutate(`/api/recordings/${r.id}`);
+          }} />
+        </Card>
+      ) : null}
+
+      {r.status === 'done' && a ? (
+        <>
+          <Card testID="tempo-result">
+            <Small>{r.correctedBpm !== null ? 'Tempo (your correction)' : 'Detected tempo'}</Small>
+            <Text style={[type.tempo, { color: colors.amber }]} testID="detected-bpm">
+              {bpm === null ? 'No steady beat' : `${formatBpm(Math.round(bpm * 10) / 10)}`}
+              {bpm === null ? null : <Text style={[type.h3, { color: colors.muted }]}> BPM</Text>}
+            </Text>
+            <Small>
+              Confidence {Math.round(a.confidence * 100)} % · {a.meter ?? 'meter unclear'} · {a.beatCount} beats
+              {a.startBpm !== null && a.endBpm !== null ? ` · starts ${formatBpm(Math.round(a.startBpm))}, ends ${formatBpm(Math.round(a.endBpm))}` : ''}
+            </Small>
+            {a.confidence < 0.4 ? <Notice tone="caution">Tactus is not sure about this one: check it by tapping along.</Notice> : null}
+          </Card>
+          {peaks ? (
+            <Card>
+              <Waveform minMax={peaks.minMax} durationSec={peaks.durationSec} beats={a.beats} downbeats={a.downbeats} testID="waveform" />
+              <Small>Thin lines are beats, amber lines bar starts.</Small>
+            </Card>
+          ) : null}
+          {bpm !== null ? (
+            <Card>
+              <Heading level={3}>Correct the tempo</Heading>
+              <TempoCorrection analysis={a} current={bpm} onChoose={(value) => correctRecording(r.id, { correctedBpm: value })} />
+            </Card>
+          ) : null}
+        </>
+      ) : null}
+    </Screen>
+  );
+}

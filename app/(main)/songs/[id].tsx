@@ -1,0 +1,43 @@
+// A song: its tempos, its recordings (references and takes) and adding a new one.
+import React from 'react';
+import { useLocalSearchParams, useRouter } from 'expo-router';
+import { View } from 'react-native';
+import { Body, Button, EmptyState, Heading, Loading, Notice, Screen, Small } from '../../../components/ui';
+import { TempoLabel } from '../../../components/TempoLabel';
+import { UploadPanel } from '../../../components/UploadPanel';
+import { RecordingRow } from '../../../components/RecordingRow';
+import { space } from '../../../components/theme';
+import { useRecordings, useSong } from '../../../client/hooks';
+
+export default function SongScreen() {
+  const { id } = useLocalSearchParams<{ id: string }>();
+  const router = useRouter();
+  const { song, error } = useSong(id);
+  const { recordings } = useRecordings(id);
+  if (error) return <Screen><Notice tone="error">This song could not be opened: {error.message}</Notice></Screen>;
+  if (!song) return <Loading />;
+  return (
+    <Screen testID="song">
+      <Button label="‹ Library" kind="quiet" onPress={() => router.navigate('/')} />
+      <View style={{ gap: space.xs }}>
+        <Heading>{song.title}</Heading>
+        <Small>{[song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
+      </View>
+      <View style={{ flexDirection: 'row', gap: space.lg, flexWrap: 'wrap' }}>
+        <TempoLabel caption="Working" bpm={song.workingBpm} />
+        <TempoLabel caption="Goal" bpm={song.goalBpm} />
+        <TempoLabel caption="Chosen" bpm={song.chosenBpm} accent />
+      </View>
+      <Heading level={2}>Recordings</Heading>
+      {recordings && recordings.length === 0 ? (
+        <EmptyState title="No recordings yet">
+          Add a reference you are learning from, or a take of your own. Tactus finds its tempo and beats, so you can hear it at
+          other tempos with a click.
+        </EmptyState>
+      ) : null}
+      {recordings?.map((r) => <RecordingRow key={r.id} recording={r} onOpen={() => router.navigate(`/recordings/${r.id}` as never)} />)}
+      <UploadPanel songId={song.id} onUploaded={(r) => router.navigate(`/recordings/${r.id}` as never)} />
+      {song.notes ? <Body muted>{song.notes}</Body> : null}
+    </Screen>
+  );
+}
