@@ -4,7 +4,7 @@
 import fs from 'node:fs';
 import { fileTypeFromFile } from 'file-type';
 import { parseFile } from 'music-metadata';
-import { decodeFile, NotAudioError } from './decode';
+import { decodedSeconds, NotAudioError } from './decode';
 import { HttpError } from '../http';
 import type { AudioFormat } from '../models/Recording';
 
@@ -62,12 +62,10 @@ export async function checkAudio(file: string, maxDurationSec: number): Promise<
   if (declared > maxDurationSec) {
     throw refuse(`the recording is ${Math.round(declared / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`, 413);
   }
-  // Decode at a low rate just to count what is really there.
-  const rate = 8000;
+  // Decode once, counting what is really there without keeping it (memory stays flat).
   let decodedSec: number;
   try {
-    const { samples } = await decodeFile(file, rate);
-    decodedSec = samples.length / rate;
+    decodedSec = await decodedSeconds(file);
   } catch (err) {
     if (err instanceof NotAudioError) throw refuse('the audio in this file cannot be decoded', 415);
     throw err;

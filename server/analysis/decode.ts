@@ -12,6 +12,15 @@ export interface Decoded {
 }
 
 export function decodeFile(file: string, sampleRate: number = ANALYSIS_RATE): Promise<Decoded> {
+  return runDecoder(file, sampleRate, true).then(({ samples }) => ({ samples: samples!, sampleRate }));
+}
+
+/** How many seconds of audio a file really holds, decoded and counted without keeping the samples. */
+export function decodedSeconds(file: string, sampleRate = 8000): Promise<number> {
+  return runDecoder(file, sampleRate, false).then(({ frames }) => frames / sampleRate);
+}
+
+function runDecoder(file: string, sampleRate: number, keep: boolean): Promise<{ samples: Float32Array | null; frames: number }> {
   return new Promise((resolve, reject) => {
     const ff = spawn(
       process.env.TACTUS_FFMPEG ?? 'ffmpeg',
@@ -22,7 +31,7 @@ export function decodeFile(file: string, sampleRate: number = ANALYSIS_RATE): Pr
     let bytes = 0;
     let stderr = '';
     ff.stdout.on('data', (c: Buffer) => {
-      chunks.push(c);
+      if (keep) chunks.push(c);
       bytes += c.length;
     });
     ff.stderr.on('data', (c: Buffer) => {
@@ -35,6 +44,10 @@ export function decodeFile(file: string, sampleRate: number = ANALYSIS_RATE): Pr
         reject(new NotAudioError(`not a readable audio file (${reason.trim()})`));
         return;
       }
+      if (!keep) {
+        resolve({ samples: null, frames: Math.floor(bytes / 4) });
+        return;
+      }
       // Copy into an aligned buffer of whole samples.
       const samples = new Float32Array(Math.floor(bytes / 4));
       const view = new Uint8Array(samples.buffer);
@@ -44,7 +57,7 @@ export function decodeFile(file: string, sampleRate: number = ANALYSIS_RATE): Pr
         view.set(c.subarray(0, n), at);
         at += n;
       }
-      resolve({ samples, sampleRate });
+      resolve({ samples, frames: samples.length });
     });
   });
 }

@@ -160,6 +160,20 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
     expect(undone.body.originalBpm).toBeCloseTo(150, 0);
   });
 
+  test('a failed analysis can be retried, and then completes', async () => {
+    const id = (await upload(clip('waltz-150.wav'), 'w.wav').expect(201)).body.id;
+    await waitForAnalysis(owner.agent, id);
+    await owner.agent.post(`/api/recordings/${id}/retry`).expect(409);
+    // Fail it as a worker would have (the engine does not fail on a valid file).
+    await query(server.db, "UPDATE analysis_jobs SET status = 'failed', lastError = 'test' WHERE recordingId = ?", [id]);
+    await query(server.db, "UPDATE recordings SET status = 'failed', error = 'analysis failed: test' WHERE id = ?", [id]);
+    expect((await owner.agent.get(`/api/recordings/${id}`)).body).toMatchObject({ status: 'failed', error: 'analysis failed: test' });
+    await owner.agent.post(`/api/recordings/${id}/retry`).expect(202);
+    const again = await waitForAnalysis(owner.agent, id);
+    expect(again.status).toBe('done');
+    expect(again.error).toBeNull();
+  });
+
   test('deleting a recording removes its file and rows', async () => {
     const before = await storedFiles(server);
     const id = (await upload(clip('waltz-150.ogg'), 'w.ogg').expect(201)).body.id;
