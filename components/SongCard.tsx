@@ -2,7 +2,7 @@ import React from 'react';
 import { Pressable, View } from 'react-native';
 import { useRouter } from 'expo-router';
 import { Body, Card, Small } from './ui';
-import { TempoLabel } from './TempoLabel';
+import { SongTempos } from './TempoLabel';
 import { space } from './theme';
 import type { Song } from '../shared/schemas';
 
@@ -17,11 +17,7 @@ export function SongCard({ song }: { song: Song }) {
           <Small>{[song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
         </View>
       </View>
-      <View style={{ flexDirection: 'row', gap: space.lg, flexWrap: 'wrap' }}>
-        <TempoLabel caption="Working" bpm={song.workingBpm} />
-        <TempoLabel caption="Goal" bpm={song.goalBpm} />
-        <TempoLabel caption="Chosen" bpm={song.chosenBpm} accent />
-      </View>
+      <SongTempos working={song.workingBpm} goal={song.goalBpm} chosen={song.chosenBpm} />
     </Card>
     </Pressable>
   );

@@ -15,5 +15,16 @@ export function TempoLabel({ caption, bpm, accent }: { caption: string; bpm: num
   );
 }
 
+/** A song's three tempos side by side. */
+export function SongTempos({ working, goal, chosen }: { working: number | null; goal: number | null; chosen: number | null }) {
+  return (
+    <View style={{ flexDirection: 'row', gap: 16, flexWrap: 'wrap' }}>
+      <TempoLabel caption="Working" bpm={working} />
+      <TempoLabel caption="Goal" bpm={goal} />
+      <TempoLabel caption="Chosen" bpm={chosen} accent />
+    </View>
+  );
+}
+
 /** Whole tempos without decimals, others to one decimal place. */
 export const formatBpm = (bpm: number) => (Number.isInteger(bpm) ? String(bpm) : bpm.toFixed(1));

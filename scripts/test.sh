@@ -14,4 +14,10 @@ log "building the web app for the browser tests"
 
 log "set-up took $(( $(date +%s) - started )) s; running the tests"
 cd "$ROOT"
-npx jest --ci "$@"
+results="$TACTUS_STATE/jest-results.json"
+status=0
+npx jest --ci --json --outputFile="$results" "$@" || status=$?
+# One plain closing line that any reader of the log understands.
+node -e 'const r = require(process.argv[1]); console.log(`tests: ${r.numPassedTests} passed, ${r.numFailedTests} failed, ${r.numPendingTests} skipped`)' "$results" || true
+log "npm test took $(( $(date +%s) - started )) s"
+exit $status

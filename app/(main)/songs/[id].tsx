@@ -3,7 +3,7 @@ import React from 'react';
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { Body, Button, EmptyState, Heading, Loading, Notice, Screen, Small } from '../../../components/ui';
-import { TempoLabel } from '../../../components/TempoLabel';
+import { SongTempos } from '../../../components/TempoLabel';
 import { UploadPanel } from '../../../components/UploadPanel';
 import { RecordingRow } from '../../../components/RecordingRow';
 import { space } from '../../../components/theme';
@@ -23,11 +23,7 @@ export default function SongScreen() {
         <Heading>{song.title}</Heading>
         <Small>{[song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
       </View>
-      <View style={{ flexDirection: 'row', gap: space.lg, flexWrap: 'wrap' }}>
-        <TempoLabel caption="Working" bpm={song.workingBpm} />
-        <TempoLabel caption="Goal" bpm={song.goalBpm} />
-        <TempoLabel caption="Chosen" bpm={song.chosenBpm} accent />
-      </View>
+      <SongTempos working={song.workingBpm} goal={song.goalBpm} chosen={song.chosenBpm} />
       <Heading level={2}>Recordings</Heading>
       {recordings && recordings.length === 0 ? (
         <EmptyState title="No recordings yet">
