@@ -3,6 +3,8 @@
 const node = {
   testEnvironment: 'node',
   transform: { '^.+\\.[jt]sx?$': 'babel-jest' },
+  // soundtouchjs is published as an ES module only: let babel turn it into CommonJS for jest.
+  transformIgnorePatterns: ['/node_modules/(?!soundtouchjs/)'],
 };
 
 module.exports = {

@@ -1,0 +1,95 @@
+// The click: where the recording's beats fall in playback time when it plays at another tempo (possibly
+// changed part-way), which of them are accented, and the count-in before playback starts.
+
+/**
+ * One stretch of playback at a constant speed: from context time `at` (seconds on the audio clock) the
+ * recording is heard from `from` (seconds into the recording) at `speed` × its own tempo.
+ */
+export interface PlaybackSegment {
+  at: number;
+  from: number;
+  speed: number;
+}
+
+/** The playback timeline: segments in time order; a tempo change starts a new one where the old one is. */
+export class PlaybackMap {
+  private segments: PlaybackSegment[] = [];
+
+  constructor(at: number, from: number, speed: number) {
+    this.segments.push({ at, from, speed });
+  }
+
+  /** Change speed at context time `at`, keeping the musical position (the same beat keeps playing). */
+  changeSpeed(at: number, speed: number) {
+    const from = this.recordingTime(at);
+    this.segments = this.segments.filter((s) => s.at < at);
+    this.segments.push({ at, from, speed });
+  }
+
+  private segmentAtContext(t: number): PlaybackSegment {
+    let s = this.segments[0]!;
+    for (const seg of this.segments) if (seg.at <= t) s = seg;
+    return s;
+  }
+
+  /** Seconds into the recording heard at context time t. */
+  recordingTime(t: number): number {
+    const s = this.segmentAtContext(t);
+    return s.from + (t - s.at) * s.speed;
+  }
+
+  /** Context time at which the recording reaches `x` seconds (null if that lies before playback began). */
+  contextTime(x: number): number | null {
+    for (let i = this.segments.length - 1; i >= 0; i--) {
+      const s = this.segments[i]!;
+      if (x >= s.from) return s.at + (x - s.from) / s.speed;
+    }
+    return null;
+  }
+}
+
+export interface Click {
+  /** Context time. */
+  time: number;
+  accent: boolean;
+  /** Index of the beat in the recording's grid (−1 for count-in clicks). */
+  beat: number;
+}
+
+/** The clicks to schedule between context times [from, to): the recording's beats mapped through the playback. */
+export function clicksBetween(map: PlaybackMap, beats: number[], downbeats: number[], from: number, to: number): Click[] {
+  const down = new Set(downbeats.map((d) => Math.round(d * 1000)));
+  const startRec = map.recordingTime(from);
+  const endRec = map.recordingTime(to);
+  const out: Click[] = [];
+  for (let i = 0; i < beats.length; i++) {
+    const b = beats[i]!;
+    if (b < startRec - 1e-9 || b >= endRec) continue;
+    const time = map.contextTime(b);
+    if (time !== null && time >= from - 1e-9 && time < to) out.push({ time, accent: down.has(Math.round(b * 1000)), beat: i });
+  }
+  return out;
+}
+
+/**
+ * One bar of clicks before playback: `beatsPerBar` clicks at the playback tempo, the first accented, ending
+ * one beat before `start` (the downbeat where the music comes in).
+ */
+export function countIn(start: number, beatsPerBar: number, playbackBpm: number): Click[] {
+  const beat = 60 / playbackBpm;
+  return Array.from({ length: beatsPerBar }, (_, i) => ({ time: start - (beatsPerBar - i) * beat, accent: i === 0, beat: -1 }));
+}
+
+/** Beats per bar of a meter such as "3/4" or "6/8" (6/8 counts its two dotted beats as the click does). */
+export function beatsPerBar(meter: string | null): number {
+  const m = /^(\d+)\/(\d+)$/.exec(meter ?? '');
+  if (!m) return 4;
+  const top = Number(m[1]);
+  // Compound meters (6/8, 9/8, 12/8) are felt in dotted quarters: common practice.
+  return Number(m[2]) === 8 && top % 3 === 0 && top > 3 ? top / 3 : top;
+}
+
+/** A plain metronome (click-only mode): clicks at `bpm` from `start` for `bars` bars. */
+export function metronomeClicks(start: number, bpm: number, perBar: number, bars: number): Click[] {
+  return Array.from({ length: perBar * bars }, (_, i) => ({ time: start + (i * 60) / bpm, accent: i % perBar === 0, beat: i }));
+}

@@ -1,0 +1,87 @@
+// Pitch-preserving time stretch over soundtouchjs (SoundTouch's WSOLA, LGPL-2.1), for offline rendering in
+// Node and the browser alike. soundtouchjs works on interleaved stereo frames; two quirks are handled here:
+// its last ~16 k frames only come out when silence follows them, so the source is padded, and the output is
+// cut to the exact stretched length.
+import { SimpleFilter, SoundTouch, type FrameSource } from 'soundtouchjs';
+
+/** Frames of silence after the end, enough to flush SoundTouch's internal buffers. */
+const FLUSH_FRAMES = 32_768;
+const BLOCK = 4096;
+
+export interface StereoBuffer {
+  left: Float32Array;
+  right: Float32Array;
+}
+
+/** Planar channels read as interleaved frames, with silence past the end. */
+export function planarSource(audio: StereoBuffer): FrameSource & { frames: number } {
+  const n = audio.left.length;
+  return {
+    frames: n,
+    extract(target, numFrames, position) {
+      const available = Math.max(0, Math.min(numFrames, n + FLUSH_FRAMES - position));
+      for (let i = 0; i < available; i++) {
+        const p = position + i;
+        target[2 * i] = p < n ? audio.left[p]! : 0;
+        target[2 * i + 1] = p < n ? audio.right[p]! : 0;
+      }
+      return available;
+    },
+  };
+}
+
+/**
+ * A running stretcher: tempo can change between blocks without a restart, and `sourceFrame` says which
+ * frame of the original is being heard, so the musical position is never lost.
+ */
+export class Stretcher {
+  private readonly pipe = new SoundTouch();
+  private readonly filter: SimpleFilter;
+
+  constructor(source: FrameSource, tempo: number) {
+    this.pipe.tempo = tempo;
+    this.filter = new SimpleFilter(source, this.pipe);
+  }
+
+  set tempo(t: number) {
+    this.pipe.tempo = t;
+  }
+  get tempo() {
+    return this.pipe.tempo;
+  }
+
+  /** Interleaved stereo frames into target; returns how many were written. */
+  extract(target: Float32Array, frames: number): number {
+    return this.filter.extract(target, frames);
+  }
+
+  /** Jump to a frame of the original (seeking). */
+  seek(sourceFrame: number) {
+    this.filter.sourcePosition = Math.max(0, Math.round(sourceFrame));
+  }
+}
+
+/**
+ * The whole buffer at `tempo` × its speed (1.25 = a quarter faster; the same pitch). The result has exactly
+ * round(frames / tempo) frames.
+ */
+export function stretchOffline(audio: StereoBuffer, tempo: number): StereoBuffer {
+  if (!(tempo >= 0.25 && tempo <= 4)) throw new RangeError('tempo factor must lie between 0.25 and 4');
+  const source = planarSource(audio);
+  const outFrames = Math.round(source.frames / tempo);
+  const left = new Float32Array(outFrames);
+  const right = new Float32Array(outFrames);
+  const stretcher = new Stretcher(source, tempo);
+  const block = new Float32Array(2 * BLOCK);
+  let written = 0;
+  while (written < outFrames) {
+    const got = stretcher.extract(block, Math.min(BLOCK, outFrames - written));
+    if (got === 0) break;
+    for (let i = 0; i < got; i++) {
+      left[written + i] = block[2 * i]!;
+      right[written + i] = block[2 * i + 1]!;
+    }
+    written += got;
+  }
+  return { left, right };
+}

@@ -1,0 +1,99 @@
+// Time stretch (soundtouchjs through audio/stretch.ts) and click scheduling (audio/click.ts), on signals whose
+// truth is exact by construction.
+import { stretchOffline } from '../../audio/stretch';
+import { beatsPerBar, clicksBetween, countIn, metronomeClicks, PlaybackMap } from '../../audio/click';
+
+const SR = 44100;
+const tone = (hz: number, sec: number) => Float32Array.from({ length: Math.round(sec * SR) }, (_, i) => 0.5 * Math.sin((2 * Math.PI * hz * i) / SR));
+
+/** Frequency from the interval between the first and last rising zero crossings (interpolated). */
+function frequency(x: Float32Array, skip = 2000): number {
+  let first = -1;
+  let last = -1;
+  let count = 0;
+  for (let i = skip + 1; i < x.length - skip; i++) {
+    if (x[i - 1]! < 0 && x[i]! >= 0) {
+      const at = i - 1 + x[i - 1]! / (x[i - 1]! - x[i]!);
+      if (first < 0) first = at;
+      last = at;
+      count++;
+    }
+  }
+  return (count - 1) / ((last - first) / SR);
+}
+
+const maxJump = (x: Float32Array) => {
+  let m = 0;
+  for (let i = 1; i < x.length; i++) m = Math.max(m, Math.abs(x[i]! - x[i - 1]!));
+  return m;
+};
+
+describe.each([0.5, 0.7, 0.85, 1.15, 1.5, 2.0])('stretching a 440 Hz tone to %p × its tempo', (ratio) => {
+  const input = tone(440, 8);
+  const out = stretchOffline({ left: input, right: input }, ratio);
+
+  test('the output lasts input × original / target, within 1 %', () => {
+    const expected = input.length / ratio;
+    expect(Math.abs(out.left.length / expected - 1)).toBeLessThan(0.01);
+  });
+  test('the pitch stays 440 Hz within 1 %', () => {
+    expect(Math.abs(frequency(out.left) / 440 - 1)).toBeLessThan(0.01);
+  });
+  test('no jump between samples larger than the tone itself has (block joins are seamless)', () => {
+    // A sine of amplitude A at f moves at most 2πf/sr·A per sample; allow 5 % for the cross-fades.
+    expect(maxJump(out.left)).toBeLessThanOrEqual(maxJump(input) * 1.05);
+  });
+});
+
+describe('click scheduling', () => {
+  const beats = Array.from({ length: 600 }, (_, i) => 0.25 + i * 0.5); // 120 BPM for 5 minutes
+  const downbeats = beats.filter((_, i) => i % 4 === 0);
+
+  test('at 75 % every beat of a 5-minute grid maps to its playback time and back within 5 ms', () => {
+    const map = new PlaybackMap(10, 0, 0.75);
+    const clicks = clicksBetween(map, beats, downbeats, 10, 10 + 300 / 0.75 + 1);
+    expect(clicks).toHaveLength(beats.length);
+    for (const c of clicks) {
+      expect(Math.abs(c.time - (10 + beats[c.beat]! / 0.75))).toBeLessThan(0.005);
+      expect(Math.abs(map.recordingTime(c.time) - beats[c.beat]!)).toBeLessThan(0.005);
+    }
+    expect(clicks.filter((c) => c.accent)).toHaveLength(150);
+  });
+
+  test('a tempo change part-way keeps the musical position and the clicks on the beats', () => {
+    const map = new PlaybackMap(0, 0, 1);
+    map.changeSpeed(60, 0.8); // at one minute, slow to 96 BPM
+    expect(map.recordingTime(60)).toBeCloseTo(60, 9);
+    const clicks = clicksBetween(map, beats, downbeats, 0, 400);
+    expect(clicks).toHaveLength(beats.length);
+    const after = clicks.filter((c) => c.time > 60);
+    // Beats after the change are 0.5 / 0.8 = 0.625 s apart.
+    for (let i = 1; i < after.length; i++) expect(after[i]!.time - after[i - 1]!.time).toBeCloseTo(0.625, 6);
+    for (const c of clicks) expect(Math.abs(map.recordingTime(c.time) - beats[c.beat]!)).toBeLessThan(0.005);
+  });
+
+  test.each([
+    ['3/4', 3],
+    ['4/4', 4],
+  ])('the count-in before %s is one bar: %p clicks, the first accented, a beat apart, ending a beat before the start', (meter, n) => {
+    const clicks = countIn(5, beatsPerBar(meter), 90);
+    expect(clicks).toHaveLength(n);
+    expect(clicks[0]!.accent).toBe(true);
+    expect(clicks.slice(1).every((c) => !c.accent)).toBe(true);
+    expect(5 - clicks[n - 1]!.time).toBeCloseTo(60 / 90, 9);
+    expect(clicks[1]!.time - clicks[0]!.time).toBeCloseTo(60 / 90, 9);
+  });
+
+  test('compound meters count in dotted beats (common practice): 6/8 → 2, 12/8 → 4; 7/8 stays 7', () => {
+    expect(beatsPerBar('6/8')).toBe(2);
+    expect(beatsPerBar('12/8')).toBe(4);
+    expect(beatsPerBar('7/8')).toBe(7);
+    expect(beatsPerBar(null)).toBe(4);
+  });
+
+  test('click-only mode is a plain metronome', () => {
+    const clicks = metronomeClicks(1, 150, 3, 4);
+    expect(clicks).toHaveLength(12);
+    expect(clicks.filter((c) => c.accent).map((c) => c.time)).toEqual([1, 1 + 1.2, 1 + 2.4, 1 + 3.6].map((t) => expect.closeTo(t, 9)));
+  });
+});

@@ -1,0 +1,20 @@
+// soundtouchjs ships no types; these cover the parts Tactus uses (audio/stretch.ts).
+declare module 'soundtouchjs' {
+  export interface FrameSource {
+    /** Writes up to numFrames interleaved stereo frames from `position` into target; returns frames written. */
+    extract(target: Float32Array, numFrames: number, position: number): number;
+  }
+  export class SoundTouch {
+    tempo: number;
+    rate: number;
+    pitch: number;
+    clear(): void;
+  }
+  export class SimpleFilter {
+    constructor(source: FrameSource, pipe: SoundTouch, callback?: () => void);
+    extract(target: Float32Array, numFrames: number): number;
+    sourcePosition: number;
+    readonly position: number;
+    clear(): void;
+  }
+}
