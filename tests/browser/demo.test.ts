@@ -55,4 +55,20 @@ describe.each(viewports)('demo studio at $name width', (viewport) => {
     await page.screenshot({ path: path.join(outputDir, `demo-students-${viewport.name}.png`) });
     await context.close();
   });
+
+  test('the demo admin changes a role on the Account page', async () => {
+    const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+    const page = await context.newPage();
+    await signIn(page, 'admin@harbourlane.example');
+    await page.getByRole('link', { name: 'Account' }).click();
+    await page.getByTestId('role-editor').waitFor();
+    const group = page.getByRole('radiogroup', { name: 'Role of Tomás Reyes' });
+    await group.getByRole('radio', { name: 'Teacher' }).click();
+    await group.locator('[aria-checked="true"]').filter({ hasText: 'Teacher' }).waitFor();
+    await page.screenshot({ path: path.join(outputDir, `demo-admin-roles-${viewport.name}.png`), fullPage: true });
+    // Back as it was, for the other viewport's run.
+    await group.getByRole('radio', { name: 'Player' }).click();
+    await group.locator('[aria-checked="true"]').filter({ hasText: 'Player' }).waitFor();
+    await context.close();
+  });
 });
