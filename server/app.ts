@@ -14,6 +14,7 @@ import { meRouter } from './routes/me';
 import { songsRouter } from './routes/songs';
 import { studentsRouter } from './routes/students';
 import { recordingsRouter, songRecordingsRouter } from './routes/recordings';
+import { candidatesRouter, songTemposRouter } from './routes/tempos';
 import type { Health } from '../shared/schemas';
 
 // eslint-disable-next-line @typescript-eslint/no-require-imports
@@ -40,6 +41,8 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.use('/api', loadUser);
   app.use('/api/me', meRouter);
   app.use('/api/songs/:songId/recordings', songRecordingsRouter);
+  app.use('/api/songs/:songId', songTemposRouter);
+  app.use('/api/candidates', candidatesRouter);
   app.use('/api/songs', songsRouter);
   app.use('/api/recordings', recordingsRouter);
   app.use('/api/students', studentsRouter);

@@ -52,6 +52,7 @@ export const SongSchema = z.object({
   workingBpm: z.number().nullable(),
   chosenBpm: z.number().nullable(),
   notes: z.string().nullable(),
+  chosenNote: z.string().nullable(),
   createdAt: z.string(),
   updatedAt: z.string(),
 });
@@ -173,3 +174,38 @@ export const RecordingListSchema = z.object({ recordings: z.array(RecordingSchem
 
 export const PeaksSchema = z.object({ minMax: z.array(z.number()), buckets: z.number(), durationSec: z.number() });
 export type PeaksDto = z.infer<typeof PeaksSchema>;
+
+// ── Candidate tempos, the chosen tempo, practice entries ─────────────────────────────────────────────
+
+export const CandidateInputSchema = z.object({
+  bpm: BpmSchema,
+  rating: z.number().int().min(1, 'rating is 1 to 5').max(5, 'rating is 1 to 5').nullish(),
+  note: z.string().trim().max(500).nullish(),
+});
+export const CandidatePatchSchema = CandidateInputSchema.partial();
+export const CandidateSchema = z.object({
+  id: z.string(),
+  songId: z.string(),
+  bpm: z.number(),
+  rating: z.number().nullable(),
+  note: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type Candidate = z.infer<typeof CandidateSchema>;
+export const CandidateListSchema = z.object({ candidates: z.array(CandidateSchema) });
+
+export const ChooseTempoSchema = z.object({ bpm: BpmSchema, note: z.string().trim().max(2000).nullish() });
+
+export const PracticeInputSchema = z
+  .object({
+    passage: z.string().trim().max(200).nullish(),
+    startBpm: BpmSchema,
+    reachedBpm: BpmSchema,
+    repetitions: z.number().int().min(1, 'repetitions must be at least 1').max(10_000),
+    minutes: z.number().min(0).max(24 * 60, 'minutes must be at most a day'),
+    clean: z.boolean(),
+  })
+  .strict();
+export type PracticeInput = z.infer<typeof PracticeInputSchema>;
+export const PracticeEntrySchema = PracticeInputSchema.extend({ id: z.string(), songId: z.string(), passage: z.string().nullable(), createdAt: z.string() });
+export type PracticeEntryDto = z.infer<typeof PracticeEntrySchema>;

@@ -1,5 +1,6 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
 import { sequelize } from '../db';
+import { decimalBpm } from './decimal';
 
 export type RecordingKind = 'reference' | 'take';
 export type AudioFormat = 'mp3' | 'wav' | 'flac' | 'ogg' | 'm4a';
@@ -42,14 +43,7 @@ Recording.init(
     status: { type: DataTypes.ENUM('queued', 'running', 'done', 'failed'), allowNull: false, defaultValue: 'queued' },
     progress: { type: DataTypes.FLOAT, allowNull: false, defaultValue: 0 },
     error: { type: DataTypes.TEXT, allowNull: true },
-    correctedBpm: {
-      type: DataTypes.DECIMAL(6, 2),
-      allowNull: true,
-      get(this: Recording) {
-        const raw = this.getDataValue('correctedBpm') as unknown as string | null;
-        return raw === null || raw === undefined ? null : Number(raw);
-      },
-    },
+    correctedBpm: decimalBpm('correctedBpm'),
     beatOffsetSec: { type: DataTypes.DOUBLE, allowNull: true },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),

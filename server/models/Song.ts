@@ -1,15 +1,7 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
 import { sequelize } from '../db';
+import { decimalBpm as bpmColumn } from './decimal';
 
-// DECIMAL comes back from the driver as a string; tempos are numbers everywhere else.
-const bpmColumn = (name: string) => ({
-  type: DataTypes.DECIMAL(6, 2),
-  allowNull: true,
-  get(this: Model) {
-    const raw = this.getDataValue(name) as string | number | null;
-    return raw === null || raw === undefined ? null : Number(raw);
-  },
-});
 
 /** A piece a player is working on, with the tempos that matter for it. */
 export class Song extends Model<InferAttributes<Song>, InferCreationAttributes<Song>> {
@@ -22,6 +14,7 @@ export class Song extends Model<InferAttributes<Song>, InferCreationAttributes<S
   declare workingBpm: number | null;
   declare chosenBpm: number | null;
   declare notes: string | null;
+  declare chosenNote: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -36,6 +29,7 @@ Song.init(
     workingBpm: bpmColumn('workingBpm'),
     chosenBpm: bpmColumn('chosenBpm'),
     notes: { type: DataTypes.TEXT, allowNull: true },
+    chosenNote: { type: DataTypes.TEXT, allowNull: true },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),
   },

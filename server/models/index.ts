@@ -8,6 +8,8 @@ import { StudioLink } from './StudioLink';
 import { Recording } from './Recording';
 import { Analysis } from './Analysis';
 import { AnalysisJob } from './AnalysisJob';
+import { CandidateTempo } from './CandidateTempo';
+import { PracticeEntry } from './PracticeEntry';
 
 User.hasMany(Song, { foreignKey: 'ownerId', as: 'songs', onDelete: 'CASCADE' });
 Song.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
@@ -17,8 +19,10 @@ Song.hasMany(Recording, { foreignKey: 'songId', as: 'recordings', onDelete: 'CAS
 Recording.belongsTo(Song, { foreignKey: 'songId', as: 'song' });
 Recording.hasOne(Analysis, { foreignKey: 'recordingId', as: 'analysis', onDelete: 'CASCADE' });
 Recording.hasOne(AnalysisJob, { foreignKey: 'recordingId', as: 'job', onDelete: 'CASCADE' });
+Song.hasMany(CandidateTempo, { foreignKey: 'songId', as: 'candidates', onDelete: 'CASCADE' });
+Song.hasMany(PracticeEntry, { foreignKey: 'songId', as: 'practice', onDelete: 'CASCADE' });
 
 /** better-auth's model names (after our modelName mapping) → the Sequelize model that stores them. */
 export const authModels = { users: User, sessions: Session, accounts: Account, verifications: Verification } as const;
 
-export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob };
+export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry };

@@ -14,6 +14,7 @@ export function toSongDto(song: Song): SongDto {
     workingBpm: song.workingBpm,
     chosenBpm: song.chosenBpm,
     notes: song.notes,
+    chosenNote: song.chosenNote ?? null,
     createdAt: song.createdAt.toISOString(),
     updatedAt: song.updatedAt.toISOString(),
   };

@@ -1,0 +1,34 @@
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
+import { sequelize } from '../db';
+import { decimalBpm } from './decimal';
+
+/** One logged practice session on a song (or a passage of it). */
+export class PracticeEntry extends Model<InferAttributes<PracticeEntry>, InferCreationAttributes<PracticeEntry>> {
+  declare id: CreationOptional<string>;
+  declare songId: string;
+  declare userId: string;
+  declare passage: string | null;
+  declare startBpm: number;
+  declare reachedBpm: number;
+  declare repetitions: number;
+  declare minutes: number;
+  declare clean: boolean;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+PracticeEntry.init(
+  {
+    id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    songId: { type: DataTypes.UUID, allowNull: false },
+    userId: { type: DataTypes.STRING(64), allowNull: false },
+    passage: { type: DataTypes.STRING(200), allowNull: true },
+    startBpm: decimalBpm('startBpm', false),
+    reachedBpm: decimalBpm('reachedBpm', false),
+    repetitions: { type: DataTypes.INTEGER, allowNull: false },
+    minutes: { type: DataTypes.FLOAT, allowNull: false },
+    clean: { type: DataTypes.BOOLEAN, allowNull: false },
+    createdAt: DataTypes.DATE(3),
+    updatedAt: DataTypes.DATE(3),
+  },
+  { sequelize, tableName: 'practice_entries', modelName: 'PracticeEntry' },
+);
