@@ -40,6 +40,8 @@ describe.each(viewports)('upload at $name width', (viewport) => {
     await page.getByTestId('recording-label').fill('Groove at home');
     await page.getByTestId('upload').click();
     await page.getByTestId('upload-progress').waitFor();
+    // The bar moves while the bytes go out.
+    await page.waitForFunction(() => Number(document.querySelector('[data-testid="upload-progress"]')?.getAttribute('aria-valuenow') ?? 0) > 20);
     await page.screenshot({ path: path.join(outputDir, `upload-progress-${viewport.name}.png`) });
 
     await page.getByTestId('recording').waitFor({ timeout: 30_000 });
