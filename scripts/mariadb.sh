@@ -35,6 +35,8 @@ if ! ping_db; then
       --auth-root-authentication-method=socket --skip-test-db >"$TACTUS_STATE/logs/mariadb-install.log" 2>&1
   fi
   log "starting MariaDB on 127.0.0.1:$TACTUS_DB_PORT"
+  errlog="$TACTUS_STATE/logs/mariadb.err"
+  seen=$( [ -f "$errlog" ] && wc -l <"$errlog" || echo 0 )
   # The daemon must not keep the lock (or any other inherited descriptor) open: close all but 0-2.
   (
     for fd in /proc/self/fd/*; do fd="${fd##*/}"; [ "$fd" -gt 2 ] && eval "exec $fd>&-" 2>/dev/null; done
@@ -45,7 +47,15 @@ if ! ping_db; then
       --innodb-buffer-pool-size=128M --max-connections=300 </dev/null >/dev/null 2>&1
   ) &
   for _ in $(seq 1 150); do ping_db && break; sleep 0.1; done
-  ping_db || { log "MariaDB did not start; see $TACTUS_STATE/logs/mariadb.err"; tail -20 "$TACTUS_STATE/logs/mariadb.err" >&2 || true; exit 1; }
+  if ! ping_db; then
+    if tail -n +"$((seen + 1))" "$errlog" 2>/dev/null | grep -q "Address already in use"; then
+      log "port $TACTUS_DB_PORT is taken by another server (another checkout's MariaDB?): stop it or set TACTUS_DB_PORT"
+    else
+      log "MariaDB did not start; see $TACTUS_STATE/logs/mariadb.err"
+      tail -20 "$TACTUS_STATE/logs/mariadb.err" >&2 || true
+    fi
+    exit 1
+  fi
 fi
 
 mariadb --no-defaults --socket="$SOCK" -uroot <<SQL

@@ -19,6 +19,8 @@ export async function launchChromium(): Promise<Browser> {
       '--disable-background-networking',
       '--disable-component-update',
       '--disable-sync',
+      // Audio may start without a gesture in tests; a real listener clicks Play anyway.
+      '--autoplay-policy=no-user-gesture-required',
     ],
   });
 }

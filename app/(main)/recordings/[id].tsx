@@ -7,11 +7,13 @@ import { Body, Button, Card, Heading, Loading, Notice, Screen, Small } from '../
 import { Waveform } from '../../../components/Waveform';
 import { ProgressBar } from '../../../components/ProgressBar';
 import { TempoCorrection } from '../../../components/TempoCorrection';
+import { AuditionPanel } from '../../../components/AuditionPanel';
+import { apiBase, apiFetch } from '../../../client/api';
 import { formatBpm } from '../../../components/TempoLabel';
 import { formatDuration } from '../../../components/RecordingRow';
 import { colors, space, type } from '../../../components/theme';
 import { correctRecording, usePeaks, useRecording } from '../../../client/hooks';
-import { apiFetch } from '../../../client/api';
+
 import { mutate } from 'swr';
 
 export default function RecordingScreen() {
@@ -71,6 +73,7 @@ export default function RecordingScreen() {
               <Small>Thin lines are beats, amber lines bar starts.</Small>
             </Card>
           ) : null}
+          {bpm !== null ? <AuditionPanel audioUrl={`${apiBase}/api/recordings/${r.id}/audio`} beats={a.beats} downbeats={a.downbeats} originalBpm={bpm} /> : null}
           {bpm !== null ? (
             <Card>
               <Heading level={3}>Correct the tempo</Heading>
