@@ -30,7 +30,11 @@ export function AuditionPanel({ audioUrl, beats, downbeats, originalBpm }: { aud
     const p = new AuditionPlayer(audioUrl, grid.current);
     player.current = p;
     p.load().then(() => setReady(true), (e: Error) => setFailure(e.message));
-    const tick = setInterval(() => setPosition(p.position()), 100);
+    // The player stops by itself at the end: keep the button in step with it.
+    const tick = setInterval(() => {
+      setPosition(p.position());
+      setPlaying(p.playing);
+    }, 100);
     return () => {
       clearInterval(tick);
       p.dispose();
