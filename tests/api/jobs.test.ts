@@ -1,26 +1,17 @@
 // Analysis jobs across processes: several servers on one database each take jobs, every job is done exactly
 // once, and a job whose server is killed mid-way is finished by the next server that starts.
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import mariadb from 'mariadb';
 import { agent, linkPath, PASSWORD, query, uniqueEmail, waitForMail } from './helpers';
+import { freePort, root, spawnTs, waitForOk } from '../setup/processes';
 
-const root = path.resolve(__dirname, '../..');
 const DB = 'tactus_test_jobs';
 const CLIP = fs.readFileSync(path.join(root, 'fixtures/clips/waltz-150.mp3'));
 const work = fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-jobs-'));
 const children: ChildProcess[] = [];
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = net.createServer().listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
 
 /** A server process of its own on the jobs database; analysis is slowed so a job is caught running. */
 async function startServer(name: string) {
@@ -40,15 +31,13 @@ async function startServer(name: string) {
     TACTUS_JOB_STALE_MS: '3000',
   };
   const log = fs.openSync(path.join(work, `${name}.log`), 'w');
-  // node itself with tsx's loader (not the tsx command, which would run the server in a child of its own
-  // and leave it running when killed), so that SIGKILL really kills the server.
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server/index.ts')], { env, stdio: ['ignore', log, log], cwd: root });
+  // spawnTs runs node itself, so that SIGKILL really kills the server.
+  const child = spawnTs('server/index.ts', env, ['ignore', log, log]);
   children.push(child);
-  for (let i = 0; i < 300; i++) {
-    if (await fetch(`${url}/api/health`).then((r) => r.ok, () => false)) return { url, child };
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`server ${name} did not start: ${fs.readFileSync(path.join(work, `${name}.log`), 'utf8')}`);
+  await waitForOk(`${url}/api/health`, 60_000).catch(() => {
+    throw new Error(`server ${name} did not start: ${fs.readFileSync(path.join(work, `${name}.log`), 'utf8')}`);
+  });
+  return { url, child };
 }
 
 async function playerWithSong(url: string) {

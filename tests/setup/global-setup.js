@@ -1,35 +1,9 @@
 // Before any test: a fresh tactus_test database, a mail catcher and the real server on free loopback ports.
 // Expects MariaDB up (scripts/test.sh runs scripts/mariadb.sh first).
-const { spawn } = require('node:child_process');
 const fs = require('node:fs');
-const net = require('node:net');
 const path = require('node:path');
 const mariadb = require('mariadb');
-
-const root = path.resolve(__dirname, '../..');
-const tsx = path.join(root, 'node_modules/.bin/tsx');
-
-const freePort = () =>
-  new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address();
-      s.close(() => resolve(port));
-    });
-    s.on('error', reject);
-  });
-
-async function waitFor(url, ms) {
-  const until = Date.now() + ms;
-  while (Date.now() < until) {
-    try {
-      const res = await fetch(url);
-      if (res.ok) return;
-    } catch {}
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`${url} did not answer within ${ms} ms`);
-}
+const { freePort, root, spawnTs, waitForOk } = require('./processes');
 
 module.exports = async function globalSetup() {
   const state = process.env.TACTUS_STATE || path.join(root, '.tactus');
@@ -102,9 +76,9 @@ module.exports = async function globalSetup() {
 
   const start = (script, name, childEnv = env) => {
     const out = fs.openSync(path.join(state, 'logs', `test-${name}.log`), 'w');
-    return spawn(tsx, [path.join(root, script)], { env: childEnv, stdio: ['ignore', out, out], cwd: root });
+    return spawnTs(script, childEnv, ['ignore', out, out]);
   };
   globalThis.__tactusChildren = [start('server/mail/catcher-cli.ts', 'mail'), start('server/dev/fake-s3.ts', 'fake-s3')];
   globalThis.__tactusChildren.push(start('server/index.ts', 'server'), start('server/index.ts', 'server-s3', s3Env));
-  await Promise.all([waitFor(`${env.TACTUS_PUBLIC_URL}/api/health`, 90_000), waitFor(`${s3Env.TACTUS_PUBLIC_URL}/api/health`, 90_000)]);
+  await Promise.all([waitForOk(`${env.TACTUS_PUBLIC_URL}/api/health`, 90_000), waitForOk(`${s3Env.TACTUS_PUBLIC_URL}/api/health`, 90_000)]);
 };
