@@ -73,3 +73,14 @@ export async function query<T = Record<string, unknown>>(database: string, sql: 
     await conn.end();
   }
 }
+
+/** Polls a recording until its analysis is done or failed; returns the recording. */
+export async function waitForAnalysis(agent: ReturnType<typeof request.agent>, id: string, timeoutMs = 30_000) {
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const r = (await agent.get(`/api/recordings/${id}`).expect(200)).body;
+    if (r.status === 'done' || r.status === 'failed') return r;
+    if (Date.now() > until) throw new Error(`analysis of ${id} still ${r.status} after ${timeoutMs} ms`);
+    await new Promise((res) => setTimeout(res, 200));
+  }
+}

@@ -7,7 +7,7 @@ import crypto from 'node:crypto';
 import request from 'supertest';
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import { accuracy1 } from '../../audio/evaluation';
-import { query, servers, signedInUser, type TestServer } from './helpers';
+import { query, servers, signedInUser, waitForAnalysis, type TestServer } from './helpers';
 
 const CLIPS = path.resolve(__dirname, '../../fixtures/clips');
 const clip = (name: string) => fs.readFileSync(path.join(CLIPS, name));
@@ -31,16 +31,6 @@ async function storedFiles(server: TestServer): Promise<string[]> {
 const spoolFiles = (server: TestServer) => (fs.existsSync(server.spool) ? fs.readdirSync(server.spool) : []);
 const rowsFor = async (server: TestServer, songId: string) =>
   Number((await query<{ n: bigint }>(server.db, 'SELECT COUNT(*) AS n FROM recordings WHERE songId = ?', [songId]))[0]!.n);
-
-async function waitForAnalysis(agent: ReturnType<typeof request.agent>, id: string, timeoutMs = 30_000) {
-  const until = Date.now() + timeoutMs;
-  for (;;) {
-    const r = (await agent.get(`/api/recordings/${id}`).expect(200)).body;
-    if (r.status === 'done' || r.status === 'failed') return r;
-    if (Date.now() > until) throw new Error(`analysis of ${id} still ${r.status} after ${timeoutMs} ms`);
-    await new Promise((res) => setTimeout(res, 200));
-  }
-}
 
 describe.each([servers.disk, servers.s3])('recordings stored on $name', (server) => {
   let owner: Awaited<ReturnType<typeof signedInUser>>;

@@ -3,8 +3,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Browser } from 'playwright-core';
-import { launchChromium, outputDir } from './chromium';
-import { baseUrl, PASSWORD, signedInUser } from '../api/helpers';
+import { launchChromium, outputDir, signInThroughApp } from './chromium';
+import { baseUrl, PASSWORD, signedInUser, waitForAnalysis } from '../api/helpers';
 
 const CLIP = fs.readFileSync(path.resolve(__dirname, '../../fixtures/clips/drums-bass-124.wav'));
 let browser: Browser;
@@ -19,17 +19,13 @@ test('set 75 %, then an exact BPM, play and see the position move', async () => 
   const player = await signedInUser('audition');
   const song = (await player.agent.post('/api/songs').send({ title: 'Drift Ice Hornpipe' }).expect(201)).body;
   const rec = (await player.agent.post(`/api/songs/${song.id}/recordings`).field('kind', 'reference').attach('file', CLIP, 'groove.wav').expect(201)).body;
-  for (let i = 0; i < 100 && (await player.agent.get(`/api/recordings/${rec.id}`)).body.status !== 'done'; i++) await new Promise((r) => setTimeout(r, 200));
+  expect((await waitForAnalysis(player.agent, rec.id)).status).toBe('done');
 
   const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
   const page = await context.newPage();
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByTestId('email').fill(player.email);
-  await page.getByTestId('password').fill(PASSWORD);
-  await page.getByTestId('sign-in').click();
-  await page.getByTestId('library').waitFor();
+  await signInThroughApp(page, player.email, PASSWORD);
   await page.goto(`${baseUrl}/recordings/${rec.id}`);
   await page.getByTestId('audition').waitFor();
 

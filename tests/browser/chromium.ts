@@ -2,7 +2,8 @@
 // playwright gives every launch a fresh, empty profile of its own.
 import fs from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { baseUrl } from '../api/helpers';
 
 export const outputDir = path.resolve(__dirname, '../../test-output');
 
@@ -29,3 +30,12 @@ export const viewports = [
   { name: 'phone', width: 390, height: 844 },
   { name: 'desktop', width: 1280, height: 800 },
 ] as const;
+
+/** Signs in through the app's own sign-in screen and waits for the library. */
+export async function signInThroughApp(page: Page, email: string, password: string) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByTestId('email').fill(email);
+  await page.getByTestId('password').fill(password);
+  await page.getByTestId('sign-in').click();
+  await page.getByTestId('library').waitFor();
+}

@@ -2,8 +2,7 @@
 import { execFileSync } from 'node:child_process';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
-import { launchChromium, outputDir, viewports } from './chromium';
-import { baseUrl } from '../api/helpers';
+import { launchChromium, outputDir, signInThroughApp, viewports } from './chromium';
 import { DEMO_PASSWORD } from '../../server/demo-data';
 
 const root = path.resolve(__dirname, '../..');
@@ -24,13 +23,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
-  await page.getByTestId('library').waitFor();
-}
+const signIn = (page: Page, email: string) => signInThroughApp(page, email, DEMO_PASSWORD);
 
 describe.each(viewports)('demo studio at $name width', (viewport) => {
   test('a demo player sees their songs with working, goal and chosen tempos', async () => {

@@ -2,7 +2,7 @@
 // and the waveform with its beat grid. The clip's truth is its tempo map: 124 BPM (fixtures/pieces.ts).
 import path from 'node:path';
 import type { Browser } from 'playwright-core';
-import { launchChromium, outputDir, viewports } from './chromium';
+import { launchChromium, outputDir, signInThroughApp, viewports } from './chromium';
 import { baseUrl, PASSWORD, signedInUser } from '../api/helpers';
 
 const CLIP = path.resolve(__dirname, '../../fixtures/clips/drums-bass-124.mp3');
@@ -23,11 +23,7 @@ describe.each(viewports)('upload at $name width', (viewport) => {
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
-    await page.goto(`${baseUrl}/sign-in`);
-    await page.getByTestId('email').fill(player.email);
-    await page.getByTestId('password').fill(PASSWORD);
-    await page.getByTestId('sign-in').click();
-    await page.getByTestId('library').waitFor();
+    await signInThroughApp(page, player.email, PASSWORD);
     await page.getByText('Copperline Reel').click();
     await page.getByTestId('song').waitFor();
     await page.getByText('No recordings yet').waitFor();
