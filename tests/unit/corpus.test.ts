@@ -3,21 +3,15 @@
 import path from 'node:path';
 import { analyse } from '../../audio/analyse';
 import { accuracy1, beatFMeasure, trimBeats } from '../../audio/evaluation';
-import { median } from '../../audio/curve';
 import { decodeFile } from '../../server/analysis/decode';
 import { CORPUS_DIR, ensureCorpus } from '../../fixtures/generate';
-import type { Truth } from '../../fixtures/pieces';
+import { medianCurveError, referenceBpm, type Truth } from '../../fixtures/pieces';
 
 let truths: Truth[] = [];
 beforeAll(() => {
   truths = ensureCorpus(() => {});
 }, 900_000);
 
-const tempoAt = (t: Truth, sec: number) => {
-  let i = 0;
-  while (i + 1 < t.beats.length && t.beats[i + 1]! <= sec) i++;
-  return t.beatBpm[i]!;
-};
 
 test('every piece: tempo within 4 % (Accuracy1), beats within ±70 ms (F ≥ 0.85), meter, curve', async () => {
   expect(truths.length).toBeGreaterThanOrEqual(12);
@@ -25,13 +19,13 @@ test('every piece: tempo within 4 % (Accuracy1), beats within ±70 ms (F ≥ 0.8
   for (const truth of truths) {
     const { samples, sampleRate } = await decodeFile(path.join(CORPUS_DIR, `${truth.name}.mp3`));
     const a = analyse(samples, sampleRate);
-    const reference = truth.steady ? truth.bpm : median(truth.beatBpm);
+    const reference = referenceBpm(truth);
     if (!accuracy1(a.bpm!, reference)) failures.push(`${truth.name}: ${a.bpm} BPM, truth ${reference}`);
     const f = beatFMeasure(trimBeats(truth.beats), trimBeats(a.beats));
     if (f < 0.85) failures.push(`${truth.name}: beat F ${f.toFixed(3)}`);
     if (a.meter !== truth.meter) failures.push(`${truth.name}: meter ${a.meter}, truth ${truth.meter}`);
     if (!truth.steady) {
-      const err = median(a.curve.map((p) => Math.abs(p.bpm / tempoAt(truth, p.t) - 1)));
+      const err = medianCurveError(truth, a.curve);
       if (err > 0.02) failures.push(`${truth.name}: median curve error ${(100 * err).toFixed(2)} %`);
     }
   }
