@@ -2,7 +2,7 @@
 // the order the signal flows: onset → periodicity → tempo → beats → meter → curve → summary.
 import type { Analysis } from './types';
 import { onsetEnvelope } from './onset';
-import { bpmToLag, globalPeriodicity, lagToBpm, localPulse, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
+import { bpmToLag, globalPeriodicity, localPulse, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
 import { estimateTempo, relationTo, round1, round3 } from './tempo';
 import { trackBeats } from './beats';
 import { estimateMeter } from './meter';
@@ -107,4 +107,3 @@ function confidenceFrom(strength: number, cv: number): number {
   return periodic * (0.5 + 0.5 * regular);
 }
 
-export { lagToBpm };

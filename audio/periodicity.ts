@@ -7,15 +7,6 @@ export const MIN_BPM = 30;
 export const MAX_BPM = 300;
 
 export const bpmToLag = (bpm: number, frameRate: number) => (60 * frameRate) / bpm;
-export const lagToBpm = (lag: number, frameRate: number) => (60 * frameRate) / lag;
-
-/** Linear interpolation into a sampled function. */
-export function sampleAt(x: ArrayLike<number>, pos: number): number {
-  if (pos < 0 || pos > x.length - 1) return 0;
-  const i = Math.floor(pos);
-  const f = pos - i;
-  return i + 1 < x.length ? x[i]! * (1 - f) + x[i + 1]! * f : x[i]!;
-}
 
 export interface PeriodicityCurve {
   /** Tempo grid (BPM), log-spaced from MIN_BPM to MAX_BPM. */
