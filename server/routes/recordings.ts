@@ -29,7 +29,9 @@ songRecordingsRouter.use(requireUser);
 songRecordingsRouter.get('/', handler(async (req, res) => {
   const song = await songForReader(currentUser(req), String(req.params.songId));
   const rows = await listRecordings(song.id);
-  res.json({ recordings: await Promise.all(rows.map((r) => toRecordingDto(r))) });
+  // One query for all their analyses, not one per recording.
+  const analyses = new Map((await Analysis.findAll({ where: { recordingId: rows.map((r) => r.id) } })).map((a) => [a.recordingId, a]));
+  res.json({ recordings: await Promise.all(rows.map((r) => toRecordingDto(r, analyses.get(r.id) ?? null))) });
 }));
 
 songRecordingsRouter.post(
