@@ -1,5 +1,6 @@
 // The click: where the recording's beats fall in playback time when it plays at another tempo (possibly
 // changed part-way), which of them are accented, and the count-in before playback starts.
+import { beatsBetween, type Passage } from './passage';
 
 /**
  * One stretch of playback at a constant speed: from context time `at` (seconds on the audio clock) the
@@ -56,17 +57,15 @@ export interface Click {
   beat: number;
 }
 
-/** The clicks to schedule between context times [from, to): the recording's beats mapped through the playback. */
-export function clicksBetween(map: PlaybackMap, beats: number[], downbeats: number[], from: number, to: number): Click[] {
-  const down = new Set(downbeats.map((d) => Math.round(d * 1000)));
-  const startRec = map.recordingTime(from);
-  const endRec = map.recordingTime(to);
+/**
+ * The clicks to schedule between context times [from, to): the recording's beats mapped through the playback.
+ * With a loop the map runs on the loop's straight timeline (audio/passage.ts) and the region's beats repeat.
+ */
+export function clicksBetween(map: PlaybackMap, beats: number[], downbeats: number[], from: number, to: number, loop: Passage | null = null): Click[] {
   const out: Click[] = [];
-  for (let i = 0; i < beats.length; i++) {
-    const b = beats[i]!;
-    if (b < startRec - 1e-9 || b >= endRec) continue;
-    const time = map.contextTime(b);
-    if (time !== null && time >= from - 1e-9 && time < to) out.push({ time, accent: down.has(Math.round(b * 1000)), beat: i });
+  for (const b of beatsBetween({ beats, downbeats }, loop, map.recordingTime(from) - 1e-6, map.recordingTime(to))) {
+    const time = map.contextTime(b.at);
+    if (time !== null && time >= from - 1e-9 && time < to) out.push({ time, accent: b.accent, beat: b.index });
   }
   return out;
 }

@@ -31,6 +31,29 @@ export function planarSource(audio: StereoBuffer): FrameSource & { frames: numbe
 }
 
 /**
+ * Planar channels with a passage repeated end to start: source frame p past the passage's end reads frame
+ * start + (p − start) mod length, so a stretcher fed from it loops seamlessly (its overlap-add smooths the seam).
+ */
+export function loopedSource(audio: StereoBuffer, loop: { startFrame: number; endFrame: number } | null): FrameSource & { frames: number } {
+  if (!loop) return planarSource(audio);
+  const { startFrame, endFrame } = loop;
+  const len = endFrame - startFrame;
+  if (!(len > 0)) throw new RangeError('the loop is empty');
+  return {
+    frames: Infinity,
+    extract(target, numFrames, position) {
+      for (let i = 0; i < numFrames; i++) {
+        let p = position + i;
+        if (p >= endFrame) p = startFrame + ((p - startFrame) % len);
+        target[2 * i] = audio.left[p] ?? 0;
+        target[2 * i + 1] = audio.right[p] ?? 0;
+      }
+      return numFrames;
+    },
+  };
+}
+
+/**
  * A running stretcher: tempo can change between blocks without a restart, and `sourceFrame` says which
  * frame of the original is being heard, so the musical position is never lost.
  */

@@ -1,7 +1,7 @@
 // SWR hooks: how screens read server data. Mutations revalidate the keys they change.
 import useSWR, { mutate } from 'swr';
 import { ApiRequestError, apiFetch, fetcher } from './api';
-import type { Me, PeaksDto, Recording, RecordingPatch, Song, SongInput, SongPatch, Student, UserSummary, Role } from '../shared/schemas';
+import type { Candidate, Me, PeaksDto, PracticeEntryDto, PracticeInput, Recording, RecordingPatch, Song, SongInput, SongPatch, Student, UserSummary, Role } from '../shared/schemas';
 
 export function useMe() {
   const { data, error, isLoading } = useSWR<Me>('/api/me', fetcher, { shouldRetryOnError: false });
@@ -49,8 +49,8 @@ export async function changeRole(userId: string, role: Role) {
 /** After sign-in or sign-out every cached answer belongs to someone else: drop them all. */
 export const clearCache = () => mutate(() => true, undefined, { revalidate: true });
 
-export function useSong(id: string) {
-  const { data, error, isLoading } = useSWR<Song>(`/api/songs/${id}`, fetcher);
+export function useSong(id: string | undefined) {
+  const { data, error, isLoading } = useSWR<Song>(id ? `/api/songs/${id}` : null, fetcher);
   return { song: data, error, isLoading };
 }
 
@@ -80,4 +80,52 @@ export async function correctRecording(id: string, patch: RecordingPatch) {
   await mutate(`/api/recordings/${id}`, r, { revalidate: false });
   await mutate(`/api/songs/${r.songId}/recordings`);
   return r;
+}
+
+// ── Candidate tempos, the chosen tempo, the practice log ─────────────────────────────────────────────
+
+const candidatesKey = (songId: string) => `/api/songs/${songId}/candidates`;
+
+export function useCandidates(songId: string | undefined) {
+  const { data, error } = useSWR<{ candidates: Candidate[] }>(songId ? candidatesKey(songId) : null, fetcher);
+  return { candidates: data?.candidates, error };
+}
+
+export async function addCandidate(songId: string, bpm: number) {
+  const c = await apiFetch<Candidate>(candidatesKey(songId), { body: { bpm } });
+  await mutate(candidatesKey(songId));
+  return c;
+}
+
+export async function changeCandidate(c: Candidate, patch: { rating?: number | null; note?: string | null }) {
+  await apiFetch<Candidate>(`/api/candidates/${c.id}`, { method: 'PATCH', body: patch });
+  await mutate(candidatesKey(c.songId));
+}
+
+export async function removeCandidate(c: Candidate) {
+  await apiFetch(`/api/candidates/${c.id}`, { method: 'DELETE' });
+  await mutate(candidatesKey(c.songId));
+}
+
+export async function chooseTempo(songId: string, bpm: number, note: string | null) {
+  const song = await apiFetch<Song>(`/api/songs/${songId}/choose`, { body: { bpm, note } });
+  await mutate(`/api/songs/${songId}`, song, { revalidate: false });
+  await mutate('/api/songs');
+  await mutate(candidatesKey(songId));
+  return song;
+}
+
+const practiceKey = (songId: string) => `/api/songs/${songId}/practice`;
+
+export function usePractice(songId: string | undefined) {
+  const { data, error } = useSWR<{ entries: PracticeEntryDto[] }>(songId ? practiceKey(songId) : null, fetcher);
+  return { entries: data?.entries, error };
+}
+
+export async function logPractice(songId: string, input: PracticeInput) {
+  const entry = await apiFetch<PracticeEntryDto>(practiceKey(songId), { body: input });
+  await mutate(practiceKey(songId));
+  await mutate(`/api/songs/${songId}`);
+  await mutate('/api/songs');
+  return entry;
 }

@@ -1,112 +1,308 @@
-// Hear the recording at another tempo (pitch kept) with a click on its beats: tempo in BPM first, the share
-// of the original beside it; ±1, the next mechanical metronome mark up or down, or an exact number.
-import React, { useEffect, useRef, useState } from 'react';
-import { Platform, Pressable, Text, View } from 'react-native';
-import { Button, Card, Field, Heading, Notice, Small } from './ui';
-import { colors, layout, radius, space, type } from './theme';
+// The audition player on the recording screen: the waveform with the beat grid and a playhead to seek on, the
+// transport (skip by a bar, count-in), the tempo control, candidate tempos and the chosen one, a passage loop
+// with step-up practice, the levels of click and music, and export as WAV. The player itself is client/player.ts;
+// this component keeps the screen and the player in step.
+import React, { useCallback, useEffect, useRef, useState } from 'react';
+import { Platform, Text, useWindowDimensions, View } from 'react-native';
+import { Button, Card, Chip, Heading, Notice, Row, Small } from './ui';
+import { colors, layout, space, type } from './theme';
 import { formatBpm } from './TempoLabel';
-import { nextMarkDown, nextMarkUp } from '../audio/metronome';
-import { AuditionPlayer } from '../client/player';
+import { PlayerWaveform, usePolled } from './audition/PlayerWaveform';
+import { TempoControl } from './audition/TempoControl';
+import { CandidateTempos } from './audition/CandidateTempos';
+import { PassageLoop, type SnapUnit } from './audition/PassageLoop';
+import { SoundLevels } from './audition/SoundLevels';
+import { AuditionPlayer, MAX_SPEED, MIN_SPEED } from '../client/player';
+import { DEFAULT_CLICK_GAIN } from '../client/click-sound';
+import { logPractice, useCandidates } from '../client/hooks';
+import { barAt, barContaining, describePassage, skipBar, snapPassage, type Passage } from '../audio/passage';
+import { passFinished, startStepUp, type StepUpPlan, type StepUpState } from '../audio/step-up';
+import { exportFileName } from '../audio/export';
+import type { PeaksDto, Recording, Song } from '../shared/schemas';
 
-const clampBpm = (bpm: number, original: number) => Math.round(Math.max(original * 0.4, Math.min(original * 2, bpm)) * 10) / 10;
+const tenth = (x: number) => Math.round(x * 10) / 10;
 
-export function AuditionPanel({ audioUrl, beats, downbeats, originalBpm }: { audioUrl: string; beats: number[]; downbeats: number[]; originalBpm: number }) {
+export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { recording: Recording; song: Song | undefined; peaks: PeaksDto | undefined; canEdit: boolean; audioUrl: string }) {
+  const a = recording.analysis!;
+  const originalBpm = recording.originalBpm!;
+  const { width } = useWindowDimensions();
+  const wide = width >= layout.wideFrom;
   const player = useRef<AuditionPlayer | null>(null);
   const [ready, setReady] = useState(false);
   const [failure, setFailure] = useState<string | null>(null);
   const [playing, setPlaying] = useState(false);
-  const [bpm, setBpm] = useState(Math.round(originalBpm * 10) / 10);
-  const [typed, setTyped] = useState('');
+  const [bpm, setBpmState] = useState(tenth(originalBpm));
+  const [countInOn, setCountIn] = useState(false);
   const [clickOn, setClickOn] = useState(true);
-  const [position, setPosition] = useState(0);
-
-  // The grid is read when the player is made; a changed correction does not reload the audio.
-  const grid = useRef({ beats, downbeats, originalBpm });
-  grid.current = { beats, downbeats, originalBpm };
+  const [clickLevel, setClickLevel] = useState(DEFAULT_CLICK_GAIN);
+  const [musicLevel, setMusicLevel] = useState(1);
+  const [loop, setLoopState] = useState<Passage | null>(null);
+  const [selecting, setSelecting] = useState(false);
+  const [unit, setUnit] = useState<SnapUnit>('bar');
+  const [stepUp, setStepUp] = useState<StepUpState | null>(null);
+  const [logged, setLogged] = useState<string | null>(null);
+  const [exporting, setExporting] = useState<string | null>(null);
+  const { candidates } = useCandidates(song?.id);
+  const grid = { beats: a.beats, downbeats: a.downbeats, durationSec: recording.durationSec || a.durationSec };
 
   // Web Audio exists only in the browser, and only after the first render (static rendering has no window).
   useEffect(() => {
     if (Platform.OS !== 'web') return;
-    const p = new AuditionPlayer(audioUrl, grid.current);
+    const p = new AuditionPlayer(audioUrl, { beats: a.beats, downbeats: a.downbeats, originalBpm, meter: a.meter ?? song?.meter ?? null });
     player.current = p;
     p.load().then(() => setReady(true), (e: Error) => setFailure(e.message));
-    // The player stops by itself at the end: keep the button in step with it.
-    const tick = setInterval(() => {
-      setPosition(p.position());
-      setPlaying(p.playing);
-    }, 100);
-    return () => {
-      clearInterval(tick);
-      p.dispose();
-    };
-  }, [audioUrl]);
+    p.onEnded = () => setPlaying(false);
+    return () => p.dispose();
+    // The grid is read when the player is made; a correction reloads it with the new tempo.
+  }, [audioUrl, originalBpm]);
 
-  const apply = (next: number) => {
-    const v = clampBpm(next, originalBpm);
-    setBpm(v);
+  const getPosition = useCallback(() => player.current?.position() ?? 0, []);
+
+  const apply = useCallback((next: number) => {
+    const v = tenth(Math.max(originalBpm * MIN_SPEED, Math.min(originalBpm * MAX_SPEED, next)));
+    setBpmState(v);
     player.current?.setBpm(v);
+  }, [originalBpm]);
+
+  const togglePlay = useCallback(() => {
+    const p = player.current;
+    if (!p || !ready) return;
+    const wasPlaying = p.playing;
+    if (wasPlaying) p.pause();
+    else void p.play();
+    setPlaying(!wasPlaying);
+  }, [ready]);
+
+  const seek = useCallback((sec: number) => {
+    player.current?.seek(sec);
+    if (player.current && !player.current.loopRegion) setLoopState(null);
+  }, []);
+  const skip = useCallback((dir: 1 | -1) => seek(skipBar(getPosition(), grid, dir)), [seek, getPosition, grid.downbeats]);
+
+  const setLoop = (p: Passage | null) => {
+    setLoopState(p);
+    player.current?.setLoop(p);
+    if (!p) setStepUp(null);
   };
-  const pct = Math.round((bpm / originalBpm) * 100);
+
+  // ── step-up: the player reports each pass through the loop ──────────────────────────────────────────
+  const run = useRef<{ state: StepUpState; notClean: boolean; startedAt: number } | null>(null);
+  const finishRun = async (s: StepUpState) => {
+    const r = run.current;
+    run.current = null;
+    if (!r || s.repetitions === 0 || !song) return;
+    const minutes = Math.round(((Date.now() - r.startedAt) / 60000) * 10) / 10;
+    const passage = loop ? describePassage(loop, a.downbeats) : null;
+    const reached = s.reachedBpm ?? s.plan.startBpm;
+    if (!canEdit) return;
+    try {
+      await logPractice(song.id, { passage, startBpm: s.plan.startBpm, reachedBpm: reached, repetitions: s.repetitions, minutes, clean: s.done });
+      setLogged(`Logged: ${passage ?? 'the recording'}, ${formatBpm(s.plan.startBpm)} → ${formatBpm(reached)} BPM, ${s.repetitions} repetitions, ${minutes} min.`);
+    } catch (e) {
+      setLogged(null);
+      setFailure(`The practice entry was not saved: ${(e as Error).message}`);
+    }
+  };
+  useEffect(() => {
+    const p = player.current;
+    if (!p) return;
+    p.onLoopPass = () => {
+      const r = run.current;
+      if (!r) return;
+      const next = passFinished(r.state, !r.notClean);
+      r.state = next;
+      r.notClean = false;
+      setStepUp(next);
+      if (next.done) {
+        p.pause();
+        setPlaying(false);
+        void finishRun(next);
+      } else if (next.bpm !== bpm) apply(next.bpm);
+    };
+  });
+  const startRun = (plan: StepUpPlan) => {
+    const s = startStepUp(plan);
+    run.current = { state: s, notClean: false, startedAt: Date.now() };
+    setStepUp(s);
+    setLogged(null);
+    apply(s.bpm);
+    if (loop) player.current?.seek(loop.start);
+    if (!player.current?.playing) {
+      void player.current?.play();
+      setPlaying(true);
+    }
+  };
+  const endRun = () => {
+    const s = run.current?.state;
+    player.current?.pause();
+    setPlaying(false);
+    if (s) void finishRun(s);
+    setStepUp(null);
+  };
+
+  // ── keyboard on wide screens: space, arrows, number keys ────────────────────────────────────────────
+  const keys = useRef<(e: KeyboardEvent) => void>(() => undefined);
+  keys.current = (e: KeyboardEvent) => {
+    const target = e.target as HTMLElement | null;
+    if (target && (target.tagName === 'INPUT' || target.tagName === 'TEXTAREA' || target.isContentEditable)) return;
+    if (e.key === ' ') togglePlay();
+    else if (e.key === 'ArrowLeft') skip(-1);
+    else if (e.key === 'ArrowRight') skip(1);
+    else if (e.key === 'ArrowUp') apply(bpm + 1);
+    else if (e.key === 'ArrowDown') apply(bpm - 1);
+    else if (/^[1-9]$/.test(e.key) && candidates?.[Number(e.key) - 1]) apply(candidates[Number(e.key) - 1]!.bpm);
+    else return;
+    e.preventDefault();
+  };
+  useEffect(() => {
+    if (Platform.OS !== 'web') return;
+    const listener = (e: KeyboardEvent) => keys.current(e);
+    window.addEventListener('keydown', listener);
+    return () => window.removeEventListener('keydown', listener);
+  }, []);
+
+  const exportWav = async (passage: Passage | null) => {
+    const p = player.current;
+    if (!p) return;
+    const label = passage ? describePassage(passage, a.downbeats) : null;
+    setExporting(label ?? 'the recording');
+    // Let the button show it is busy before the (blocking) render starts.
+    await new Promise((r) => setTimeout(r, 30));
+    try {
+      const wav = p.renderWav(bpm, passage);
+      const url = URL.createObjectURL(new Blob([wav as BlobPart], { type: 'audio/wav' }));
+      const link = document.createElement('a');
+      link.href = url;
+      link.download = exportFileName(recording.label || song?.title || recording.originalName || 'recording', bpm, label);
+      document.body.appendChild(link);
+      link.click();
+      link.remove();
+      setTimeout(() => URL.revokeObjectURL(url), 60_000);
+    } catch (e) {
+      setFailure(`The export failed: ${(e as Error).message}`);
+    } finally {
+      setExporting(null);
+    }
+  };
+
+  const loopLabel = loop ? describePassage(loop, a.downbeats) : null;
+  const defaultPlan: StepUpPlan = {
+    startBpm: tenth(Math.max(originalBpm * MIN_SPEED, (song?.workingBpm ?? originalBpm * 0.7))),
+    stepBpm: 4,
+    repsPerStep: 3,
+    goalBpm: tenth(Math.min(originalBpm * MAX_SPEED, song?.goalBpm ?? originalBpm)),
+  };
 
   return (
-    <Card testID="audition">
-      <Heading level={3}>Listen at another tempo</Heading>
-      {failure ? <Notice tone="error">{failure}</Notice> : null}
-      <View style={{ flexDirection: 'row', alignItems: 'baseline', gap: space.md, flexWrap: 'wrap' }}>
-        <Text style={[type.tempo, { color: colors.ink }]} testID="playback-bpm">
-          {formatBpm(bpm)}
-          <Text style={[type.h3, { color: colors.muted }]}> BPM</Text>
-        </Text>
-        <Text style={[type.label, { color: colors.muted }]} testID="playback-percent">
-          {pct} % of {formatBpm(Math.round(originalBpm * 10) / 10)}
-        </Text>
+    <>
+      <Card testID="audition">
+        <Heading level={3}>Listen at another tempo</Heading>
+        {failure ? <Notice tone="error">{failure}</Notice> : null}
+        {peaks ? (
+          <PlayerWaveform minMax={peaks.minMax} durationSec={peaks.durationSec} beats={a.beats} downbeats={a.downbeats} getPosition={getPosition}
+            loop={loop} selecting={selecting} onSeek={seek}
+            onSelect={(from, to) => {
+              setSelecting(false);
+              const p = snapPassage(grid, from, to, unit);
+              if (p) setLoop(p);
+            }} />
+        ) : null}
+        <Small>Thin lines are beats, amber lines bar starts. Tap or drag on the waveform to move; mark a passage to loop it.</Small>
+        <PositionReadout getPosition={getPosition} downbeats={a.downbeats} durationSec={grid.durationSec} />
+        <Row>
+          <Chip label="‹ Bar" hint="Back a bar" onPress={() => skip(-1)} testID="bar-back" />
+          <Button label={playing ? 'Pause' : 'Play'} disabled={!ready} onPress={togglePlay} testID="play" />
+          <Chip label="Bar ›" hint="Forward a bar" onPress={() => skip(1)} testID="bar-forward" />
+          <Chip label="Count-in" hint="Count in one bar before playing" selected={countInOn}
+            onPress={() => {
+              if (player.current) player.current.countInOn = !countInOn;
+              setCountIn(!countInOn);
+            }} testID="count-in" />
+        </Row>
+        {!ready && !failure ? <Small>Loading the audio…</Small> : null}
+        {wide ? <Small>Keys: space plays and pauses, ← → skip a bar, ↑ ↓ change the tempo by 1 BPM, 1–9 pick a candidate.</Small> : null}
+        <TempoControl bpm={bpm} originalBpm={originalBpm} song={song} onChange={apply} />
+      </Card>
+
+      <View style={wide ? { flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' } : { gap: space.lg }}>
+      <View style={wide ? { flex: 1, gap: space.lg } : { gap: space.lg }}>
+      {song ? (
+        <Card>
+          <Heading level={3}>Candidate tempos</Heading>
+          <CandidateTempos song={song} bpm={bpm} canEdit={canEdit} wide={wide} onHop={apply} />
+        </Card>
+      ) : null}
+
+      <Card>
+        <Heading level={3}>Loop a passage</Heading>
+        <PassageLoop
+          loop={loop}
+          loopLabel={loopLabel}
+          selecting={selecting}
+          unit={unit}
+          stepUp={stepUp}
+          defaultPlan={defaultPlan}
+          canLog={canEdit}
+          lastLogged={logged}
+          onSelecting={setSelecting}
+          onUnit={setUnit}
+          onThisBar={() => {
+            const bar = barContaining(getPosition(), grid);
+            if (bar) setLoop(bar);
+          }}
+          onClear={() => setLoop(null)}
+          onStartStepUp={startRun}
+          onNotClean={() => run.current && (run.current.notClean = true)}
+          onEndStepUp={endRun}
+        />
+      </Card>
+
       </View>
-      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Step label="◂ mark" onPress={() => apply(nextMarkDown(bpm))} />
-        <Step label="−1" onPress={() => apply(bpm - 1)} />
-        <Step label="+1" onPress={() => apply(bpm + 1)} />
-        <Step label="mark ▸" onPress={() => apply(nextMarkUp(bpm))} />
-        <Step label="75 %" onPress={() => apply(originalBpm * 0.75)} />
-        <Step label="100 %" onPress={() => apply(originalBpm)} />
-      </View>
-      <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'flex-end' }}>
-        <View style={{ flex: 1 }}>
-          <Field label="Exact tempo (BPM)" value={typed} onChangeText={setTyped} inputMode="decimal" testID="exact-bpm"
-            onSubmitEditing={() => typed && apply(Number(typed.replace(',', '.')))} />
-        </View>
-        <Button label="Set" kind="secondary" onPress={() => typed && apply(Number(typed.replace(',', '.')))} testID="set-bpm" />
-      </View>
-      <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center', flexWrap: 'wrap' }}>
-        <Button label={playing ? 'Pause' : 'Play'} disabled={!ready} testID="play"
-          onPress={() => {
-            const p = player.current;
-            if (!p) return;
-            if (playing) p.pause();
-            else void p.play();
-            setPlaying(!playing);
+      <View style={wide ? { flex: 1, gap: space.lg } : { gap: space.lg }}>
+      <Card>
+        <Heading level={3}>Click and levels</Heading>
+        <SoundLevels clickOn={clickOn} clickLevel={clickLevel} musicLevel={musicLevel}
+          onClickOn={(on) => {
+            if (player.current) player.current.clickOn = on;
+            setClickOn(on);
+          }}
+          onClickLevel={(v) => {
+            player.current?.setClickVolume(v);
+            setClickLevel(v);
+          }}
+          onMusicLevel={(v) => {
+            player.current?.setMusicVolume(v);
+            setMusicLevel(v);
           }} />
-        <Button label={clickOn ? 'Click on' : 'Click off'} kind="secondary"
-          onPress={() => {
-            if (player.current) player.current.clickOn = !clickOn;
-            setClickOn(!clickOn);
-          }} />
-        <Small>
-          <Text testID="playback-position">{position.toFixed(1)}</Text> s
-        </Small>
+      </Card>
+
+      <Card>
+        <Heading level={3}>Take it with you</Heading>
+        <Small>Render at {formatBpm(bpm)} BPM, pitch kept, as a WAV file.</Small>
+        <Row>
+          <Button label={exporting === 'the recording' ? 'Rendering…' : 'Download the recording'} kind="secondary" disabled={!ready || exporting !== null} onPress={() => void exportWav(null)} testID="export-recording" />
+          {loop ? <Button label={exporting && exporting !== 'the recording' ? 'Rendering…' : `Download ${loopLabel}`} kind="secondary" disabled={!ready || exporting !== null} onPress={() => void exportWav(loop)} testID="export-loop" /> : null}
+        </Row>
+      </Card>
       </View>
-      <Notice tone="caution">
-        Keep the volume moderate: long practice at high headphone levels harms hearing (WHO–ITU H.870 safe listening). The
-        click starts quiet; turn the music down before you turn the click up.
-      </Notice>
-    </Card>
+      </View>
+    </>
   );
 }
 
-function Step({ label, onPress }: { label: string; onPress: () => void }) {
+const clock = (s: number) => `${Math.floor(s / 60)}:${(s % 60).toFixed(1).padStart(4, '0')}`;
+
+function PositionReadout({ getPosition, downbeats, durationSec }: { getPosition: () => number; downbeats: number[]; durationSec: number }) {
+  const t = usePolled(getPosition, 100);
+  const bar = barAt(t, downbeats);
   return (
-    <Pressable role="button" accessibilityLabel={label} onPress={onPress}
-      style={{ minHeight: layout.minTouch, minWidth: 56, alignItems: 'center', justifyContent: 'center', paddingHorizontal: space.md, borderRadius: radius.sm, borderWidth: 1.5, borderColor: colors.line, backgroundColor: colors.card }}>
-      <Text style={[type.label, { color: colors.ink }]}>{label}</Text>
-    </Pressable>
+    <Text style={[type.label, { color: colors.ink }]}>
+      {bar === 0 ? 'Pickup' : 'Bar '}
+      <Text testID="playback-bar">{bar === 0 ? '' : bar}</Text>
+      <Text style={{ color: colors.muted }}>
+        {'  ·  '}
+        <Text testID="playback-position" accessibilityLabel={`${t.toFixed(1)} seconds`}>{clock(t)}</Text> / {clock(durationSec)}
+      </Text>
+    </Text>
   );
 }

@@ -34,6 +34,8 @@ export function Waveform({
   }
   const peak = Math.max(0.05, ...cols.map((c) => Math.max(-c.lo, c.hi)));
   const downSet = new Set(downbeats.map((d) => Math.round(d * 100)));
+  // Number every bar while they are few, every second or fourth when they would crowd a phone's width.
+  const labelEvery = downbeats.length <= 12 ? 1 : downbeats.length <= 24 ? 2 : 4;
   return (
     <View testID={testID} accessibilityLabel={`Waveform with ${beats.length} beats`} style={{ height: height + 16, width: '100%' }}>
       <View style={{ position: 'absolute', top: 16, left: 0, right: 0, height, flexDirection: 'row', alignItems: 'center' }}>
@@ -57,7 +59,7 @@ export function Waveform({
         return (
           <View key={i} style={{ position: 'absolute', left: `${(t / durationSec) * 100}%`, top: down ? 0 : 16, height: down ? height + 16 : height }}>
             <View style={{ width: down ? 2 : 1, flex: 1, backgroundColor: down ? colors.amber : colors.ink, opacity: down ? 0.9 : 0.45 }} />
-            {down && bar % 4 === 1 ? (
+            {down && (bar - 1) % labelEvery === 0 ? (
               <Text style={{ position: 'absolute', top: 0, left: 3, fontFamily: fonts.bodyMedium, fontSize: 10, color: colors.amber }}>{bar}</Text>
             ) : null}
           </View>

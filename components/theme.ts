@@ -38,4 +38,4 @@ export const space = { xs: 4, sm: 8, md: 12, lg: 16, xl: 24, xxl: 32 };
 export const radius = { sm: 8, md: 12, lg: 18 };
 
 /** Wide screens get the navigation beside the content and a capped reading width. */
-export const layout = { wideFrom: 900, contentMax: 760, railWidth: 220, minTouch: 44 };
+export const layout = { wideFrom: 900, contentMax: 760, wideContentMax: 1120, railWidth: 220, minTouch: 44 };

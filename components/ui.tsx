@@ -3,10 +3,11 @@ import React from 'react';
 import { ActivityIndicator, Pressable, ScrollView, StyleSheet, Text, TextInput, View, type TextInputProps, type ViewStyle } from 'react-native';
 import { colors, layout, radius, space, type } from './theme';
 
-export function Screen({ children, testID }: { children: React.ReactNode; testID?: string }) {
+/** A scrolling page with a capped reading width; `wide` pages (the player) may use more of a big screen. */
+export function Screen({ children, testID, wide }: { children: React.ReactNode; testID?: string; wide?: boolean }) {
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.scrollContent} testID={testID}>
-      <View style={styles.column}>{children}</View>
+      <View style={[styles.column, wide && { maxWidth: layout.wideContentMax }]}>{children}</View>
     </ScrollView>
   );
 }
@@ -114,6 +115,34 @@ export function Notice({ children, tone = 'info' }: { children: React.ReactNode;
   );
 }
 
+/** A compact button for steps, toggles and picks (large enough to hit on a phone); `selected` shows a toggle on. */
+export function Chip({ label, onPress, selected, disabled, testID, hint }: { label: string; onPress: () => void; selected?: boolean; disabled?: boolean; testID?: string; hint?: string }) {
+  return (
+    <Pressable
+      role="button"
+      accessibilityLabel={hint ?? label}
+      accessibilityState={{ selected: !!selected, disabled: !!disabled }}
+      aria-pressed={selected === undefined ? undefined : selected}
+      testID={testID}
+      onPress={onPress}
+      disabled={disabled}
+      style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [
+        styles.chip,
+        selected && { backgroundColor: colors.teal, borderColor: colors.teal },
+        !selected && (pressed || hovered) && { backgroundColor: colors.tealSoft },
+        disabled && { opacity: 0.5 },
+      ]}
+    >
+      <Text style={[type.label, { color: selected ? colors.white : colors.ink }]}>{label}</Text>
+    </Pressable>
+  );
+}
+
+/** Chips in a row that wraps. */
+export function Row({ children, gap = space.sm, align = 'center' }: { children: React.ReactNode; gap?: number; align?: 'center' | 'flex-end' | 'baseline' | 'flex-start' }) {
+  return <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap, alignItems: align }}>{children}</View>;
+}
+
 /** What a screen shows before there is anything in it: what this place is for and the first thing to do. */
 export function EmptyState({ title, children, action }: { title: string; children: React.ReactNode; action?: React.ReactNode }) {
   return (
@@ -164,4 +193,15 @@ const styles = StyleSheet.create({
     color: colors.ink,
   },
   notice: { borderRadius: radius.sm, padding: space.md },
+  chip: {
+    minHeight: layout.minTouch,
+    minWidth: 52,
+    paddingHorizontal: space.md,
+    borderRadius: radius.sm,
+    borderWidth: 1.5,
+    borderColor: colors.line,
+    backgroundColor: colors.card,
+    alignItems: 'center',
+    justifyContent: 'center',
+  },
 });

@@ -3,11 +3,18 @@ import type { Role, SongInput } from '../shared/schemas';
 
 export const DEMO_PASSWORD = 'harbour-lane-demo';
 
+/** A recording that comes with a demo song: an invented piece from fixtures/demo/ (`npm run corpus -- --demo`). */
+export interface DemoRecording {
+  file: string;
+  kind: 'reference' | 'take';
+  label: string;
+}
+
 export interface DemoPerson {
   name: string;
   email: string;
   role: Role;
-  songs: SongInput[];
+  songs: (SongInput & { recordings?: DemoRecording[] })[];
 }
 
 export const demoPeople: DemoPerson[] = [
@@ -28,7 +35,14 @@ export const demoPeople: DemoPerson[] = [
     email: 'ilya@harbourlane.example',
     role: 'player',
     songs: [
-      { title: 'Copperline Reel', composer: 'trad. arr. Harbour Lane', meter: '4/4', goalBpm: 112, workingBpm: 88 },
+      {
+        title: 'Copperline Reel',
+        composer: 'trad. arr. Harbour Lane',
+        meter: '4/4',
+        goalBpm: 112,
+        workingBpm: 88,
+        recordings: [{ file: 'drums-bass-124.mp3', kind: 'reference', label: 'Band run-through, Pier Street rehearsal room' }],
+      },
       { title: 'Lanterns over Kessel Bay', composer: 'Ilya Brandt', meter: '6/8', goalBpm: 72, workingBpm: 72, chosenBpm: 70 },
     ],
   },
@@ -36,7 +50,16 @@ export const demoPeople: DemoPerson[] = [
     name: 'Sanne Okafor',
     email: 'sanne@harbourlane.example',
     role: 'player',
-    songs: [{ title: 'Nine Steps Waltz', composer: 'Pieter Vahl', meter: '3/4', goalBpm: 152, workingBpm: 126 }],
+    songs: [
+      {
+        title: 'Nine Steps Waltz',
+        composer: 'Pieter Vahl',
+        meter: '3/4',
+        goalBpm: 152,
+        workingBpm: 126,
+        recordings: [{ file: 'waltz-150.mp3', kind: 'reference', label: 'Piano and strings, Harbour Lane recital 2025' }],
+      },
+    ],
   },
   {
     name: 'Tomás Reyes',

@@ -1,9 +1,16 @@
 // Seeds the demo studio once (a second run finds the teacher and does nothing). Sign-ins go through better-auth.
 import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
 import { auth } from './auth';
 import { Account, User, StudioLink } from './models';
 import { createSong } from './services/songs';
-import { DEMO_PASSWORD, demoPeople, demoStudentEmails, demoTeacherEmail } from './demo-data';
+import { storeRecording } from './services/recordings';
+import { checkAudio } from './analysis/audio-check';
+import { config } from './config';
+import { DEMO_PASSWORD, demoPeople, demoStudentEmails, demoTeacherEmail, type DemoRecording } from './demo-data';
+
+const DEMO_AUDIO = path.resolve(__dirname, '../fixtures/demo');
 
 export async function seedDemo(): Promise<{ created: boolean }> {
   if (await User.findOne({ where: { email: demoTeacherEmail } })) return { created: false };
@@ -16,7 +23,10 @@ export async function seedDemo(): Promise<{ created: boolean }> {
     const id = crypto.randomBytes(16).toString('hex');
     const user = await User.create({ id, name: person.name, email: person.email, emailVerified: true, image: null, role: person.role, createdAt: now, updatedAt: now });
     await Account.create({ id: crypto.randomBytes(16).toString('hex'), userId: id, accountId: id, providerId: 'credential', password: hash, createdAt: now, updatedAt: now });
-    for (const song of person.songs) await createSong(user.id, song);
+    for (const { recordings = [], ...input } of person.songs) {
+      const song = await createSong(user.id, input);
+      for (const r of recordings) await addDemoRecording(song, user.id, r);
+    }
   }
   const teacher = (await User.findOne({ where: { email: demoTeacherEmail } }))!;
   for (const email of demoStudentEmails) {
@@ -24,6 +34,13 @@ export async function seedDemo(): Promise<{ created: boolean }> {
     await StudioLink.create({ teacherId: teacher.id, studentId: student.id });
   }
   return { created: true };
+}
+
+/** Stored and queued as an upload would be; the server analyses it when it starts. */
+async function addDemoRecording(song: Awaited<ReturnType<typeof createSong>>, ownerId: string, r: DemoRecording) {
+  const file = path.join(DEMO_AUDIO, r.file);
+  const audio = await checkAudio(file, config.uploads.maxDurationSec);
+  await storeRecording({ song, ownerId, kind: r.kind, label: r.label, originalName: r.file, spoolFile: file, sizeBytes: fs.statSync(file).size, audio });
 }
 
 export function demoSignInTable(): string {

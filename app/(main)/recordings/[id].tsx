@@ -1,5 +1,5 @@
 // A recording: its analysis as it runs, then the tempo with its confidence and related tempos, the beat grid
-// over the waveform, and the player's correction.
+// over the waveform with the audition player, and the player's correction.
 import React from 'react';
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { Text, View } from 'react-native';
@@ -12,7 +12,7 @@ import { apiBase, apiFetch } from '../../../client/api';
 import { formatBpm } from '../../../components/TempoLabel';
 import { formatDuration } from '../../../components/RecordingRow';
 import { colors, space, type } from '../../../components/theme';
-import { correctRecording, usePeaks, useRecording } from '../../../client/hooks';
+import { correctRecording, useMe, usePeaks, useRecording, useSong } from '../../../client/hooks';
 
 import { mutate } from 'swr';
 
@@ -21,13 +21,15 @@ export default function RecordingScreen() {
   const router = useRouter();
   const { recording: r, error } = useRecording(id);
   const peaks = usePeaks(id, r?.status === 'done');
+  const { song } = useSong(r?.songId);
+  const { me } = useMe();
   if (error) return <Screen><Notice tone="error">This recording could not be opened: {error.message}</Notice></Screen>;
   if (!r) return <Loading />;
   const a = r.analysis;
   const bpm = r.originalBpm;
 
   return (
-    <Screen testID="recording">
+    <Screen testID="recording" wide>
       <Button label="‹ Song" kind="quiet" onPress={() => router.navigate(`/songs/${r.songId}` as never)} />
       <View style={{ gap: space.xs }}>
         <Heading>{r.label || r.originalName || 'Recording'}</Heading>
@@ -67,13 +69,13 @@ export default function RecordingScreen() {
             </Small>
             {a.confidence < 0.4 ? <Notice tone="caution">Tactus is not sure about this one: check it by tapping along.</Notice> : null}
           </Card>
-          {peaks ? (
+          {bpm !== null ? (
+            <AuditionPanel key={`${r.id}-${bpm}`} recording={r} song={song} peaks={peaks} canEdit={!!me && r.ownerId === me.id} audioUrl={`${apiBase}/api/recordings/${r.id}/audio`} />
+          ) : peaks ? (
             <Card>
               <Waveform minMax={peaks.minMax} durationSec={peaks.durationSec} beats={a.beats} downbeats={a.downbeats} testID="waveform" />
-              <Small>Thin lines are beats, amber lines bar starts.</Small>
             </Card>
           ) : null}
-          {bpm !== null ? <AuditionPanel audioUrl={`${apiBase}/api/recordings/${r.id}/audio`} beats={a.beats} downbeats={a.downbeats} originalBpm={bpm} /> : null}
           {bpm !== null ? (
             <Card>
               <Heading level={3}>Correct the tempo</Heading>
