@@ -27,10 +27,21 @@ export class PlaybackMap {
     this.segments.push({ at, from, speed });
   }
 
+  /** Take a segment made elsewhere (the audio thread's copy of this timeline), replacing any from its time on. */
+  addSegment(seg: PlaybackSegment) {
+    this.segments = this.segments.filter((s) => s.at < seg.at);
+    this.segments.push({ at: seg.at, from: seg.from, speed: seg.speed });
+  }
+
   private segmentAtContext(t: number): PlaybackSegment {
     let s = this.segments[0]!;
     for (const seg of this.segments) if (seg.at <= t) s = seg;
     return s;
+  }
+
+  /** Speed of playback at context time t. */
+  speedAt(t: number): number {
+    return this.segmentAtContext(t).speed;
   }
 
   /** Seconds into the recording heard at context time t. */
@@ -88,7 +99,49 @@ export function beatsPerBar(meter: string | null): number {
   return Number(m[2]) === 8 && top % 3 === 0 && top > 3 ? top / 3 : top;
 }
 
-/** A plain metronome (click-only mode): clicks at `bpm` from `start` for `bars` bars. */
-export function metronomeClicks(start: number, bpm: number, perBar: number, bars: number): Click[] {
-  return Array.from({ length: perBar * bars }, (_, i) => ({ time: start + (i * 60) / bpm, accent: i % perBar === 0, beat: i }));
+/**
+ * A plain metronome (click-only mode) on the audio clock. A tempo or meter change takes effect from the next
+ * beat, so no beat is dropped or doubled and the bar goes on counting.
+ */
+export class MetronomeTimeline {
+  /** The beat from which the current tempo counts: its context time and its number since the start. */
+  private anchor: { at: number; beat: number };
+
+  constructor(
+    start: number,
+    private bpm: number,
+    private perBar: number,
+  ) {
+    this.anchor = { at: start, beat: 0 };
+  }
+
+  private beatTime(k: number) {
+    return this.anchor.at + ((k - this.anchor.beat) * 60) / this.bpm;
+  }
+
+  /** The first beat at or after context time t. */
+  private nextBeat(t: number) {
+    return Math.max(this.anchor.beat, Math.ceil(this.anchor.beat + ((t - this.anchor.at) * this.bpm) / 60 - 1e-9));
+  }
+
+  /** New tempo and/or meter from the first beat not yet heard at `now` (a beat already scheduled keeps its time). */
+  change(now: number, bpm: number, perBar = this.perBar) {
+    const k = this.nextBeat(now);
+    this.anchor = { at: this.beatTime(k), beat: k };
+    this.bpm = bpm;
+    // A new meter starts its first bar on that beat.
+    if (perBar !== this.perBar) this.barStart = k;
+    this.perBar = perBar;
+  }
+
+  private barStart = 0;
+
+  /** Clicks in [from, to). */
+  clicksBetween(from: number, to: number): Click[] {
+    const out: Click[] = [];
+    for (let k = this.nextBeat(from); this.beatTime(k) < to; k++) {
+      out.push({ time: this.beatTime(k), accent: (k - this.barStart) % this.perBar === 0, beat: k });
+    }
+    return out;
+  }
 }

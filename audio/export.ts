@@ -9,7 +9,7 @@ export function renderAtTempo(audio: StereoBuffer, sampleRate: number, tempo: nu
   const from = passage ? Math.max(0, Math.round(passage.start * sampleRate)) : 0;
   const to = passage ? Math.min(audio.left.length, Math.round(passage.end * sampleRate)) : audio.left.length;
   if (!(to > from)) throw new RangeError('the passage is empty');
-  return stretchOffline({ left: audio.left.subarray(from, to), right: audio.right.subarray(from, to) }, tempo);
+  return stretchOffline({ left: audio.left.subarray(from, to), right: audio.right.subarray(from, to) }, tempo, sampleRate);
 }
 
 /** Float samples (−1…1) to 16-bit integers; out-of-range values are clipped rather than wrapped. */

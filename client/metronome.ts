@@ -1,6 +1,7 @@
-// The plain metronome (click-only mode): any BPM and meter, accent on the first beat of the bar. Clicks are
-// scheduled a little ahead on the audio clock; a tempo or meter change takes effect from the next beat.
-import { beatsPerBar } from '../audio/click';
+// The plain metronome (click-only mode): any BPM and meter, accent on the first beat of the bar. The beats
+// come from MetronomeTimeline (audio/click.ts) and are scheduled a little ahead on the audio clock; a tempo or
+// meter change takes effect from the next beat.
+import { beatsPerBar, MetronomeTimeline } from '../audio/click';
 import { DEFAULT_CLICK_GAIN, newAudioContext, scheduleBlip } from './click-sound';
 
 const LOOKAHEAD_SEC = 0.12;
@@ -9,13 +10,16 @@ export class Metronome {
   private ctx: AudioContext | null = null;
   private gain: GainNode | null = null;
   private timer: ReturnType<typeof setInterval> | null = null;
-  private nextAt = 0;
-  private beatInBar = 0;
+  private timeline: MetronomeTimeline | null = null;
+  private scheduledUntil = 0;
   private planned: { at: number; osc: OscillatorNode }[] = [];
-  bpm = 100;
-  meter = '4/4';
-  running = false;
+  private bpm = 100;
+  private meter = '4/4';
   private volume = DEFAULT_CLICK_GAIN;
+  running = false;
+
+  /** Clicks scheduled so far (what the browser test reads). */
+  clicks = 0;
 
   async start() {
     if (this.running) return;
@@ -24,8 +28,9 @@ export class Metronome {
     this.gain = this.ctx.createGain();
     this.gain.gain.value = this.volume;
     this.gain.connect(this.ctx.destination);
-    this.nextAt = this.ctx.currentTime + 0.05;
-    this.beatInBar = 0;
+    const start = this.ctx.currentTime + 0.05;
+    this.timeline = new MetronomeTimeline(start, this.bpm, beatsPerBar(this.meter));
+    this.scheduledUntil = start;
     this.running = true;
     this.timer = setInterval(() => this.schedule(), 25);
     this.schedule();
@@ -40,6 +45,15 @@ export class Metronome {
     this.gain?.disconnect();
   }
 
+  set(bpm: number, meter: string) {
+    this.bpm = bpm;
+    this.meter = meter;
+    if (this.running && this.timeline && this.ctx) {
+      // Beats already handed to the audio clock stay; the change counts from the first one not yet scheduled.
+      this.timeline.change(this.scheduledUntil, bpm, beatsPerBar(meter));
+    }
+  }
+
   setVolume(v: number) {
     this.volume = Math.max(0, Math.min(1, v));
     if (this.gain) this.gain.gain.value = this.volume;
@@ -52,13 +66,12 @@ export class Metronome {
 
   private schedule() {
     const ctx = this.ctx!;
-    const perBar = beatsPerBar(this.meter);
+    const until = ctx.currentTime + LOOKAHEAD_SEC;
     this.planned = this.planned.filter((p) => p.at > ctx.currentTime - 0.2);
-    while (this.nextAt < ctx.currentTime + LOOKAHEAD_SEC) {
-      if (this.beatInBar >= perBar) this.beatInBar = 0;
-      this.planned.push({ at: this.nextAt, osc: scheduleBlip(ctx, this.gain!, this.nextAt, this.beatInBar === 0) });
-      this.beatInBar += 1;
-      this.nextAt += 60 / this.bpm;
+    for (const c of this.timeline!.clicksBetween(this.scheduledUntil, until)) {
+      this.planned.push({ at: c.time, osc: scheduleBlip(ctx, this.gain!, c.time, c.accent) });
+      this.clicks++;
     }
+    this.scheduledUntil = Math.max(this.scheduledUntil, until);
   }
 }

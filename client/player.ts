@@ -1,24 +1,24 @@
-// The audition player in the browser: the recording through our Stretcher (audio/stretch.ts) in the Web Audio
-// graph, and a click scheduled on the recording's beat grid through the playback timeline (audio/click.ts).
-//
-// A tempo change is applied at the start of the next audio block: a new stretcher starts at the exact musical
-// position the timeline says is being heard there, cross-faded from the old one. (SoundTouch keeps up to
-// ~16 k frames of already-stretched audio queued, so changing its tempo in place would be heard a third of a
-// second late.) Loops run on a straight timeline over a looped source (audio/passage.ts).
-import { loopedSource, planarSource, Stretcher, type StereoBuffer } from '../audio/stretch';
-import { beatsPerBar as perBarOf, clicksBetween, countIn, PlaybackMap } from '../audio/click';
-import { loopPass, wrapIntoLoop, type Passage } from '../audio/passage';
+// The audition player in the browser. The recording is stretched block by block by LivePlayback
+// (audio/live-playback.ts) on the audio thread, in an AudioWorklet (audio/worklet/stretch-processor.ts); where
+// the browser offers none (an insecure origin, an old browser) the same code runs in a ScriptProcessor on the
+// main thread. The main thread keeps a copy of the playback timeline for the click, which it schedules on the
+// recording's beat grid (audio/click.ts), and for the position shown.
+import { beatsPerBar as perBarOf, clicksBetween, countIn, PlaybackMap, type PlaybackSegment } from '../audio/click';
+import { LivePlayback, type StartOptions } from '../audio/live-playback';
+import { wrapIntoLoop, type Passage } from '../audio/passage';
 import { encodeWav, renderAtTempo } from '../audio/export';
+import { heardOffsetSec, type StereoBuffer } from '../audio/stretch';
+import type { FromWorklet, ToWorklet } from '../audio/worklet/stretch-processor';
 import { DEFAULT_CLICK_GAIN, newAudioContext, scheduleBlip } from './click-sound';
 
-/** Frames per audio block: ~23 ms at 44.1 kHz, so a tempo change is heard within about one block. */
-export const BLOCK = 1024;
-const CROSSFADE = 256;
+/** Frames per block of the ScriptProcessor fallback (the worklet renders 128 at a time). */
+const FALLBACK_BLOCK = 1024;
 const LOOKAHEAD_SEC = 0.12;
 /** Time between pressing Play and the first sound, so the first block is never late. */
 const START_MARGIN_SEC = 0.06;
 export const MIN_SPEED = 0.4;
 export const MAX_SPEED = 2;
+const WORKLET_URL = `${process.env.EXPO_BASE_URL ?? ''}/stretch-processor.js`;
 
 export interface PlayerGrid {
   beats: number[];
@@ -27,9 +27,10 @@ export interface PlayerGrid {
   meter: string | null;
 }
 
-/** Figures the benchmark reads: how late tempo changes are heard, and how busy the audio callback is. */
+/** Figures the benchmark reads: how late tempo changes are heard, and how busy the audio rendering is. */
 export interface PlayerStats {
-  /** Seconds from each tempo change to the first block played at the new tempo. */
+  engine: 'audio-worklet' | 'script-processor';
+  /** Seconds from each tempo change to the first block rendered at the new tempo (audio clock). */
   changeLatencies: number[];
   busyMs: number;
   audioMs: number;
@@ -37,33 +38,37 @@ export interface PlayerStats {
   maxBlockMs: number;
 }
 
+/** The audio-thread half, behind one interface whichever way it runs. */
+interface Engine {
+  send(m: ToWorklet, transfer?: Transferable[]): void;
+  node: AudioNode;
+}
+
 export class AuditionPlayer {
   private ctx: AudioContext | null = null;
   private buffer: AudioBuffer | null = null;
   private audio: StereoBuffer | null = null;
-  private node: ScriptProcessorNode | null = null;
-  private stretcher: Stretcher | null = null;
+  private engine: Engine | null = null;
   private map: PlaybackMap | null = null;
   private timer: ReturnType<typeof setInterval> | null = null;
   private scheduledUntil = 0;
   private scheduled: { at: number; osc: OscillatorNode }[] = [];
   private startFrom = 0;
   private speed = 1;
-  private pending: { speed: number; requestedAt: number } | null = null;
   private musicStartsAt = 0;
-  private nextBlockAt = 0;
-  private passes = 0;
   private musicGain: GainNode | null = null;
   private clickGain: GainNode | null = null;
   private loop: Passage | null = null;
+  /** Numbers each start, so reports from an earlier run that arrive late are ignored. */
+  private run = 0;
   clickOn = true;
   countInOn = false;
   playing = false;
-  /** Called (outside the audio callback) each time playback passes the loop's end. */
+  /** Called each time playback passes the loop's end. */
   onLoopPass: ((pass: number) => void) | null = null;
   /** Called when playback reaches the end of the recording and stops. */
   onEnded: (() => void) | null = null;
-  readonly stats: PlayerStats = { changeLatencies: [], busyMs: 0, audioMs: 0, blocks: 0, maxBlockMs: 0 };
+  readonly stats: PlayerStats = { engine: 'audio-worklet', changeLatencies: [], busyMs: 0, audioMs: 0, blocks: 0, maxBlockMs: 0 };
 
   constructor(private readonly url: string, private readonly grid: PlayerGrid) {}
 
@@ -73,25 +78,25 @@ export class AuditionPlayer {
   get sampleRate() {
     return this.buffer?.sampleRate ?? 44100;
   }
-  get bpm() {
-    return this.grid.originalBpm * (this.pending?.speed ?? this.speed);
-  }
   get loopRegion() {
     return this.loop;
   }
 
   async load(): Promise<void> {
-    this.ctx = newAudioContext();
+    const ctx = newAudioContext();
+    this.ctx = ctx;
     const res = await fetch(this.url, { credentials: 'include' });
     if (!res.ok) throw new Error(`the audio could not be loaded (${res.status})`);
-    this.buffer = await this.ctx.decodeAudioData(await res.arrayBuffer());
+    this.buffer = await ctx.decodeAudioData(await res.arrayBuffer());
     const left = this.buffer.getChannelData(0);
     this.audio = { left, right: this.buffer.numberOfChannels > 1 ? this.buffer.getChannelData(1) : left };
-    this.musicGain = this.ctx.createGain();
-    this.musicGain.connect(this.ctx.destination);
-    this.clickGain = this.ctx.createGain();
+    this.musicGain = ctx.createGain();
+    this.musicGain.connect(ctx.destination);
+    this.clickGain = ctx.createGain();
     this.clickGain.gain.value = DEFAULT_CLICK_GAIN;
-    this.clickGain.connect(this.ctx.destination);
+    this.clickGain.connect(ctx.destination);
+    this.engine = (await this.workletEngine(ctx)) ?? this.scriptProcessorEngine(ctx);
+    this.engine.node.connect(this.musicGain);
   }
 
   /** Seconds into the recording being heard now. */
@@ -104,8 +109,8 @@ export class AuditionPlayer {
   /** Playback tempo in BPM; while playing it is heard from the next audio block on, at the same beat. */
   setBpm(bpm: number) {
     const speed = Math.max(MIN_SPEED, Math.min(MAX_SPEED, bpm / this.grid.originalBpm));
-    if (this.playing && this.ctx) this.pending = { speed, requestedAt: this.ctx.currentTime };
-    else this.speed = speed;
+    this.speed = speed;
+    if (this.playing && this.ctx) this.engine?.send({ type: 'speed', speed, requestedAt: this.ctx.currentTime });
   }
 
   /** Click level 0…1 (linear gain). */
@@ -124,109 +129,43 @@ export class AuditionPlayer {
     this.pause();
     this.loop = p && p.end > p.start ? p : null;
     if (this.loop) this.startFrom = this.loop.start;
-    this.passes = 0;
     if (wasPlaying) void this.play();
   }
 
   async play() {
-    if (!this.ctx || !this.audio || this.playing) return;
+    if (!this.ctx || !this.engine || this.playing) return;
+    this.playing = true;
     await this.ctx.resume();
     const ctx = this.ctx;
-    const sr = this.sampleRate;
     if (!this.loop && this.startFrom >= this.durationSec - 0.05) this.startFrom = 0;
-    if (this.pending) {
-      this.speed = this.pending.speed;
-      this.pending = null;
-    }
-    this.stretcher = this.newStretcher(this.startFrom, this.speed);
-    this.passes = this.loop ? loopPass(this.startFrom, this.loop) : 0;
 
     // The music comes in after the count-in bar, so that the count-in's beats run on into the recording's.
     const now = ctx.currentTime + START_MARGIN_SEC;
-    let musicStartsAt = now;
-    const playbackBpm = this.grid.originalBpm * this.speed;
+    let startsAt = now;
     if (this.countInOn) {
+      const perBar = perBarOf(this.grid.meter);
+      const playbackBpm = this.grid.originalBpm * this.speed;
       const firstBeat = this.grid.beats.find((b) => b >= this.startFrom - 1e-6);
       const toFirstBeat = firstBeat === undefined ? 0 : (firstBeat - this.startFrom) / this.speed;
-      const bar = (perBarOf(this.grid.meter) * 60) / playbackBpm;
-      musicStartsAt = now + Math.max(0, bar - toFirstBeat);
-      for (const c of countIn(musicStartsAt + toFirstBeat, perBarOf(this.grid.meter), playbackBpm)) this.click(c.time, c.accent);
+      startsAt = now + Math.max(0, (perBar * 60) / playbackBpm - toFirstBeat);
+      for (const c of countIn(startsAt + toFirstBeat, perBar, playbackBpm)) this.click(c.time + heardOffsetSec(this.speed), c.accent);
     }
-    this.musicStartsAt = musicStartsAt;
-    this.map = new PlaybackMap(musicStartsAt, this.startFrom, this.speed);
-    this.scheduledUntil = musicStartsAt;
-    this.nextBlockAt = 0;
-
-    const node = ctx.createScriptProcessor(BLOCK, 2, 2);
-    const frames = new Float32Array(2 * BLOCK);
-    const fade = new Float32Array(2 * CROSSFADE);
-    node.onaudioprocess = (e) => {
-      const t0 = performance.now();
-      const outL = e.outputBuffer.getChannelData(0);
-      const outR = e.outputBuffer.getChannelData(1);
-      // Chromium reports when this block will be heard; count blocks ourselves where it does not.
-      const blockAt = Number.isFinite(e.playbackTime) && e.playbackTime > 0 ? e.playbackTime : this.nextBlockAt || ctx.currentTime;
-      this.nextBlockAt = blockAt + BLOCK / sr;
-      const silent = Math.max(0, Math.min(BLOCK, Math.round((this.musicStartsAt - blockAt) * sr)));
-      outL.fill(0, 0, silent);
-      outR.fill(0, 0, silent);
-      if (silent < BLOCK) {
-        const at = blockAt + silent / sr;
-        let fadeFrames = 0;
-        if (this.pending && this.map) {
-          // Restart the stretch where the timeline says this block begins, and keep the old one for a short fade.
-          fadeFrames = this.stretcher!.extract(fade, CROSSFADE);
-          const { speed, requestedAt } = this.pending;
-          this.pending = null;
-          this.stretcher = this.newStretcher(this.map.recordingTime(at), speed);
-          this.map.changeSpeed(at, speed);
-          this.speed = speed;
-          this.cancelClicksFrom(at);
-          this.stats.changeLatencies.push(at - requestedAt);
-        }
-        const n = BLOCK - silent;
-        const got = this.stretcher!.extract(frames, n);
-        for (let i = 0; i < n; i++) {
-          let l = i < got ? frames[2 * i]! : 0;
-          let r = i < got ? frames[2 * i + 1]! : 0;
-          if (i < fadeFrames) {
-            const w = i / fadeFrames;
-            l = l * w + fade[2 * i]! * (1 - w);
-            r = r * w + fade[2 * i + 1]! * (1 - w);
-          }
-          outL[silent + i] = l;
-          outR[silent + i] = r;
-        }
-        if (this.loop && this.map) {
-          const pass = loopPass(this.map.recordingTime(at), this.loop);
-          if (pass > this.passes) {
-            this.passes = pass;
-            setTimeout(() => this.onLoopPass?.(pass), 0);
-          }
-        }
-      }
-      const busy = performance.now() - t0;
-      this.stats.busyMs += busy;
-      this.stats.audioMs += (BLOCK / sr) * 1000;
-      this.stats.blocks += 1;
-      this.stats.maxBlockMs = Math.max(this.stats.maxBlockMs, busy);
-    };
-    node.connect(this.musicGain!);
-    this.node = node;
-    this.playing = true;
+    const options: StartOptions = { fromSec: this.startFrom, speed: this.speed, startsAt, loop: this.loop };
+    this.musicStartsAt = startsAt;
+    this.map = new PlaybackMap(startsAt, this.startFrom, this.speed);
+    this.scheduledUntil = startsAt;
+    this.run += 1;
+    this.engine.send({ type: 'start', options, run: this.run });
     this.timer = setInterval(() => this.tick(), 25);
   }
 
   pause() {
     if (!this.playing) return;
     this.startFrom = this.position();
-    if (this.pending) this.speed = this.pending.speed;
-    this.pending = null;
     this.playing = false;
     if (this.timer) clearInterval(this.timer);
+    this.engine?.send({ type: 'stop' });
     this.cancelClicksFrom(0);
-    this.node?.disconnect();
-    this.node = null;
   }
 
   seek(sec: number) {
@@ -244,31 +183,97 @@ export class AuditionPlayer {
     return encodeWav(renderAtTempo(this.audio, this.sampleRate, speed, passage), this.sampleRate);
   }
 
+  /** Starts the figures afresh (the benchmark measures one phase at a time). */
+  resetStats() {
+    Object.assign(this.stats, { changeLatencies: [], busyMs: 0, audioMs: 0, blocks: 0, maxBlockMs: 0 });
+    this.engine?.send({ type: 'reset-stats' });
+  }
+
   dispose() {
     this.pause();
     void this.ctx?.close();
   }
 
-  private newStretcher(fromSec: number, speed: number): Stretcher {
-    const sr = this.sampleRate;
-    const source = this.loop
-      ? loopedSource(this.audio!, { startFrame: Math.round(this.loop.start * sr), endFrame: Math.round(this.loop.end * sr) })
-      : planarSource(this.audio!);
-    const s = new Stretcher(source, speed);
-    s.seek(fromSec * sr);
-    return s;
+  /** What the audio thread reports. */
+  private receive(m: FromWorklet) {
+    if (m.type !== 'stats' && (m.run !== this.run || !this.playing)) return;
+    if (m.type === 'segment') {
+      if (!this.map) return;
+      const seg: PlaybackSegment = { at: m.at, from: m.from, speed: m.speed };
+      this.map.addSegment(seg);
+      this.cancelClicksFrom(seg.at);
+      this.stats.changeLatencies.push(m.at - m.requestedAt);
+    } else if (m.type === 'pass') {
+      this.onLoopPass?.(m.pass);
+    } else if (m.type === 'stats') {
+      Object.assign(this.stats, { busyMs: m.busyMs, audioMs: m.audioMs, blocks: m.blocks, maxBlockMs: m.maxBlockMs });
+    }
+  }
+
+  private async workletEngine(ctx: AudioContext): Promise<Engine | null> {
+    if (!ctx.audioWorklet || typeof AudioWorkletNode === 'undefined') return null;
+    try {
+      await ctx.audioWorklet.addModule(WORKLET_URL);
+    } catch {
+      return null;
+    }
+    const node = new AudioWorkletNode(ctx, 'tactus-stretch', { numberOfInputs: 0, numberOfOutputs: 1, outputChannelCount: [2] });
+    node.port.onmessage = (e: MessageEvent<FromWorklet>) => this.receive(e.data);
+    // The worklet gets its own copy of the samples; ours stay for export.
+    const left = this.audio!.left.slice();
+    const right = this.audio!.right === this.audio!.left ? left.slice() : this.audio!.right.slice();
+    node.port.postMessage({ type: 'load', left, right } satisfies ToWorklet, [left.buffer, right.buffer]);
+    this.stats.engine = 'audio-worklet';
+    return { node, send: (m, transfer) => node.port.postMessage(m, transfer ?? []) };
+  }
+
+  private scriptProcessorEngine(ctx: AudioContext): Engine {
+    const playback = new LivePlayback(this.audio!, this.sampleRate);
+    const node = ctx.createScriptProcessor(FALLBACK_BLOCK, 0, 2);
+    let nextBlockAt = 0;
+    let run = 0;
+    node.onaudioprocess = (e) => {
+      const t0 = performance.now();
+      // Chromium says when this block will be heard; elsewhere count blocks from the first.
+      const blockAt = Number.isFinite(e.playbackTime) && e.playbackTime > 0 ? e.playbackTime : nextBlockAt || ctx.currentTime;
+      nextBlockAt = blockAt + FALLBACK_BLOCK / ctx.sampleRate;
+      const events = playback.render(e.outputBuffer.getChannelData(0), e.outputBuffer.getChannelData(1), FALLBACK_BLOCK, blockAt);
+      if (events.segment) this.receive({ type: 'segment', run, ...events.segment });
+      if (events.pass !== undefined) setTimeout(() => this.receive({ type: 'pass', run, pass: events.pass! }), 0);
+      const busy = performance.now() - t0;
+      const s = this.stats;
+      s.busyMs += busy;
+      s.audioMs += (FALLBACK_BLOCK / ctx.sampleRate) * 1000;
+      s.blocks += 1;
+      s.maxBlockMs = Math.max(s.maxBlockMs, busy);
+    };
+    this.stats.engine = 'script-processor';
+    return {
+      node,
+      send: (m) => {
+        if (m.type === 'start') {
+          run = m.run;
+          playback.start(m.options);
+        }
+        else if (m.type === 'speed') playback.requestSpeed(m.speed, m.requestedAt);
+        else if (m.type === 'stop') playback.stop();
+      },
+    };
   }
 
   private tick() {
     if (!this.ctx || !this.map) return;
     const until = this.ctx.currentTime + LOOKAHEAD_SEC;
     if (this.clickOn && until > this.scheduledUntil) {
-      for (const c of clicksBetween(this.map, this.grid.beats, this.grid.downbeats, this.scheduledUntil, until, this.loop)) this.click(c.time, c.accent);
+      // The stretched attacks come a little early or late (audio/stretch.ts): the click follows the music.
+      for (const c of clicksBetween(this.map, this.grid.beats, this.grid.downbeats, this.scheduledUntil, until, this.loop)) {
+        this.click(Math.max(this.ctx.currentTime, c.time + heardOffsetSec(this.map.speedAt(c.time))), c.accent);
+      }
     }
     this.scheduledUntil = Math.max(this.scheduledUntil, until);
     const now = this.ctx.currentTime;
     this.scheduled = this.scheduled.filter((s) => s.at > now - 0.2);
-    if (!this.loop && this.ctx.currentTime > this.musicStartsAt && this.map.recordingTime(now) >= this.durationSec) {
+    if (!this.loop && now > this.musicStartsAt && this.map.recordingTime(now) >= this.durationSec) {
       this.pause();
       this.startFrom = this.durationSec;
       this.onEnded?.();
@@ -281,9 +286,10 @@ export class AuditionPlayer {
 
   /** Clicks planned on the old timeline after a change would land off the beat: drop them. */
   private cancelClicksFrom(at: number) {
-    this.scheduledUntil = Math.min(this.scheduledUntil, Math.max(at, this.ctx?.currentTime ?? 0));
+    const now = this.ctx?.currentTime ?? 0;
+    this.scheduledUntil = Math.min(this.scheduledUntil, Math.max(at, now));
     this.scheduled = this.scheduled.filter((s) => {
-      if (s.at < at || s.at < (this.ctx?.currentTime ?? 0)) return true;
+      if (s.at < at || s.at < now) return true;
       s.osc.stop(0);
       s.osc.disconnect();
       return false;

@@ -12,6 +12,7 @@ import { TempoControl } from './audition/TempoControl';
 import { CandidateTempos } from './audition/CandidateTempos';
 import { PassageLoop, type SnapUnit } from './audition/PassageLoop';
 import { SoundLevels } from './audition/SoundLevels';
+import { PracticeLog } from './PracticeLog';
 import { AuditionPlayer, MAX_SPEED, MIN_SPEED } from '../client/player';
 import { DEFAULT_CLICK_GAIN } from '../client/click-sound';
 import { logPractice, useCandidates } from '../client/hooks';
@@ -52,6 +53,8 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
     player.current = p;
     p.load().then(() => setReady(true), (e: Error) => setFailure(e.message));
     p.onEnded = () => setPlaying(false);
+    // The player benchmark (fixtures/bench-player.ts) reads the player's figures from here.
+    (window as unknown as { tactusAudition?: AuditionPlayer }).tactusAudition = p;
     return () => p.dispose();
     // The grid is read when the player is made; a correction reloads it with the new tempo.
   }, [audioUrl, originalBpm]);
@@ -255,6 +258,12 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
           onNotClean={() => run.current && (run.current.notClean = true)}
           onEndStepUp={endRun}
         />
+        {song ? (
+          <View style={{ gap: space.xs }}>
+            <Text style={[type.label, { color: colors.muted }]}>Practice log</Text>
+            <PracticeLog songId={song.id} />
+          </View>
+        ) : null}
       </Card>
 
       </View>

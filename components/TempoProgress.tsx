@@ -5,7 +5,7 @@ import { colors, radius } from './theme';
 import { formatBpm } from './TempoLabel';
 
 /** How far the working tempo has come toward the goal, as a share of the goal. */
-export function TempoProgress({ title, working, goal }: { title: string; working: number | null; goal: number }) {
+export function TempoProgress({ title, working, goal, children }: { title: string; working: number | null; goal: number; children?: React.ReactNode }) {
   const share = working ? Math.min(1, working / goal) : 0;
   return (
     <Card>
@@ -16,6 +16,7 @@ export function TempoProgress({ title, working, goal }: { title: string; working
       <Small>
         {working ? `${formatBpm(working)} of ${formatBpm(goal)} BPM (${Math.round(share * 100)} %)` : `Goal ${formatBpm(goal)} BPM — no working tempo yet`}
       </Small>
+      {children}
     </Card>
   );
 }

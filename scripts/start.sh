@@ -18,7 +18,7 @@ catcher=$!
 trap 'kill $catcher 2>/dev/null || true' EXIT
 
 log "building the web app"
-(cd "$ROOT" && npx expo export --platform web --output-dir dist >"$TACTUS_STATE/logs/web-build.log" 2>&1) \
+(cd "$ROOT" && npm run build:web >"$TACTUS_STATE/logs/web-build.log" 2>&1) \
   || { tail -30 "$TACTUS_STATE/logs/web-build.log" >&2; exit 1; }
 
 "$ROOT/node_modules/.bin/tsx" "$ROOT/server/scripts/seed.ts"

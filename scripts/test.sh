@@ -9,7 +9,7 @@ bash "$ROOT/scripts/ensure-deps.sh"
 bash "$ROOT/scripts/mariadb.sh"
 
 log "building the web app for the browser tests"
-(cd "$ROOT" && npx expo export --platform web --output-dir dist >"$TACTUS_STATE/logs/web-build.log" 2>&1) \
+(cd "$ROOT" && npm run build:web >"$TACTUS_STATE/logs/web-build.log" 2>&1) \
   || { tail -30 "$TACTUS_STATE/logs/web-build.log" >&2; exit 1; }
 
 log "set-up took $(( $(date +%s) - started )) s; running the tests"

@@ -5,6 +5,8 @@ declare module 'soundtouchjs' {
     extract(target: Float32Array, numFrames: number, position: number): number;
   }
   export class SoundTouch {
+    /** The overlap-add stage; setParameters(sampleRate, sequenceMs, seekWindowMs, overlapMs), 0 = automatic. */
+    readonly stretch: { setParameters(sampleRate: number, sequenceMs: number, seekWindowMs: number, overlapMs: number): void };
     tempo: number;
     rate: number;
     pitch: number;

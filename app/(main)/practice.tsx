@@ -1,8 +1,10 @@
-// Practice: the log of sessions and progress toward each goal tempo (the log itself comes with passages).
+// Practice: progress toward each goal tempo with the latest sessions of the log, and a plain metronome.
 import React from 'react';
 import { EmptyState, Heading, Screen, Notice } from '../../components/ui';
 import { useSongs } from '../../client/hooks';
 import { TempoProgress } from '../../components/TempoProgress';
+import { PracticeLog } from '../../components/PracticeLog';
+import { MetronomePanel } from '../../components/MetronomePanel';
 
 export default function Practice() {
   const { songs } = useSongs();
@@ -16,8 +18,13 @@ export default function Practice() {
           session.
         </EmptyState>
       ) : (
-        withGoal.map((s) => <TempoProgress key={s.id} title={s.title} working={s.workingBpm} goal={s.goalBpm!} />)
+        withGoal.map((s) => (
+          <TempoProgress key={s.id} title={s.title} working={s.workingBpm} goal={s.goalBpm!}>
+            <PracticeLog songId={s.id} limit={3} />
+          </TempoProgress>
+        ))
       )}
+      <MetronomePanel />
       <Notice tone="caution">
         Long, repetitive practice strains hands, arms and ears. Warm up, take a short break every 20–30 minutes, and stop if
         anything hurts; your teacher or a health professional can advise you on a routine that suits you.

@@ -1,0 +1,77 @@
+// Click-only mode: a plain metronome at any BPM and meter, with the same tempo steps as the player.
+import React, { useEffect, useRef, useState } from 'react';
+import { Platform, Text } from 'react-native';
+import { Button, Card, Chip, Heading, Notice, Row, Small } from './ui';
+import { colors, type } from './theme';
+import { formatBpm } from './TempoLabel';
+import { Level } from './audition/SoundLevels';
+import { markingsFor, nextMarkDown, nextMarkUp } from '../audio/metronome';
+import { Metronome } from '../client/metronome';
+import { DEFAULT_CLICK_GAIN } from '../client/click-sound';
+
+const METERS = ['2/4', '3/4', '4/4', '5/4', '6/8', '7/8', '12/8'];
+const MIN = 30;
+const MAX = 300;
+
+export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { initialBpm?: number; initialMeter?: string }) {
+  const clock = useRef<Metronome | null>(null);
+  const [bpm, setBpm] = useState(initialBpm);
+  const [meter, setMeter] = useState(initialMeter);
+  const [running, setRunning] = useState(false);
+  const [level, setLevel] = useState(DEFAULT_CLICK_GAIN);
+  useEffect(() => {
+    if (Platform.OS !== 'web') return;
+    const m = new Metronome();
+    m.set(initialBpm, initialMeter);
+    clock.current = m;
+    return () => m.dispose();
+  }, []);
+  const apply = (v: number) => {
+    const next = Math.round(Math.max(MIN, Math.min(MAX, v)) * 10) / 10;
+    setBpm(next);
+    clock.current?.set(next, meter);
+  };
+  const markings = markingsFor(bpm).map((m) => m.name).join(' · ');
+  return (
+    <Card testID="metronome">
+      <Heading level={3}>Metronome</Heading>
+      <Row align="baseline">
+        <Text style={[type.tempo, { color: colors.ink }]} testID="metronome-bpm">
+          {formatBpm(bpm)}
+          <Text style={[type.h3, { color: colors.muted }]}> BPM</Text>
+        </Text>
+        {markings ? <Small>{markings}</Small> : null}
+      </Row>
+      <Row>
+        <Chip label="◂ mark" hint="Previous metronome mark" onPress={() => apply(nextMarkDown(bpm))} />
+        <Chip label="−1" onPress={() => apply(bpm - 1)} />
+        <Chip label="+1" onPress={() => apply(bpm + 1)} />
+        <Chip label="mark ▸" hint="Next metronome mark" onPress={() => apply(nextMarkUp(bpm))} />
+      </Row>
+      <Row>
+        {METERS.map((m) => (
+          <Chip key={m} label={m} selected={meter === m} onPress={() => {
+            setMeter(m);
+            clock.current?.set(bpm, m);
+          }} />
+        ))}
+      </Row>
+      <Row>
+        <Button label={running ? 'Stop' : 'Start'} testID="metronome-start" onPress={() => {
+          const m = clock.current;
+          if (!m) return;
+          if (running) m.stop();
+          else void m.start();
+          setRunning(!running);
+        }} />
+        <Level label="Click" value={level} onChange={(v) => {
+          clock.current?.setVolume(v);
+          setLevel(v);
+        }} testID="metronome-level" />
+      </Row>
+      <Notice tone="caution">
+        Keep the click moderate, above all in headphones: long listening at high levels harms hearing (WHO–ITU H.870, safe listening).
+      </Notice>
+    </Card>
+  );
+}
