@@ -74,6 +74,26 @@ export function loopedSource(audio: StereoBuffer, loop: { startFrame: number; en
   };
 }
 
+/** Input frames handed to SoundTouch at a time (it takes 16 384 by default). */
+const FEED_FRAMES = 2048;
+
+/**
+ * SimpleFilter feeds SoundTouch 16 384 frames at once and stretches them in one go: in a 128-frame audio block
+ * that is a spike of several milliseconds (the block's budget is 2.9 ms). Fed in small steps, the work is
+ * spread over the blocks that use it.
+ */
+class SteadyFilter extends SimpleFilter {
+  override fillOutputBuffer(numFrames = 0) {
+    while (this.outputBuffer.frameCount < numFrames) {
+      const before = this.inputBuffer.frameCount;
+      this.fillInputBuffer(FEED_FRAMES);
+      // The source has run dry: stop as SimpleFilter does (the source pads silence to flush the tail).
+      if (this.inputBuffer.frameCount === before) break;
+      this.pipe.process();
+    }
+  }
+}
+
 /**
  * A running stretcher: tempo can change between blocks without a restart, and `sourceFrame` says which
  * frame of the original is being heard, so the musical position is never lost.
@@ -86,7 +106,7 @@ export class Stretcher {
     const { sequenceMs, seekWindowMs, overlapMs } = STRETCH_SETTINGS;
     this.pipe.stretch.setParameters(sampleRate, sequenceMs, seekWindowMs, overlapMs);
     this.pipe.tempo = tempo;
-    this.filter = new SimpleFilter(source, this.pipe);
+    this.filter = new SteadyFilter(source, this.pipe);
   }
 
   set tempo(t: number) {

@@ -14,6 +14,11 @@ declare module 'soundtouchjs' {
   }
   export class SimpleFilter {
     constructor(source: FrameSource, pipe: SoundTouch, callback?: () => void);
+    readonly pipe: SoundTouch & { process(): void };
+    readonly inputBuffer: { readonly frameCount: number };
+    readonly outputBuffer: { readonly frameCount: number };
+    fillInputBuffer(numFrames: number): void;
+    fillOutputBuffer(numFrames: number): void;
     extract(target: Float32Array, numFrames: number): number;
     sourcePosition: number;
     readonly position: number;

@@ -57,6 +57,7 @@ function CandidateRow({ candidate: c, song, canEdit, current }: { candidate: Can
         <Text style={[type.h3, { color: chosen ? colors.amber : colors.ink }]}>{formatBpm(c.bpm)} BPM</Text>
         {chosen ? <Text style={[type.label, { color: colors.amber }]}>Chosen tempo</Text> : null}
         <Row gap={2}>
+          <Small>Rating</Small>
           {[1, 2, 3, 4, 5].map((n) => (
             <Chip
               key={n}

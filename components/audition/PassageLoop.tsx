@@ -113,7 +113,9 @@ export function PassageLoop({
               <Button label="That one was not clean" kind="secondary" onPress={onNotClean} testID="not-clean" />
               <Button label="End the run" kind="quiet" onPress={onEndStepUp} testID="end-stepup" />
             </Row>
-          ) : null}
+          ) : (
+            <Button label="Set up another run" kind="secondary" onPress={onEndStepUp} testID="another-stepup" />
+          )}
         </View>
       ) : null}
       {lastLogged ? <Notice tone="success">{lastLogged}</Notice> : null}

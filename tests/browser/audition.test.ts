@@ -88,6 +88,8 @@ test('75 %, an exact BPM, three candidates hopped while playing, the chosen temp
     expect(now).toBeGreaterThan(last);
     last = now;
   }
+  // The stretch runs on the audio thread, in the AudioWorklet.
+  expect(await page.evaluate(() => (window as unknown as { tactusAudition: { stats: { engine: string } } }).tactusAudition.stats.engine)).toBe('audio-worklet');
   await page.screenshot({ path: path.join(outputDir, 'audition-phone.png') });
 
   // Rate 110, write a line on it, and mark it as the chosen tempo with a note.
@@ -187,6 +189,31 @@ test('on a wide screen: space, arrows and number keys; the recording and the loo
   await loopDownload.saveAs(loopFile);
   expect(Number(probe(loopFile).format.duration)).toBeCloseTo((4 * 60) / 93, 1);
   fs.rmSync(dir, { recursive: true, force: true });
+  expect(errors).toEqual([]);
+  await context.close();
+});
+
+test('click-only mode: the plain metronome in 3/4 at a chosen tempo', async () => {
+  const player = await signedInUser('metronome');
+  const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await signInThroughApp(page, player.email, PASSWORD);
+  await page.goto(`${baseUrl}/practice`);
+  await page.getByTestId('metronome').waitFor();
+  await page.getByTestId('metronome').getByRole('button', { name: '3/4' }).click();
+  await page.getByTestId('metronome').getByRole('button', { name: 'Next metronome mark' }).click();
+  // From 100 the next mark is 104 (common practice: the mechanical metronome's scale).
+  await page.getByTestId('metronome-bpm').filter({ hasText: /^104 BPM$/ }).waitFor();
+  await page.getByTestId('metronome-start').click();
+  await page.waitForTimeout(2000);
+  const clicks = await page.evaluate(() => (window as unknown as { tactusMetronome: { clicks: number } }).tactusMetronome.clicks);
+  // 2 s at 104 BPM is 3.5 beats, plus up to 0.12 s scheduled ahead.
+  expect(clicks).toBeGreaterThanOrEqual(3);
+  expect(clicks).toBeLessThanOrEqual(5);
+  await page.getByTestId('metronome-start').click();
+  await page.screenshot({ path: path.join(outputDir, 'metronome-phone.png'), fullPage: true });
   expect(errors).toEqual([]);
   await context.close();
 });

@@ -86,7 +86,9 @@ function hitsOverBed(seconds: number) {
   const noise = () => ((seed = (seed * 16807) % 2147483647) / 2147483647) * 2 - 1;
   for (let i = 0; i < x.length; i++) x[i] = 0.04 * Math.sin((2 * Math.PI * 220 * i) / SR) + 0.03 * Math.sin((2 * Math.PI * 331 * i) / SR) + 0.01 * noise();
   const hits = Array.from({ length: seconds * 2 - 2 }, (_, k) => 0.5 + k * 0.5);
-  for (const t of hits) for (let i = 0; i < 0.08 * SR; i++) x[Math.round(t * SR) + i] += 0.8 * Math.exp(-i / (0.015 * SR)) * Math.sin((2 * Math.PI * 900 * i) / SR);
+  for (const t of hits) {
+    for (let i = 0, j = Math.round(t * SR); i < 0.08 * SR; i++, j++) x[j] = x[j]! + 0.8 * Math.exp(-i / (0.015 * SR)) * Math.sin((2 * Math.PI * 900 * i) / SR);
+  }
   return { x, hits };
 }
 
