@@ -22,11 +22,16 @@ export interface StepUpState {
   done: boolean;
 }
 
+/** A run longer than this is a typing slip (a step of 0.1 BPM, say), not a practice plan. */
+const MAX_STEPS = 60;
+
 export function validatePlan(p: StepUpPlan): string | null {
   if (!(p.startBpm > 0 && p.goalBpm > 0)) return 'start and goal tempos are needed';
   if (p.goalBpm < p.startBpm) return 'the goal must not be below the start tempo';
   if (!(p.stepBpm > 0)) return 'the step must be more than 0 BPM';
   if (!(Number.isInteger(p.repsPerStep) && p.repsPerStep >= 1)) return 'repetitions per step must be a whole number, at least 1';
+  if (p.repsPerStep > 100) return 'at most 100 repetitions per step';
+  if ((p.goalBpm - p.startBpm) / p.stepBpm > MAX_STEPS) return `that is more than ${MAX_STEPS} steps: take a larger step`;
   return null;
 }
 

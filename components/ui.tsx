@@ -116,7 +116,7 @@ export function Notice({ children, tone = 'info' }: { children: React.ReactNode;
 }
 
 /** A compact button for steps, toggles and picks (large enough to hit on a phone); `selected` shows a toggle on. */
-export function Chip({ label, onPress, selected, disabled, testID, hint }: { label: string; onPress: () => void; selected?: boolean; disabled?: boolean; testID?: string; hint?: string }) {
+export function Chip({ label, onPress, selected, disabled, testID, hint, compact }: { label: string; onPress: () => void; selected?: boolean; disabled?: boolean; testID?: string; hint?: string; compact?: boolean }) {
   return (
     <Pressable
       role="button"
@@ -128,6 +128,7 @@ export function Chip({ label, onPress, selected, disabled, testID, hint }: { lab
       disabled={disabled}
       style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [
         styles.chip,
+        compact && { minWidth: layout.minTouch, paddingHorizontal: 0 },
         selected && { backgroundColor: colors.teal, borderColor: colors.teal },
         !selected && (pressed || hovered) && { backgroundColor: colors.tealSoft },
         disabled && { opacity: 0.5 },

@@ -61,6 +61,7 @@ function CandidateRow({ candidate: c, song, canEdit, current }: { candidate: Can
           {[1, 2, 3, 4, 5].map((n) => (
             <Chip
               key={n}
+              compact
               label={n <= (c.rating ?? 0) ? '●' : '○'}
               hint={`Rate ${formatBpm(c.bpm)} BPM ${n} of 5`}
               disabled={!canEdit}
@@ -70,14 +71,14 @@ function CandidateRow({ candidate: c, song, canEdit, current }: { candidate: Can
         </Row>
       </Row>
       {canEdit ? (
-        <Row align="flex-end">
-          <View style={{ flex: 1, minWidth: 180 }}>
-            <Field label="A line on this tempo" value={note} onChangeText={setNote} onBlur={() => note !== (c.note ?? '') && saveNote.run()} onSubmitEditing={saveNote.run}
-              placeholder="e.g. the turns breathe here" testID={`candidate-note-${formatBpm(c.bpm)}`} />
-          </View>
-          {!chosen ? <Button label="Choose this tempo" kind="secondary" onPress={() => setChoosing(true)} testID={`choose-${formatBpm(c.bpm)}`} /> : null}
-          <Button label="Remove" kind="quiet" onPress={() => void removeCandidate(c)} />
-        </Row>
+        <>
+          <Field label="A line on this tempo" value={note} onChangeText={setNote} onBlur={() => note !== (c.note ?? '') && saveNote.run()} onSubmitEditing={saveNote.run}
+            placeholder="e.g. the turns breathe here" testID={`candidate-note-${formatBpm(c.bpm)}`} />
+          <Row>
+            {!chosen ? <Button label="Choose this tempo" kind="secondary" onPress={() => setChoosing(true)} testID={`choose-${formatBpm(c.bpm)}`} /> : null}
+            <Button label="Remove" kind="quiet" onPress={() => void removeCandidate(c)} />
+          </Row>
+        </>
       ) : c.note ? (
         <Small>{c.note}</Small>
       ) : null}

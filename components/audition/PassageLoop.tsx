@@ -5,7 +5,7 @@ import { Text, View } from 'react-native';
 import { Button, Chip, Field, Notice, Row, Small } from '../ui';
 import { colors, space, type } from '../theme';
 import { formatBpm } from '../TempoLabel';
-import { validatePlan, type StepUpPlan, type StepUpState } from '../../audio/step-up';
+import { stepUpTempos, validatePlan, type StepUpPlan, type StepUpState } from '../../audio/step-up';
 import type { Passage } from '../../audio/passage';
 
 export type SnapUnit = 'bar' | 'beat';
@@ -103,6 +103,14 @@ export function PassageLoop({
             {stepUp.done
               ? `Goal reached: ${formatBpm(stepUp.plan.goalBpm)} BPM`
               : `${formatBpm(stepUp.bpm)} BPM · clean ${stepUp.cleanAtTempo} of ${stepUp.plan.repsPerStep}`}
+          </Text>
+          <Text style={[type.label, { color: colors.muted }]} testID="stepup-ladder">
+            {stepUpTempos(stepUp.plan).map((t, i, all) => (
+              <Text key={t}>
+                <Text style={t === stepUp.bpm && !stepUp.done ? { color: colors.teal, fontWeight: '700' } : undefined}>{formatBpm(t)}</Text>
+                {i < all.length - 1 ? ' → ' : ''}
+              </Text>
+            ))}
           </Text>
           <Small>
             {stepUp.repetitions} repetitions so far · goal {formatBpm(stepUp.plan.goalBpm)} BPM. Every pass counts as clean unless you

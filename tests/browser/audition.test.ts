@@ -193,6 +193,32 @@ test('on a wide screen: space, arrows and number keys; the recording and the loo
   await context.close();
 });
 
+test('without an AudioWorklet (an insecure origin) the same engine runs in a ScriptProcessor', async () => {
+  const { player, rec } = await songWithClip('audition-fallback', 'Tidewater Jig');
+  const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+  await context.addInitScript(() => {
+    delete (window as unknown as { AudioWorkletNode?: unknown }).AudioWorkletNode;
+  });
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await signInThroughApp(page, player.email, PASSWORD);
+  await page.goto(`${baseUrl}/recordings/${rec.id}`);
+  await page.waitForFunction(() => document.querySelector('[data-testid="play"]')?.getAttribute('aria-disabled') !== 'true');
+  await page.getByTestId('play').click();
+  await page.waitForFunction(() => /^0:0[1-9]/.test(document.querySelector('[data-testid="playback-position"]')?.textContent ?? ''), undefined, { timeout: 15_000 });
+  await page.getByRole('button', { name: '+1' }).click();
+  await bpmShown(page, 125);
+  await page.waitForTimeout(300);
+  const stats = await page.evaluate(() => (window as unknown as { tactusAudition: { stats: { engine: string; changeLatencies: number[] } } }).tactusAudition.stats);
+  expect(stats.engine).toBe('script-processor');
+  // Heard from the next 1024-frame block (23 ms at 44.1 kHz), give or take the block being played.
+  expect(stats.changeLatencies).toHaveLength(1);
+  expect(stats.changeLatencies[0]!).toBeLessThan(0.1);
+  expect(errors).toEqual([]);
+  await context.close();
+});
+
 test('click-only mode: the plain metronome in 3/4 at a chosen tempo', async () => {
   const player = await signedInUser('metronome');
   const context = await browser.newContext({ viewport: { width: 390, height: 844 } });

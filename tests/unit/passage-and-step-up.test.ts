@@ -118,6 +118,7 @@ describe('step-up practice', () => {
     expect(validatePlan({ ...plan, goalBpm: 70 })).toMatch(/goal/);
     expect(validatePlan({ ...plan, stepBpm: 0 })).toMatch(/step/);
     expect(validatePlan({ ...plan, repsPerStep: 1.5 })).toMatch(/whole number/);
+    expect(validatePlan({ startBpm: 40, stepBpm: 0.1, repsPerStep: 1, goalBpm: 200 })).toMatch(/more than 60 steps/);
     expect(() => startStepUp({ ...plan, goalBpm: 70 })).toThrow(RangeError);
   });
 });
