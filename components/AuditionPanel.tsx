@@ -155,13 +155,16 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
     else if (e.key === 'ArrowDown') apply(bpm - 1);
     else if (/^[1-9]$/.test(e.key) && candidates?.[Number(e.key) - 1]) apply(candidates[Number(e.key) - 1]!.bpm);
     else return;
+    // Space plays and pauses wherever the focus is (outside text fields), so it must not also press the
+    // focused button: taken in the capture phase and stopped here.
     e.preventDefault();
+    e.stopPropagation();
   };
   useEffect(() => {
     if (Platform.OS !== 'web') return;
     const listener = (e: KeyboardEvent) => keys.current(e);
-    window.addEventListener('keydown', listener);
-    return () => window.removeEventListener('keydown', listener);
+    window.addEventListener('keydown', listener, true);
+    return () => window.removeEventListener('keydown', listener, true);
   }, []);
 
   const exportWav = async (passage: Passage | null) => {

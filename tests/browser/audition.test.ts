@@ -160,8 +160,17 @@ test('on a wide screen: space, arrows and number keys; the recording and the loo
   await page.keyboard.press('ArrowRight');
   await page.getByTestId('playback-bar').filter({ hasText: /^[12]$/ }).waitFor();
   expect(await position(page)).toBeGreaterThan(0);
+  // With the count-in on, one bar of clicks comes first (4 beats at 124 BPM = 1.94 s): the place holds still.
+  await page.getByTestId('count-in').click();
+  const before = await position(page);
   await page.keyboard.press(' ');
   await page.getByTestId('play').filter({ hasText: 'Pause' }).waitFor();
+  await page.waitForTimeout(1000);
+  expect(await position(page)).toBeCloseTo(before, 1);
+  await page.waitForFunction((b) => {
+    const m = /^(\d+):(\d+\.\d)$/.exec(document.querySelector('[data-testid="playback-position"]')?.textContent ?? '');
+    return !!m && Number(m[1]) * 60 + Number(m[2]) > b + 0.3;
+  }, before, { timeout: 5000 });
   await page.keyboard.press(' ');
   await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
   await page.screenshot({ path: path.join(outputDir, 'audition-desktop.png'), fullPage: true });
