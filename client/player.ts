@@ -46,7 +46,8 @@ interface Engine {
 
 export class AuditionPlayer {
   private ctx: AudioContext | null = null;
-  private buffer: AudioBuffer | null = null;
+  private decoded: { durationSec: number; sampleRate: number } | null = null;
+  /** The samples on the main thread: kept only for the ScriptProcessor engine; the worklet holds its own. */
   private audio: StereoBuffer | null = null;
   private engine: Engine | null = null;
   private map: PlaybackMap | null = null;
@@ -73,10 +74,10 @@ export class AuditionPlayer {
   constructor(private readonly url: string, private readonly grid: PlayerGrid) {}
 
   get durationSec() {
-    return this.buffer?.duration ?? 0;
+    return this.decoded?.durationSec ?? 0;
   }
   get sampleRate() {
-    return this.buffer?.sampleRate ?? 44100;
+    return this.decoded?.sampleRate ?? 44100;
   }
   get loopRegion() {
     return this.loop;
@@ -85,17 +86,13 @@ export class AuditionPlayer {
   async load(): Promise<void> {
     const ctx = newAudioContext();
     this.ctx = ctx;
-    const res = await fetch(this.url, { credentials: 'include' });
-    if (!res.ok) throw new Error(`the audio could not be loaded (${res.status})`);
-    this.buffer = await ctx.decodeAudioData(await res.arrayBuffer());
-    const left = this.buffer.getChannelData(0);
-    this.audio = { left, right: this.buffer.numberOfChannels > 1 ? this.buffer.getChannelData(1) : left };
+    const audio = await this.decode(ctx);
     this.musicGain = ctx.createGain();
     this.musicGain.connect(ctx.destination);
     this.clickGain = ctx.createGain();
     this.clickGain.gain.value = DEFAULT_CLICK_GAIN;
     this.clickGain.connect(ctx.destination);
-    this.engine = (await this.workletEngine(ctx)) ?? this.scriptProcessorEngine(ctx);
+    this.engine = (await this.workletEngine(ctx, audio)) ?? this.scriptProcessorEngine(ctx, audio);
     this.engine.node.connect(this.musicGain);
   }
 
@@ -176,11 +173,24 @@ export class AuditionPlayer {
     if (wasPlaying) void this.play();
   }
 
-  /** The recording, or the loop, at `bpm` (pitch kept) as a WAV file. */
-  renderWav(bpm: number, passage: Passage | null): Uint8Array {
-    if (!this.audio) throw new Error('the audio is not loaded yet');
+  /**
+   * The recording, or the loop, at `bpm` (pitch kept) as a WAV file. With the worklet engine the samples live on
+   * the audio thread only (one copy of a long recording is enough for a phone), so they are decoded again here.
+   */
+  async renderWav(bpm: number, passage: Passage | null): Promise<Uint8Array> {
+    if (!this.ctx || !this.decoded) throw new Error('the audio is not loaded yet');
+    const audio = this.audio ?? (await this.decode(this.ctx));
     const speed = Math.max(MIN_SPEED, Math.min(MAX_SPEED, bpm / this.grid.originalBpm));
-    return encodeWav(renderAtTempo(this.audio, this.sampleRate, speed, passage), this.sampleRate);
+    return encodeWav(renderAtTempo(audio, this.sampleRate, speed, passage), this.sampleRate);
+  }
+
+  private async decode(ctx: BaseAudioContext): Promise<StereoBuffer> {
+    const res = await fetch(this.url, { credentials: 'include' });
+    if (!res.ok) throw new Error(`the audio could not be loaded (${res.status})`);
+    const buffer = await ctx.decodeAudioData(await res.arrayBuffer());
+    this.decoded = { durationSec: buffer.duration, sampleRate: buffer.sampleRate };
+    const left = buffer.getChannelData(0);
+    return { left, right: buffer.numberOfChannels > 1 ? buffer.getChannelData(1) : left };
   }
 
   /** Starts the figures afresh (the benchmark measures one phase at a time). */
@@ -210,7 +220,7 @@ export class AuditionPlayer {
     }
   }
 
-  private async workletEngine(ctx: AudioContext): Promise<Engine | null> {
+  private async workletEngine(ctx: AudioContext, audio: StereoBuffer): Promise<Engine | null> {
     if (!ctx.audioWorklet || typeof AudioWorkletNode === 'undefined') return null;
     try {
       await ctx.audioWorklet.addModule(WORKLET_URL);
@@ -219,16 +229,18 @@ export class AuditionPlayer {
     }
     const node = new AudioWorkletNode(ctx, 'tactus-stretch', { numberOfInputs: 0, numberOfOutputs: 1, outputChannelCount: [2] });
     node.port.onmessage = (e: MessageEvent<FromWorklet>) => this.receive(e.data);
-    // The worklet gets its own copy of the samples; ours stay for export.
-    const left = this.audio!.left.slice();
-    const right = this.audio!.right === this.audio!.left ? left.slice() : this.audio!.right.slice();
-    node.port.postMessage({ type: 'load', left, right } satisfies ToWorklet, [left.buffer, right.buffer]);
+    // The worklet gets its own copy of the samples, handed over without a second copy; the decoded buffer is
+    // then dropped on this side.
+    const left = audio.left.slice();
+    const right = audio.right === audio.left ? null : audio.right.slice();
+    node.port.postMessage({ type: 'load', left, right } satisfies ToWorklet, right ? [left.buffer, right.buffer] : [left.buffer]);
     this.stats.engine = 'audio-worklet';
     return { node, send: (m, transfer) => node.port.postMessage(m, transfer ?? []) };
   }
 
-  private scriptProcessorEngine(ctx: AudioContext): Engine {
-    const playback = new LivePlayback(this.audio!, this.sampleRate);
+  private scriptProcessorEngine(ctx: AudioContext, audio: StereoBuffer): Engine {
+    this.audio = audio;
+    const playback = new LivePlayback(audio, this.sampleRate);
     const node = ctx.createScriptProcessor(FALLBACK_BLOCK, 0, 2);
     let nextBlockAt = 0;
     let run = 0;

@@ -175,7 +175,7 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
     // Let the button show it is busy before the (blocking) render starts.
     await new Promise((r) => setTimeout(r, 30));
     try {
-      const wav = p.renderWav(bpm, passage);
+      const wav = await p.renderWav(bpm, passage);
       const url = URL.createObjectURL(new Blob([wav as BlobPart], { type: 'audio/wav' }));
       const link = document.createElement('a');
       link.href = url;

@@ -1,6 +1,6 @@
 // The player's audio-thread half: an AudioWorkletProcessor around LivePlayback. Bundled on its own into
 // public/stretch-processor.js (scripts/build-worklet.sh) because a worklet module loads as one plain script.
-// Messages in: load, start, speed, stop, reset-stats. Messages out: segment (a tempo change took effect), pass (the loop
+// Messages in: load (right is null for a mono recording), start, speed, stop, reset-stats. Messages out: segment (a tempo change took effect), pass (the loop
 // came round), stats (time spent rendering ÷ audio time rendered). Each start is a numbered run, and what the
 // worklet reports carries the run's number, so a report that crosses a restart in flight is recognised as stale.
 import { LivePlayback, type StartOptions } from '../live-playback';
@@ -14,7 +14,7 @@ declare class AudioWorkletProcessor {
 }
 
 export type ToWorklet =
-  | { type: 'load'; left: Float32Array; right: Float32Array }
+  | { type: 'load'; left: Float32Array; right: Float32Array | null }
   | { type: 'start'; options: StartOptions; run: number }
   | { type: 'speed'; speed: number; requestedAt: number }
   | { type: 'stop' }
@@ -39,7 +39,7 @@ class StretchProcessor extends AudioWorkletProcessor {
     this.port.onmessage = (e: MessageEvent<ToWorklet>) => {
       const m = e.data;
       if (m.type === 'load') {
-        this.playback = new LivePlayback({ left: m.left, right: m.right }, sampleRate);
+        this.playback = new LivePlayback({ left: m.left, right: m.right ?? m.left }, sampleRate);
         this.playback.warmUp();
       }
       else if (m.type === 'start') {

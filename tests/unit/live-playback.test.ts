@@ -4,6 +4,7 @@
 import { LivePlayback } from '../../audio/live-playback';
 import { PlaybackMap } from '../../audio/click';
 import { heardOffsetSec } from '../../audio/stretch';
+import { attackTimes, hitsOverBed } from './signals';
 
 const SR = 44100;
 const Q = 128;
@@ -79,40 +80,8 @@ test('a tempo change is applied in the very next block, keeps the pitch, and joi
   expect(joinJump).toBeLessThan(ownStep * 1.2);
 });
 
-/** Decaying 900 Hz hits every 0.5 s over a soft, never silent bed (two tones and a little noise), as in music. */
-function hitsOverBed(seconds: number) {
-  const x = new Float32Array(seconds * SR);
-  let seed = 1;
-  const noise = () => ((seed = (seed * 16807) % 2147483647) / 2147483647) * 2 - 1;
-  for (let i = 0; i < x.length; i++) x[i] = 0.04 * Math.sin((2 * Math.PI * 220 * i) / SR) + 0.03 * Math.sin((2 * Math.PI * 331 * i) / SR) + 0.01 * noise();
-  const hits = Array.from({ length: seconds * 2 - 2 }, (_, k) => 0.5 + k * 0.5);
-  for (const t of hits) {
-    for (let i = 0, j = Math.round(t * SR); i < 0.08 * SR; i++, j++) x[j] = x[j]! + 0.8 * Math.exp(-i / (0.015 * SR)) * Math.sin((2 * Math.PI * 900 * i) / SR);
-  }
-  return { x, hits };
-}
-
-/** Attacks: where the signal first passes 0.3 after 100 ms below 0.2. */
-function attacks(x: Float32Array): number[] {
-  const out: number[] = [];
-  let lastLoud = -SR;
-  let armed = false;
-  for (let i = 0; i < x.length; i++) {
-    const v = Math.abs(x[i]!);
-    if (v > 0.2) {
-      if (i - lastLoud > 0.1 * SR) armed = true;
-      lastLoud = i;
-    }
-    if (armed && v > 0.3) {
-      out.push(i / SR);
-      armed = false;
-    }
-  }
-  return out;
-}
-
 test("across tempo changes the music's attacks meet the click, which follows the main thread's copy of the timeline", () => {
-  const { x, hits } = hitsOverBed(20);
+  const { x, hits } = hitsOverBed(20, SR);
   const p = new LivePlayback({ left: x, right: x }, SR);
   const first = p.start({ fromSec: 0, speed: 1, startsAt: 0, loop: null });
   const mirror = new PlaybackMap(first.at, first.from, first.speed);
@@ -128,7 +97,7 @@ test("across tempo changes the music's attacks meet the click, which follows the
   expect(events.filter((e) => e.segment)).toHaveLength(2);
   // Where the player puts each click: the hit's place on the timeline, moved by the stretch's known offset.
   const clicks = hits.map((t) => mirror.contextTime(t)!).map((t) => t + heardOffsetSec(mirror.speedAt(t))).filter((t) => t > 0.2 && t < 10.8);
-  const heard = attacks(left);
+  const heard = attackTimes(left, SR);
   const errors = clicks.map((c) => Math.min(...heard.map((h) => Math.abs(h - c))));
   expect(clicks.length).toBeGreaterThan(20);
   // Every hit is heard, within 25 ms of its click (beyond ~20–30 ms two onsets are heard as a flam: common

@@ -1,4 +1,5 @@
-// Test signals whose truth is exact by construction: clicks at known times, tones, silence.
+// Test signals whose truth is exact by construction: clicks at known times, tones, silence, hits over a bed.
+// The stretch benchmark (fixtures/bench-stretch.ts) uses them too.
 
 export const RATE = 11025;
 
@@ -47,6 +48,42 @@ export function singleChord(durationSec: number, rate = RATE): Float32Array {
     let v = 0;
     for (const f of freqs) for (let h = 1; h <= 3; h++) v += Math.sin((2 * Math.PI * f * h * i) / rate) / (h * 3);
     out[i] = 0.3 * env * v;
+  }
+  return out;
+}
+
+/**
+ * Decaying 900 Hz hits (about a drum's length) every 0.5 s over a soft bed that is never silent (two tones and a
+ * little noise), as in music; `uneven` moves every second and third hit by 13 or 26 ms, so no hit sits at the
+ * same place in a stretcher's sequences each time. Returns the samples and the hit times.
+ */
+export function hitsOverBed(seconds: number, rate: number, uneven = false): { x: Float32Array; hits: number[] } {
+  const x = new Float32Array(seconds * rate);
+  let seed = 7;
+  const noise = () => ((seed = (seed * 16807) % 2147483647) / 2147483647) * 2 - 1;
+  for (let i = 0; i < x.length; i++) x[i] = 0.04 * Math.sin((2 * Math.PI * 220 * i) / rate) + 0.03 * Math.sin((2 * Math.PI * 331 * i) / rate) + 0.01 * noise();
+  const hits = Array.from({ length: seconds * 2 - 4 }, (_, k) => 0.5 + k * 0.5 + (uneven ? (k % 3) * 0.013 : 0));
+  for (const t of hits) {
+    for (let i = 0, j = Math.round(t * rate); i < 0.08 * rate; i++, j++) x[j] = x[j]! + 0.8 * Math.exp(-i / (0.015 * rate)) * Math.sin((2 * Math.PI * 900 * i) / rate);
+  }
+  return { x, hits };
+}
+
+/** Attacks in a signal like hitsOverBed's: where it first passes 0.3 after 100 ms below 0.2 (seconds). */
+export function attackTimes(x: Float32Array, rate: number): number[] {
+  const out: number[] = [];
+  let lastLoud = -rate;
+  let armed = false;
+  for (let i = 0; i < x.length; i++) {
+    const v = Math.abs(x[i]!);
+    if (v > 0.2) {
+      if (i - lastLoud > 0.1 * rate) armed = true;
+      lastLoud = i;
+    }
+    if (armed && v > 0.3) {
+      out.push(i / rate);
+      armed = false;
+    }
   }
   return out;
 }
