@@ -66,6 +66,8 @@ export interface Click {
   accent: boolean;
   /** Index of the beat in the recording's grid (−1 for count-in clicks). */
   beat: number;
+  /** For the plain metronome: the beat's place in its bar, 0 for the downbeat. */
+  inBar?: number;
 }
 
 /**
@@ -140,7 +142,7 @@ export class MetronomeTimeline {
   clicksBetween(from: number, to: number): Click[] {
     const out: Click[] = [];
     for (let k = this.nextBeat(from); this.beatTime(k) < to; k++) {
-      out.push({ time: this.beatTime(k), accent: (k - this.barStart) % this.perBar === 0, beat: k });
+      out.push({ time: this.beatTime(k), accent: (k - this.barStart) % this.perBar === 0, beat: k, inBar: (k - this.barStart) % this.perBar });
     }
     return out;
   }

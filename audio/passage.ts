@@ -37,6 +37,15 @@ export function barAt(t: number, downbeats: number[]): number {
   return bar;
 }
 
+/** Beat within its bar (1-based) heard at `t`; 0 before the first beat. */
+export function beatInBar(t: number, beats: number[], downbeats: number[]): number {
+  const bar = barAt(t, downbeats);
+  const from = bar === 0 ? -Infinity : downbeats[bar - 1]!;
+  let n = 0;
+  for (const b of beats) if (b >= from - 1e-6 && b <= t + 1e-6) n++;
+  return n;
+}
+
 /**
  * Where "skip a bar" lands from `t`: forward, the next bar start; back, the start of the current bar, or of
  * the one before when `t` is already within half a second of it (so repeated presses keep going back).

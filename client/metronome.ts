@@ -12,7 +12,7 @@ export class Metronome {
   private timer: ReturnType<typeof setInterval> | null = null;
   private timeline: MetronomeTimeline | null = null;
   private scheduledUntil = 0;
-  private planned: { at: number; osc: OscillatorNode }[] = [];
+  private planned: { at: number; osc: OscillatorNode; inBar: number }[] = [];
   private bpm = 100;
   private meter = '4/4';
   private volume = DEFAULT_CLICK_GAIN;
@@ -54,6 +54,15 @@ export class Metronome {
     }
   }
 
+  /** The beat sounding now, as its place in the bar (0 = downbeat), for the beat lights; null when stopped. */
+  beatNow(): number | null {
+    if (!this.running || !this.ctx) return null;
+    const now = this.ctx.currentTime;
+    let current: number | null = null;
+    for (const p of this.planned) if (p.at <= now) current = p.inBar;
+    return current;
+  }
+
   setVolume(v: number) {
     this.volume = Math.max(0, Math.min(1, v));
     if (this.gain) this.gain.gain.value = this.volume;
@@ -67,9 +76,10 @@ export class Metronome {
   private schedule() {
     const ctx = this.ctx!;
     const until = ctx.currentTime + LOOKAHEAD_SEC;
-    this.planned = this.planned.filter((p) => p.at > ctx.currentTime - 0.2);
+    // Keep the last beat heard (the beat lights read it) and the ones still to come.
+    this.planned = this.planned.filter((p) => p.at > ctx.currentTime - 60 / this.bpm - 0.05);
     for (const c of this.timeline!.clicksBetween(this.scheduledUntil, until)) {
-      this.planned.push({ at: c.time, osc: scheduleBlip(ctx, this.gain!, c.time, c.accent) });
+      this.planned.push({ at: c.time, osc: scheduleBlip(ctx, this.gain!, c.time, c.accent), inBar: c.inBar ?? 0 });
       this.clicks++;
     }
     this.scheduledUntil = Math.max(this.scheduledUntil, until);

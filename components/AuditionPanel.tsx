@@ -16,7 +16,7 @@ import { PracticeLog } from './PracticeLog';
 import { AuditionPlayer, MAX_SPEED, MIN_SPEED } from '../client/player';
 import { DEFAULT_CLICK_GAIN } from '../client/click-sound';
 import { logPractice, useCandidates } from '../client/hooks';
-import { barAt, barContaining, describePassage, skipBar, snapPassage, type Passage } from '../audio/passage';
+import { barAt, barContaining, beatInBar, describePassage, skipBar, snapPassage, type Passage } from '../audio/passage';
 import { passFinished, startStepUp, type StepUpPlan, type StepUpState } from '../audio/step-up';
 import { exportFileName } from '../audio/export';
 import type { PeaksDto, Recording, Song } from '../shared/schemas';
@@ -214,7 +214,7 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
             }} />
         ) : null}
         <Small>Thin lines are beats, amber lines bar starts. Tap or drag on the waveform to move; mark a passage to loop it.</Small>
-        <PositionReadout getPosition={getPosition} downbeats={a.downbeats} durationSec={grid.durationSec} />
+        <PositionReadout getPosition={getPosition} beats={a.beats} downbeats={a.downbeats} durationSec={grid.durationSec} />
         <Row>
           <Chip label="‹ Bar" hint="Back a bar" onPress={() => skip(-1)} testID="bar-back" />
           <Button label={playing ? 'Pause' : 'Play'} disabled={!ready} onPress={togglePlay} testID="play" />
@@ -304,13 +304,15 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
 
 const clock = (s: number) => `${Math.floor(s / 60)}:${(s % 60).toFixed(1).padStart(4, '0')}`;
 
-function PositionReadout({ getPosition, downbeats, durationSec }: { getPosition: () => number; downbeats: number[]; durationSec: number }) {
-  const t = usePolled(getPosition, 100);
+function PositionReadout({ getPosition, beats, downbeats, durationSec }: { getPosition: () => number; beats: number[]; downbeats: number[]; durationSec: number }) {
+  const t = usePolled(getPosition, 50);
   const bar = barAt(t, downbeats);
+  const beat = beatInBar(t, beats, downbeats);
   return (
     <Text style={[type.label, { color: colors.ink }]}>
       {bar === 0 ? 'Pickup' : 'Bar '}
       <Text testID="playback-bar">{bar === 0 ? '' : bar}</Text>
+      {beat > 0 ? <Text style={{ color: colors.muted }}>{` · beat ${beat}`}</Text> : null}
       <Text style={{ color: colors.muted }}>
         {'  ·  '}
         <Text testID="playback-position" accessibilityLabel={`${t.toFixed(1)} seconds`}>{clock(t)}</Text> / {clock(durationSec)}

@@ -1,10 +1,12 @@
 // Click-only mode: a plain metronome at any BPM and meter, with the same tempo steps as the player.
 import React, { useEffect, useRef, useState } from 'react';
-import { Platform, Text } from 'react-native';
+import { Platform, Text, View } from 'react-native';
 import { Button, Card, Chip, Heading, Notice, Row, Small } from './ui';
-import { colors, type } from './theme';
+import { colors, space, type } from './theme';
 import { formatBpm } from './TempoLabel';
 import { Level } from './audition/SoundLevels';
+import { usePolled } from './audition/PlayerWaveform';
+import { beatsPerBar } from '../audio/click';
 import { markingsFor, nextMarkDown, nextMarkUp } from '../audio/metronome';
 import { Metronome } from '../client/metronome';
 import { DEFAULT_CLICK_GAIN } from '../client/click-sound';
@@ -44,6 +46,7 @@ export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { ini
         </Text>
         {markings ? <Small>{markings}</Small> : null}
       </Row>
+      <BeatLights clock={clock} perBar={beatsPerBar(meter)} />
       <Row>
         <Chip label="◂ mark" hint="Previous metronome mark" onPress={() => apply(nextMarkDown(bpm))} />
         <Chip label="−1" onPress={() => apply(bpm - 1)} />
@@ -75,5 +78,18 @@ export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { ini
         Keep the click moderate, above all in headphones: long listening at high levels harms hearing (WHO–ITU H.870, safe listening).
       </Notice>
     </Card>
+  );
+}
+
+/** One light per beat of the bar; the sounding beat is lit, the downbeat in amber. */
+function BeatLights({ clock, perBar }: { clock: React.RefObject<Metronome | null>; perBar: number }) {
+  const now = usePolled(React.useCallback(() => clock.current?.beatNow() ?? null, [clock]), 30);
+  return (
+    <View style={{ flexDirection: 'row', gap: space.sm }} accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
+      {Array.from({ length: perBar }, (_, i) => (
+        <View key={i} testID={now === i ? 'beat-lit' : undefined}
+          style={{ width: 18, height: 18, borderRadius: 9, borderWidth: 2, borderColor: i === 0 ? colors.amber : colors.teal, backgroundColor: now === i ? (i === 0 ? colors.amber : colors.teal) : 'transparent' }} />
+      ))}
+    </View>
   );
 }

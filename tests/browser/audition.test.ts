@@ -175,6 +175,12 @@ test('on a wide screen: space, arrows and number keys; the recording and the loo
   await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
   await page.screenshot({ path: path.join(outputDir, 'audition-desktop.png'), fullPage: true });
 
+  // Tapping the middle of the waveform moves the playhead to the middle of the recording.
+  const wave = (await page.getByTestId('player-waveform').boundingBox())!;
+  await page.mouse.click(wave.x + wave.width / 2, wave.y + wave.height / 2);
+  await page.waitForTimeout(200);
+  expect(Math.abs((await position(page)) - CLIP_SECONDS / 2)).toBeLessThan(0.3);
+
   // Export at 93 BPM = 0.75 × 124: the file lasts 12 s / 0.75 = 16 s. Read back by ffprobe (FFmpeg), not by us.
   await page.keyboard.press('1');
   await bpmShown(page, 93);
@@ -242,13 +248,15 @@ test('click-only mode: the plain metronome in 3/4 at a chosen tempo', async () =
   // From 100 the next mark is 104 (common practice: the mechanical metronome's scale).
   await page.getByTestId('metronome-bpm').filter({ hasText: /^104 BPM$/ }).waitFor();
   await page.getByTestId('metronome-start').click();
+  // A light follows the beat: three lights in 3/4.
+  await page.getByTestId('beat-lit').waitFor();
   await page.waitForTimeout(2000);
   const clicks = await page.evaluate(() => (window as unknown as { tactusMetronome: { clicks: number } }).tactusMetronome.clicks);
   // 2 s at 104 BPM is 3.5 beats, plus up to 0.12 s scheduled ahead.
   expect(clicks).toBeGreaterThanOrEqual(3);
   expect(clicks).toBeLessThanOrEqual(5);
-  await page.getByTestId('metronome-start').click();
   await page.screenshot({ path: path.join(outputDir, 'metronome-phone.png'), fullPage: true });
+  await page.getByTestId('metronome-start').click();
   expect(errors).toEqual([]);
   await context.close();
 });

@@ -1,6 +1,6 @@
 // Passages on the beat grid, looping on a straight timeline, and step-up practice; on grids whose truth is
 // exact by construction (a steady 120 BPM in 4/4 with a one-beat pickup).
-import { barAt, barContaining, beatsBetween, describePassage, loopPass, skipBar, snapPassage, wrapIntoLoop } from '../../audio/passage';
+import { barAt, barContaining, beatInBar, beatsBetween, describePassage, loopPass, skipBar, snapPassage, wrapIntoLoop } from '../../audio/passage';
 import { clicksBetween, PlaybackMap } from '../../audio/click';
 import { loopedSource } from '../../audio/stretch';
 import { passFinished, startStepUp, stepUpTempos, validatePlan } from '../../audio/step-up';
@@ -16,6 +16,14 @@ describe('bars on the grid', () => {
     expect(barAt(1.0, downbeats)).toBe(1);
     expect(barAt(4.99, downbeats)).toBe(2);
     expect(barAt(5.0, downbeats)).toBe(3);
+  });
+
+  test('the beat within the bar: the pickup is beat 1 of bar 0, then 1–4 in every bar', () => {
+    expect(beatInBar(0.2, beats, downbeats)).toBe(0);
+    expect(beatInBar(0.6, beats, downbeats)).toBe(1);
+    expect(beatInBar(1.0, beats, downbeats)).toBe(1);
+    expect(beatInBar(2.7, beats, downbeats)).toBe(4);
+    expect(beatInBar(3.1, beats, downbeats)).toBe(1);
   });
 
   test('skipping forward lands on the next bar line; back goes to this bar, or the one before when just past it', () => {
