@@ -95,8 +95,8 @@ class SteadyFilter extends SimpleFilter {
 }
 
 /**
- * A running stretcher: tempo can change between blocks without a restart, and `sourceFrame` says which
- * frame of the original is being heard, so the musical position is never lost.
+ * A running stretcher at one tempo: a tempo change starts a new one at the same musical position
+ * (audio/live-playback.ts), which is heard at once where changing SoundTouch's tempo in place is not.
  */
 export class Stretcher {
   private readonly pipe = new SoundTouch();
@@ -109,9 +109,6 @@ export class Stretcher {
     this.filter = new SteadyFilter(source, this.pipe);
   }
 
-  set tempo(t: number) {
-    this.pipe.tempo = t;
-  }
   get tempo() {
     return this.pipe.tempo;
   }

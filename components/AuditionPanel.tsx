@@ -59,6 +59,7 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
     // The grid is read when the player is made; a correction reloads it with the new tempo.
   }, [audioUrl, originalBpm]);
 
+  const run = useRef<{ state: StepUpState; notClean: boolean; startedAt: number } | null>(null);
   const getPosition = useCallback(() => player.current?.position() ?? 0, []);
 
   const apply = useCallback((next: number) => {
@@ -82,14 +83,15 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
   }, []);
   const skip = useCallback((dir: 1 | -1) => seek(skipBar(getPosition(), grid, dir)), [seek, getPosition, grid.downbeats]);
 
+  // A new passage (or none) ends a step-up run on the old one; what was played is logged.
   const setLoop = (p: Passage | null) => {
+    if (run.current) void finishRun(run.current.state);
+    setStepUp(null);
     setLoopState(p);
     player.current?.setLoop(p);
-    if (!p) setStepUp(null);
   };
 
   // ── step-up: the player reports each pass through the loop ──────────────────────────────────────────
-  const run = useRef<{ state: StepUpState; notClean: boolean; startedAt: number } | null>(null);
   const finishRun = async (s: StepUpState) => {
     const r = run.current;
     run.current = null;
