@@ -8,8 +8,8 @@ import { SimpleFilter, SoundTouch, type FrameSource } from 'soundtouchjs';
  * SoundTouch's overlap-add copies the input in sequences at the original speed, so within a sequence an attack
  * lands early when slowed down (late when sped up), and at high speeds whole attacks fall in the skipped parts.
  * Its automatic settings use ~120 ms sequences at half speed. Measured with `npm run bench:stretch` (decaying
- * 900 Hz hits over a soft bed, 55 hits): automatic → attacks 118 ms early on average at 0.5×, 42 ms at 0.75×,
- * 21 of 55 lost at 2×; these settings → 47 ms, 21 ms, 15 lost; a 55 Hz bass tone keeps its pitch within 1.6 %
+ * 900 Hz hits over a soft bed, 56 hits): automatic → attacks 113 ms early on average at 0.5×, 43 ms at 0.75×,
+ * 22 of 56 lost at 2×; these settings → 46 ms, 21 ms, 16 lost; a 55 Hz bass tone keeps its pitch within 1.6 %
  * (automatic 1.2 %; 30 ms sequences already give 9 %). The rest of the lead is made up in the click
  * (heardOffsetSec).
  */
