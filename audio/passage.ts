@@ -12,23 +12,19 @@ export interface Passage {
   end: number;
 }
 
-/** Bar boundaries: every downbeat and, after the last, where the next bar would start (or the end). */
-export function barBoundaries(grid: Grid): number[] {
-  const d = grid.downbeats;
-  if (d.length === 0) return [0, grid.durationSec];
-  const last = d[d.length - 1]!;
-  const barLen = d.length > 1 ? (last - d[0]!) / (d.length - 1) : grid.durationSec - last;
-  return [...d, Math.min(grid.durationSec, last + barLen)];
+/** Event times and, after the last, where the next would fall at the same spacing (capped at the end). */
+function boundaries(times: number[], durationSec: number): number[] {
+  if (times.length === 0) return [0, durationSec];
+  const last = times[times.length - 1]!;
+  const spacing = times.length > 1 ? (last - times[0]!) / (times.length - 1) : durationSec - last;
+  return [...times, Math.min(durationSec, last + spacing)];
 }
 
+/** Bar boundaries: every downbeat and, after the last, where the next bar would start (or the end). */
+export const barBoundaries = (grid: Grid) => boundaries(grid.downbeats, grid.durationSec);
+
 /** Beat boundaries: every beat and the one after the last. */
-export function beatBoundaries(grid: Grid): number[] {
-  const b = grid.beats;
-  if (b.length === 0) return [0, grid.durationSec];
-  const last = b[b.length - 1]!;
-  const period = b.length > 1 ? (last - b[0]!) / (b.length - 1) : grid.durationSec - last;
-  return [...b, Math.min(grid.durationSec, last + period)];
-}
+export const beatBoundaries = (grid: Grid) => boundaries(grid.beats, grid.durationSec);
 
 /** Bar number (1-based) heard at `t`; 0 before the first downbeat (the pickup). */
 export function barAt(t: number, downbeats: number[]): number {

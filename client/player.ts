@@ -4,11 +4,11 @@
 // main thread. The main thread keeps a copy of the playback timeline for the click, which it schedules on the
 // recording's beat grid (audio/click.ts), and for the position shown.
 import { beatsPerBar as perBarOf, clicksBetween, countIn, PlaybackMap, type PlaybackSegment } from '../audio/click';
-import { LivePlayback, type StartOptions } from '../audio/live-playback';
+import type { StartOptions } from '../audio/live-playback';
+import { PlaybackHost, type FromEngine, type RenderStats, type ToEngine } from '../audio/playback-host';
 import { wrapIntoLoop, type Passage } from '../audio/passage';
 import { encodeWav, renderAtTempo } from '../audio/export';
 import { heardOffsetSec, type StereoBuffer } from '../audio/stretch';
-import type { FromWorklet, ToWorklet } from '../audio/worklet/stretch-processor';
 import { DEFAULT_CLICK_GAIN, newAudioContext, scheduleBlip } from './click-sound';
 
 /** Frames per block of the ScriptProcessor fallback (the worklet renders 128 at a time). */
@@ -28,19 +28,15 @@ export interface PlayerGrid {
 }
 
 /** Figures the benchmark reads: how late tempo changes are heard, and how busy the audio rendering is. */
-export interface PlayerStats {
+export interface PlayerStats extends RenderStats {
   engine: 'audio-worklet' | 'script-processor';
   /** Seconds from each tempo change to the first block rendered at the new tempo (audio clock). */
   changeLatencies: number[];
-  busyMs: number;
-  audioMs: number;
-  blocks: number;
-  maxBlockMs: number;
 }
 
 /** The audio-thread half, behind one interface whichever way it runs. */
 interface Engine {
-  send(m: ToWorklet, transfer?: Transferable[]): void;
+  send(m: ToEngine): void;
   node: AudioNode;
 }
 
@@ -105,7 +101,7 @@ export class AuditionPlayer {
 
   /** Playback tempo in BPM; while playing it is heard from the next audio block on, at the same beat. */
   setBpm(bpm: number) {
-    const speed = Math.max(MIN_SPEED, Math.min(MAX_SPEED, bpm / this.grid.originalBpm));
+    const speed = this.speedFor(bpm);
     this.speed = speed;
     if (this.playing && this.ctx) this.engine?.send({ type: 'speed', speed, requestedAt: this.ctx.currentTime });
   }
@@ -180,8 +176,12 @@ export class AuditionPlayer {
   async renderWav(bpm: number, passage: Passage | null): Promise<Uint8Array> {
     if (!this.ctx || !this.decoded) throw new Error('the audio is not loaded yet');
     const audio = this.audio ?? (await this.decode(this.ctx));
-    const speed = Math.max(MIN_SPEED, Math.min(MAX_SPEED, bpm / this.grid.originalBpm));
-    return encodeWav(renderAtTempo(audio, this.sampleRate, speed, passage), this.sampleRate);
+    return encodeWav(renderAtTempo(audio, this.sampleRate, this.speedFor(bpm), passage), this.sampleRate);
+  }
+
+  /** × the recording's own tempo for `bpm`, within the player's range. */
+  private speedFor(bpm: number) {
+    return Math.max(MIN_SPEED, Math.min(MAX_SPEED, bpm / this.grid.originalBpm));
   }
 
   private async decode(ctx: BaseAudioContext): Promise<StereoBuffer> {
@@ -205,7 +205,7 @@ export class AuditionPlayer {
   }
 
   /** What the audio thread reports. */
-  private receive(m: FromWorklet) {
+  private receive(m: FromEngine) {
     if (m.type !== 'stats' && (m.run !== this.run || !this.playing)) return;
     if (m.type === 'segment') {
       if (!this.map) return;
@@ -215,8 +215,9 @@ export class AuditionPlayer {
       this.stats.changeLatencies.push(m.at - m.requestedAt);
     } else if (m.type === 'pass') {
       this.onLoopPass?.(m.pass);
-    } else if (m.type === 'stats') {
-      Object.assign(this.stats, { busyMs: m.busyMs, audioMs: m.audioMs, blocks: m.blocks, maxBlockMs: m.maxBlockMs });
+    } else {
+      const { type: _, ...figures } = m;
+      Object.assign(this.stats, figures);
     }
   }
 
@@ -228,49 +229,31 @@ export class AuditionPlayer {
       return null;
     }
     const node = new AudioWorkletNode(ctx, 'tactus-stretch', { numberOfInputs: 0, numberOfOutputs: 1, outputChannelCount: [2] });
-    node.port.onmessage = (e: MessageEvent<FromWorklet>) => this.receive(e.data);
+    node.port.onmessage = (e: MessageEvent<FromEngine>) => this.receive(e.data);
     // The worklet gets its own copy of the samples, handed over without a second copy; the decoded buffer is
     // then dropped on this side.
     const left = audio.left.slice();
     const right = audio.right === audio.left ? null : audio.right.slice();
-    node.port.postMessage({ type: 'load', left, right } satisfies ToWorklet, right ? [left.buffer, right.buffer] : [left.buffer]);
+    node.port.postMessage({ type: 'load', left, right } satisfies ToEngine, right ? [left.buffer, right.buffer] : [left.buffer]);
     this.stats.engine = 'audio-worklet';
-    return { node, send: (m, transfer) => node.port.postMessage(m, transfer ?? []) };
+    return { node, send: (m) => node.port.postMessage(m) };
   }
 
   private scriptProcessorEngine(ctx: AudioContext, audio: StereoBuffer): Engine {
     this.audio = audio;
-    const playback = new LivePlayback(audio, this.sampleRate);
+    // Reports go out of the audio callback asynchronously, as the worklet's messages do.
+    const host = new PlaybackHost(this.sampleRate, (m) => setTimeout(() => this.receive(m), 0), () => performance.now());
+    host.receive({ type: 'load', left: audio.left, right: audio.right === audio.left ? null : audio.right });
     const node = ctx.createScriptProcessor(FALLBACK_BLOCK, 0, 2);
     let nextBlockAt = 0;
-    let run = 0;
     node.onaudioprocess = (e) => {
-      const t0 = performance.now();
       // Chromium says when this block will be heard; elsewhere count blocks from the first.
       const blockAt = Number.isFinite(e.playbackTime) && e.playbackTime > 0 ? e.playbackTime : nextBlockAt || ctx.currentTime;
       nextBlockAt = blockAt + FALLBACK_BLOCK / ctx.sampleRate;
-      const events = playback.render(e.outputBuffer.getChannelData(0), e.outputBuffer.getChannelData(1), FALLBACK_BLOCK, blockAt);
-      if (events.segment) this.receive({ type: 'segment', run, ...events.segment });
-      if (events.pass !== undefined) setTimeout(() => this.receive({ type: 'pass', run, pass: events.pass! }), 0);
-      const busy = performance.now() - t0;
-      const s = this.stats;
-      s.busyMs += busy;
-      s.audioMs += (FALLBACK_BLOCK / ctx.sampleRate) * 1000;
-      s.blocks += 1;
-      s.maxBlockMs = Math.max(s.maxBlockMs, busy);
+      host.render(e.outputBuffer.getChannelData(0), e.outputBuffer.getChannelData(1), blockAt);
     };
     this.stats.engine = 'script-processor';
-    return {
-      node,
-      send: (m) => {
-        if (m.type === 'start') {
-          run = m.run;
-          playback.start(m.options);
-        }
-        else if (m.type === 'speed') playback.requestSpeed(m.speed, m.requestedAt);
-        else if (m.type === 'stop') playback.stop();
-      },
-    };
+    return { node, send: (m) => host.receive(m) };
   }
 
   private tick() {

@@ -4,11 +4,11 @@
 import { LivePlayback } from '../../audio/live-playback';
 import { PlaybackMap } from '../../audio/click';
 import { heardOffsetSec } from '../../audio/stretch';
-import { attackTimes, hitsOverBed } from './signals';
+import { attackTimes, hitsOverBed, sineTone, zeroCrossingFrequency } from './signals';
 
 const SR = 44100;
 const Q = 128;
-const tone = (hz: number, sec: number) => Float32Array.from({ length: Math.round(sec * SR) }, (_, i) => 0.5 * Math.sin((2 * Math.PI * hz * i) / SR));
+const tone = (hz: number, sec: number) => sineTone(hz, sec, SR);
 
 /** Renders `sec` seconds from context time `t0`, calling `each(blockAt)` before every block. */
 function renderFor(p: LivePlayback, t0: number, sec: number, each?: (blockAt: number, index: number) => void) {
@@ -27,22 +27,6 @@ function renderFor(p: LivePlayback, t0: number, sec: number, each?: (blockAt: nu
     right.set(r, i * Q);
   }
   return { left, right, events };
-}
-
-/** Frequency from rising zero crossings between two sample indices. */
-function frequency(x: Float32Array, from: number, to: number) {
-  let first = -1;
-  let last = -1;
-  let count = 0;
-  for (let i = from + 1; i < to; i++) {
-    if (x[i - 1]! < 0 && x[i]! >= 0) {
-      const at = i - 1 + x[i - 1]! / (x[i - 1]! - x[i]!);
-      if (first < 0) first = at;
-      last = at;
-      count++;
-    }
-  }
-  return (count - 1) / ((last - first) / SR);
 }
 
 test('a count-in leaves exact silence until the music comes in', () => {
@@ -72,7 +56,7 @@ test('a tempo change is applied in the very next block, keeps the pitch, and joi
   // The musical position carries on: one second in at 1× is one second of the recording.
   expect(seg.from).toBeCloseTo(seg.at, 6);
   const changeFrame = Math.round(seg.at * SR);
-  expect(Math.abs(frequency(left, changeFrame + 4000, left.length - 2000) - 440) / 440).toBeLessThan(0.01);
+  expect(Math.abs(zeroCrossingFrequency(left, SR, changeFrame + 4000, left.length - 2000) - 440) / 440).toBeLessThan(0.01);
   // No jump between samples at the join larger than the tone's own largest step (0.5 × 2π × 440 / SR ≈ 0.031).
   const ownStep = 0.5 * ((2 * Math.PI * 440) / SR);
   let joinJump = 0;

@@ -87,3 +87,23 @@ export function attackTimes(x: Float32Array, rate: number): number[] {
   }
   return out;
 }
+
+/** A sine of amplitude 0.5 at `hz`. */
+export const sineTone = (hz: number, seconds: number, rate: number) =>
+  Float32Array.from({ length: Math.round(seconds * rate) }, (_, i) => 0.5 * Math.sin((2 * Math.PI * hz * i) / rate));
+
+/** Frequency from the interval between the first and last rising zero crossings (interpolated) in [from, to). */
+export function zeroCrossingFrequency(x: Float32Array, rate: number, from = 0, to = x.length): number {
+  let first = -1;
+  let last = -1;
+  let count = 0;
+  for (let i = from + 1; i < to; i++) {
+    if (x[i - 1]! < 0 && x[i]! >= 0) {
+      const at = i - 1 + x[i - 1]! / (x[i - 1]! - x[i]!);
+      if (first < 0) first = at;
+      last = at;
+      count++;
+    }
+  }
+  return (count - 1) / ((last - first) / rate);
+}

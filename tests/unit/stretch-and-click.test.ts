@@ -1,26 +1,14 @@
 // Time stretch (soundtouchjs through audio/stretch.ts) and click scheduling (audio/click.ts), on signals whose
 // truth is exact by construction.
 import { stretchOffline } from '../../audio/stretch';
+import { sineTone, zeroCrossingFrequency } from './signals';
 import { beatsPerBar, clicksBetween, countIn, MetronomeTimeline, PlaybackMap } from '../../audio/click';
 
 const SR = 44100;
-const tone = (hz: number, sec: number) => Float32Array.from({ length: Math.round(sec * SR) }, (_, i) => 0.5 * Math.sin((2 * Math.PI * hz * i) / SR));
+const tone = (hz: number, sec: number) => sineTone(hz, sec, SR);
 
-/** Frequency from the interval between the first and last rising zero crossings (interpolated). */
-function frequency(x: Float32Array, skip = 2000): number {
-  let first = -1;
-  let last = -1;
-  let count = 0;
-  for (let i = skip + 1; i < x.length - skip; i++) {
-    if (x[i - 1]! < 0 && x[i]! >= 0) {
-      const at = i - 1 + x[i - 1]! / (x[i - 1]! - x[i]!);
-      if (first < 0) first = at;
-      last = at;
-      count++;
-    }
-  }
-  return (count - 1) / ((last - first) / SR);
-}
+/** Frequency away from the first and last `skip` samples (the stretch's lead-in and tail). */
+const frequency = (x: Float32Array, skip = 2000) => zeroCrossingFrequency(x, SR, skip, x.length - skip);
 
 const maxJump = (x: Float32Array) => {
   let m = 0;

@@ -1,0 +1,76 @@
+// The engine side of the player, whichever thread it runs on: takes the main thread's messages, drives
+// LivePlayback block by block, and reports back. The AudioWorklet (audio/worklet/stretch-processor.ts) and the
+// ScriptProcessor fallback (client/player.ts) both run this one class.
+//
+// Messages in: load (right is null for a mono recording), start, speed, stop, reset-stats. Messages out:
+// segment (a tempo change took effect), pass (the loop came round), stats (time spent rendering ÷ audio time
+// rendered, every 64 blocks). Each start is a numbered run, and what the engine reports carries the run's
+// number, so a report that crosses a restart in flight is recognised as stale.
+import { LivePlayback, type StartOptions } from './live-playback';
+
+export type ToEngine =
+  | { type: 'load'; left: Float32Array; right: Float32Array | null }
+  | { type: 'start'; options: StartOptions; run: number }
+  | { type: 'speed'; speed: number; requestedAt: number }
+  | { type: 'stop' }
+  | { type: 'reset-stats' };
+
+export interface RenderStats {
+  busyMs: number;
+  audioMs: number;
+  blocks: number;
+  maxBlockMs: number;
+}
+
+export type FromEngine =
+  | { type: 'segment'; run: number; at: number; from: number; speed: number; requestedAt: number }
+  | { type: 'pass'; run: number; pass: number }
+  | ({ type: 'stats' } & RenderStats);
+
+const STATS_EVERY_BLOCKS = 64;
+const noStats = (): RenderStats => ({ busyMs: 0, audioMs: 0, blocks: 0, maxBlockMs: 0 });
+
+export class PlaybackHost {
+  private playback: LivePlayback | null = null;
+  private run = 0;
+  private stats = noStats();
+
+  constructor(
+    private readonly sampleRate: number,
+    private readonly post: (m: FromEngine) => void,
+    /** A millisecond clock for the load figures (performance.now where the scope has it). */
+    private readonly now: () => number,
+  ) {}
+
+  receive(m: ToEngine) {
+    if (m.type === 'load') {
+      this.playback = new LivePlayback({ left: m.left, right: m.right ?? m.left }, this.sampleRate);
+      this.playback.warmUp();
+    } else if (m.type === 'start') {
+      this.run = m.run;
+      this.playback?.start(m.options);
+    } else if (m.type === 'speed') this.playback?.requestSpeed(m.speed, m.requestedAt);
+    else if (m.type === 'stop') this.playback?.stop();
+    else if (m.type === 'reset-stats') this.stats = noStats();
+  }
+
+  /** Fills one block heard from context time `blockAt` (silence when stopped). */
+  render(left: Float32Array, right: Float32Array, blockAt: number) {
+    if (!this.playback?.active) {
+      left.fill(0);
+      right.fill(0);
+      return;
+    }
+    const t0 = this.now();
+    const events = this.playback.render(left, right, left.length, blockAt);
+    const busy = this.now() - t0;
+    if (events.segment) this.post({ type: 'segment', run: this.run, ...events.segment });
+    if (events.pass !== undefined) this.post({ type: 'pass', run: this.run, pass: events.pass });
+    const s = this.stats;
+    s.busyMs += busy;
+    s.audioMs += (left.length / this.sampleRate) * 1000;
+    s.blocks += 1;
+    s.maxBlockMs = Math.max(s.maxBlockMs, busy);
+    if (s.blocks % STATS_EVERY_BLOCKS === 0) this.post({ type: 'stats', ...s });
+  }
+}
