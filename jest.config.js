@@ -1,10 +1,14 @@
 // Four projects, one jest: unit (audio/ and shared/ in Node), api (supertest against the real server and
 // MariaDB), browser (headless Chromium against the exported web build), components (jest-expo on web).
+// The @/ import alias of tsconfig.json (the Expo template's), for jest's resolver.
+const alias = { '^@/(.*)$': '<rootDir>/$1' };
+
 const node = {
   testEnvironment: 'node',
   transform: { '^.+\\.[jt]sx?$': 'babel-jest' },
   // soundtouchjs is published as an ES module only: let babel turn it into CommonJS for jest.
   transformIgnorePatterns: ['/node_modules/(?!soundtouchjs/)'],
+  moduleNameMapper: alias,
 };
 
 module.exports = {
@@ -19,6 +23,7 @@ module.exports = {
     {
       displayName: 'components',
       preset: 'jest-expo/web',
+      moduleNameMapper: alias,
       testMatch: ['<rootDir>/tests/components/**/*.test.tsx'],
     },
   ],

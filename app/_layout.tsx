@@ -9,8 +9,8 @@ import { Manrope_700Bold } from '@expo-google-fonts/manrope/700Bold';
 import { SpaceGrotesk_600SemiBold } from '@expo-google-fonts/space-grotesk/600SemiBold';
 import { SpaceGrotesk_700Bold } from '@expo-google-fonts/space-grotesk/700Bold';
 import { View } from 'react-native';
-import { colors } from '../components/theme';
-import { fetcher } from '../client/api';
+import { colors } from '@/components/theme';
+import { fetcher } from '@/client/api';
 
 export default function RootLayout() {
   const [loaded, fontError] = useFonts({

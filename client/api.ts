@@ -1,5 +1,5 @@
 // The one place the client talks HTTP. Same origin as the server; cookies carry the session.
-import { ApiErrorSchema } from '../shared/schemas';
+import { ApiErrorSchema } from '@/shared/schemas';
 
 /** Where the API lives: the same origin in the web build, overridable for the dev server. */
 export const apiBase = (process.env.EXPO_PUBLIC_API_URL ?? '').replace(/\/$/, '');

@@ -1,7 +1,7 @@
 // SWR hooks: how screens read server data. Mutations revalidate the keys they change.
 import useSWR, { mutate } from 'swr';
 import { ApiRequestError, apiFetch, fetcher } from './api';
-import type { Candidate, Me, PeaksDto, PracticeEntryDto, PracticeInput, Recording, RecordingPatch, Song, SongInput, SongPatch, Student, UserSummary, Role } from '../shared/schemas';
+import type { Candidate, Me, PeaksDto, PracticeEntryDto, PracticeInput, Recording, RecordingPatch, Song, SongInput, SongPatch, Student, UserSummary, Role } from '@/shared/schemas';
 
 export function useMe() {
   const { data, error, isLoading } = useSWR<Me>('/api/me', fetcher, { shouldRetryOnError: false });

@@ -1,7 +1,7 @@
 // The plain metronome (click-only mode): any BPM and meter, accent on the first beat of the bar. The beats
-// come from MetronomeTimeline (audio/click.ts) and are scheduled a little ahead on the audio clock; a tempo or
+// come from MetronomeTimeline (audio/playback/click.ts) and are scheduled a little ahead on the audio clock; a tempo or
 // meter change takes effect from the next beat.
-import { beatsPerBar, MetronomeTimeline } from '../audio/click';
+import { beatsPerBar, MetronomeTimeline } from '@/audio/playback/click';
 import { DEFAULT_CLICK_GAIN, newAudioContext, scheduleBlip } from './click-sound';
 
 const LOOKAHEAD_SEC = 0.12;

@@ -1,14 +1,14 @@
 // The audition player in the browser. The recording is stretched block by block by LivePlayback
-// (audio/live-playback.ts) on the audio thread, in an AudioWorklet (audio/worklet/stretch-processor.ts); where
+// (audio/playback/live-playback.ts) on the audio thread, in an AudioWorklet (audio/playback/worklet/stretch-processor.ts); where
 // the browser offers none (an insecure origin, an old browser) the same code runs in a ScriptProcessor on the
 // main thread. The main thread keeps a copy of the playback timeline for the click, which it schedules on the
-// recording's beat grid (audio/click.ts), and for the position shown.
-import { beatsPerBar as perBarOf, clicksBetween, countIn, PlaybackMap, type PlaybackSegment } from '../audio/click';
-import type { StartOptions } from '../audio/live-playback';
-import { PlaybackHost, type FromEngine, type RenderStats, type ToEngine } from '../audio/playback-host';
-import { wrapIntoLoop, type Passage } from '../audio/passage';
-import { encodeWav, renderAtTempo } from '../audio/export';
-import { heardOffsetSec, type StereoBuffer } from '../audio/stretch';
+// recording's beat grid (audio/playback/click.ts), and for the position shown.
+import { beatsPerBar as perBarOf, clicksBetween, countIn, PlaybackMap, type PlaybackSegment } from '@/audio/playback/click';
+import type { StartOptions } from '@/audio/playback/live-playback';
+import { PlaybackHost, type FromEngine, type RenderStats, type ToEngine } from '@/audio/playback/playback-host';
+import { wrapIntoLoop, type Passage } from '@/audio/practice/passage';
+import { encodeWav, renderAtTempo } from '@/audio/playback/export';
+import { heardOffsetSec, type StereoBuffer } from '@/audio/playback/stretch';
 import { DEFAULT_CLICK_GAIN, newAudioContext, scheduleBlip } from './click-sound';
 
 /** Frames per block of the ScriptProcessor fallback (the worklet renders 128 at a time). */
@@ -260,7 +260,7 @@ export class AuditionPlayer {
     if (!this.ctx || !this.map) return;
     const until = this.ctx.currentTime + LOOKAHEAD_SEC;
     if (this.clickOn && until > this.scheduledUntil) {
-      // The stretched attacks come a little early or late (audio/stretch.ts): the click follows the music.
+      // The stretched attacks come a little early or late (audio/playback/stretch.ts): the click follows the music.
       for (const c of clicksBetween(this.map, this.grid.beats, this.grid.downbeats, this.scheduledUntil, until, this.loop)) {
         this.click(Math.max(this.ctx.currentTime, c.time + heardOffsetSec(this.map.speedAt(c.time))), c.accent);
       }

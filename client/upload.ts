@@ -1,6 +1,6 @@
 // Uploading a recording with real progress: fetch() cannot report upload progress, XMLHttpRequest can.
 import { apiBase, ApiRequestError } from './api';
-import { ApiErrorSchema, type Recording, type RecordingKind } from '../shared/schemas';
+import { ApiErrorSchema, type Recording, type RecordingKind } from '@/shared/schemas';
 
 export function uploadRecording(
   songId: string,

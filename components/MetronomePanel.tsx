@@ -4,12 +4,12 @@ import { Platform, Text, View } from 'react-native';
 import { Button, Card, Chip, Heading, Notice, Row, Small } from './ui';
 import { colors, space, type } from './theme';
 import { formatBpm } from './TempoLabel';
-import { Level } from './audition/SoundLevels';
-import { usePolled } from './audition/PlayerWaveform';
-import { beatsPerBar } from '../audio/click';
-import { markingsFor, nextMarkDown, nextMarkUp } from '../audio/metronome';
-import { Metronome } from '../client/metronome';
-import { DEFAULT_CLICK_GAIN } from '../client/click-sound';
+import { Level } from '@/components/audition/SoundLevels';
+import { usePolled } from '@/components/audition/PlayerWaveform';
+import { beatsPerBar } from '@/audio/playback/click';
+import { markingsFor, nextMarkDown, nextMarkUp } from '@/audio/practice/metronome';
+import { Metronome } from '@/client/metronome';
+import { DEFAULT_CLICK_GAIN } from '@/client/click-sound';
 
 const METERS = ['2/4', '3/4', '4/4', '5/4', '6/8', '7/8', '12/8'];
 const MIN = 30;

@@ -4,7 +4,7 @@ import { Text, View } from 'react-native';
 import { Small } from './ui';
 import { colors, space, type } from './theme';
 import { formatBpm } from './TempoLabel';
-import { usePractice } from '../client/hooks';
+import { usePractice } from '@/client/hooks';
 
 export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: number }) {
   const { entries } = usePractice(songId);

@@ -4,7 +4,7 @@ import { Body, Small } from './ui';
 import { ProgressBar } from './ProgressBar';
 import { formatBpm } from './TempoLabel';
 import { colors, radius, space } from './theme';
-import type { Recording } from '../shared/schemas';
+import type { Recording } from '@/shared/schemas';
 
 const statusText: Record<Recording['status'], string> = {
   queued: 'Waiting to be analysed',

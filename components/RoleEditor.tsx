@@ -2,8 +2,8 @@ import React from 'react';
 import { Pressable, Text, View } from 'react-native';
 import { Body, Card, Heading, Loading, Small } from './ui';
 import { colors, layout, radius, space, type } from './theme';
-import { changeRole, useUsers } from '../client/hooks';
-import { ROLES, type Role } from '../shared/schemas';
+import { changeRole, useUsers } from '@/client/hooks';
+import { ROLES, type Role } from '@/shared/schemas';
 
 const roleNames: Record<Role, string> = { player: 'Player', teacher: 'Teacher', admin: 'Admin' };
 

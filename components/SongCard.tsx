@@ -4,7 +4,7 @@ import { useRouter } from 'expo-router';
 import { Body, Card, Small } from './ui';
 import { SongTempos } from './TempoLabel';
 import { space } from './theme';
-import type { Song } from '../shared/schemas';
+import type { Song } from '@/shared/schemas';
 
 export function SongCard({ song }: { song: Song }) {
   const router = useRouter();

@@ -2,7 +2,7 @@ import React, { useState } from 'react';
 import { View } from 'react-native';
 import { Button, Card, Field, Heading, Notice } from './ui';
 import { space } from './theme';
-import { SongInputSchema, type SongInput } from '../shared/schemas';
+import { SongInputSchema, type SongInput } from '@/shared/schemas';
 
 const optionalNumber = (s: string) => (s.trim() === '' ? null : Number(s.replace(',', '.')));
 

@@ -4,8 +4,8 @@ import { Pressable, Text, View } from 'react-native';
 import { Button, Small } from './ui';
 import { colors, layout, radius, space, type } from './theme';
 import { formatBpm } from './TempoLabel';
-import { tapTempo } from '../audio/tap-tempo';
-import type { AnalysisResult } from '../shared/schemas';
+import { tapTempo } from '@/audio/practice/tap-tempo';
+import type { Analysis } from '@/shared/schemas';
 
 const relationNames: Record<string, string> = {
   half: 'half',
@@ -24,7 +24,7 @@ export function TempoCorrection({
   current,
   onChoose,
 }: {
-  analysis: AnalysisResult;
+  analysis: Analysis;
   current: number;
   onChoose: (bpm: number | null) => void;
 }) {

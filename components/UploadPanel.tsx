@@ -7,8 +7,8 @@ import { Button, Card, Field, Heading, Notice, Small } from './ui';
 import { FilePicker } from './FilePicker';
 import { ProgressBar } from './ProgressBar';
 import { colors, layout, radius, space, type } from './theme';
-import { uploadRecording } from '../client/upload';
-import type { Recording, RecordingKind } from '../shared/schemas';
+import { uploadRecording } from '@/client/upload';
+import type { Recording, RecordingKind } from '@/shared/schemas';
 
 const kinds: { value: RecordingKind; label: string; hint: string }[] = [
   { value: 'take', label: 'My take', hint: 'You playing: for the steadiness report and your practice log.' },

@@ -7,15 +7,15 @@ import { auth } from './auth';
 import { config } from './config';
 import { databaseState } from './db';
 import { errorHandler, HttpError } from './http';
-import { loadUser } from './middleware/session';
-import { adminRouter } from './routes/admin';
-import { devRouter } from './routes/dev';
-import { meRouter } from './routes/me';
-import { songsRouter } from './routes/songs';
-import { studentsRouter } from './routes/students';
-import { recordingsRouter, songRecordingsRouter } from './routes/recordings';
-import { candidatesRouter, songTemposRouter } from './routes/tempos';
-import type { Health } from '../shared/schemas';
+import { loadUser } from '@/server/middleware/session';
+import { adminRouter } from '@/server/routes/admin';
+import { devRouter } from '@/server/routes/dev';
+import { meRouter } from '@/server/routes/me';
+import { songsRouter } from '@/server/routes/songs';
+import { studentsRouter } from '@/server/routes/students';
+import { recordingsRouter, songRecordingsRouter } from '@/server/routes/recordings';
+import { candidatesRouter, songTemposRouter } from '@/server/routes/tempos';
+import type { Health } from '@/shared/schemas';
 
 // eslint-disable-next-line @typescript-eslint/no-require-imports
 const { version } = require('../package.json') as { version: string };

@@ -3,7 +3,7 @@
 import { Op, type ModelStatic, type Model, type Transaction, type WhereOptions } from 'sequelize';
 import { createAdapterFactory, type CleanedWhere } from '@better-auth/core/db/adapter';
 import { sequelize } from './db';
-import { authModels } from './models';
+import { authModels } from '@/server/models';
 
 type AnyModel = ModelStatic<Model>;
 

@@ -2,7 +2,7 @@
 import { betterAuth } from 'better-auth';
 import { config } from './config';
 import { sequelizeAdapter } from './auth-adapter';
-import { linkMail, sendMail } from './mail/mailer';
+import { linkMail, sendMail } from '@/server/mail/mailer';
 
 const deliver = (mail: Parameters<typeof sendMail>[0]) => {
   // better-auth waits for these hooks; sending in the background keeps sign-up fast, and a failure is logged.

@@ -1,5 +1,5 @@
 // The invented teaching studio that `npm start` seeds once: Harbour Lane Studio, its teacher and three players.
-import type { Role, SongInput } from '../shared/schemas';
+import type { Role, SongInput } from '@/shared/schemas';
 
 export const DEMO_PASSWORD = 'harbour-lane-demo';
 

@@ -3,8 +3,8 @@ import { config } from './config';
 import { createApp } from './app';
 import { migrate } from './migrator';
 import { sequelize } from './db';
-import { startAnalysisRunner } from './jobs/runner';
-import { cleanSpool } from './middleware/upload';
+import { startAnalysisRunner } from '@/server/jobs/runner';
+import { cleanSpool } from '@/server/middleware/upload';
 
 async function main() {
   const applied = await migrate();

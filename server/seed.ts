@@ -3,10 +3,10 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { auth } from './auth';
-import { Account, User, StudioLink } from './models';
-import { createSong } from './services/songs';
-import { storeRecording } from './services/recordings';
-import { checkAudio } from './analysis/audio-check';
+import { Account, User, StudioLink } from '@/server/models';
+import { createSong } from '@/server/services/songs';
+import { storeRecording } from '@/server/services/recordings';
+import { checkAudio } from '@/server/analysis/audio-check';
 import { config } from './config';
 import { DEMO_PASSWORD, demoPeople, demoStudentEmails, demoTeacherEmail, type DemoRecording } from './demo-data';
 

@@ -1,5 +1,8 @@
 // The single source of every API shape: the server validates with these, the client infers its types.
 import { z } from 'zod';
+import { AnalysisSchema } from './analysis';
+
+export * from './analysis';
 
 export const ROLES = ['player', 'teacher', 'admin'] as const;
 export const RoleSchema = z.enum(ROLES);
@@ -125,29 +128,6 @@ export const RecordingPatchSchema = z
   .strict();
 export type RecordingPatch = z.infer<typeof RecordingPatchSchema>;
 
-export const TempoCandidateSchema = z.object({
-  bpm: z.number(),
-  score: z.number(),
-  relation: z.enum(['primary', 'half', 'double', 'triple', 'third', 'quadruple', 'quarter', 'three-halves', 'two-thirds', 'unrelated']),
-});
-
-export const AnalysisSchema = z.object({
-  bpm: z.number().nullable(),
-  confidence: z.number(),
-  candidates: z.array(TempoCandidateSchema),
-  beats: z.array(z.number()),
-  downbeats: z.array(z.number()),
-  meter: z.string().nullable(),
-  curve: z.array(z.object({ t: z.number(), bpm: z.number() })),
-  startBpm: z.number().nullable(),
-  endBpm: z.number().nullable(),
-  driftPct: z.number().nullable(),
-  stabilityCv: z.number().nullable(),
-  beatCount: z.number(),
-  durationSec: z.number(),
-  analysisMs: z.number(),
-});
-export type AnalysisResult = z.infer<typeof AnalysisSchema>;
 
 export const RecordingSchema = z.object({
   id: z.string(),

@@ -1,4 +1,4 @@
-// soundtouchjs ships no types; these cover the parts Tactus uses (audio/stretch.ts).
+// soundtouchjs ships no types; these cover the parts Tactus uses (audio/playback/stretch.ts).
 declare module 'soundtouchjs' {
   export interface FrameSource {
     /** Writes up to numFrames interleaved stereo frames from `position` into target; returns frames written. */

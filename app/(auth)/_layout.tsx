@@ -2,9 +2,9 @@
 import React from 'react';
 import { Slot } from 'expo-router';
 import { ScrollView, View } from 'react-native';
-import { Wordmark } from '../../components/NavShell';
-import { Small } from '../../components/ui';
-import { colors, space } from '../../components/theme';
+import { Wordmark } from '@/components/NavShell';
+import { Small } from '@/components/ui';
+import { colors, space } from '@/components/theme';
 
 export default function AuthLayout() {
   return (

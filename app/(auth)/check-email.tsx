@@ -1,6 +1,6 @@
 import React from 'react';
 import { Link, useLocalSearchParams } from 'expo-router';
-import { Body, Card, Heading } from '../../components/ui';
+import { Body, Card, Heading } from '@/components/ui';
 
 export default function CheckEmail() {
   const { email } = useLocalSearchParams<{ email?: string }>();

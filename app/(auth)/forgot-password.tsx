@@ -1,10 +1,10 @@
 import React, { useState } from 'react';
 import { Link } from 'expo-router';
 import { View } from 'react-native';
-import { Body, Button, Card, Field, Heading, Notice } from '../../components/ui';
-import { space } from '../../components/theme';
-import { requestPasswordReset } from '../../client/auth';
-import { useAction } from '../../client/useAction';
+import { Body, Button, Card, Field, Heading, Notice } from '@/components/ui';
+import { space } from '@/components/theme';
+import { requestPasswordReset } from '@/client/auth';
+import { useAction } from '@/client/useAction';
 
 export default function ForgotPassword() {
   const [email, setEmail] = useState('');

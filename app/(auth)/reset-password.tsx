@@ -1,10 +1,10 @@
 import React, { useState } from 'react';
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
-import { Button, Card, Field, Heading, Notice } from '../../components/ui';
-import { space } from '../../components/theme';
-import { resetPassword } from '../../client/auth';
-import { useAction } from '../../client/useAction';
+import { Button, Card, Field, Heading, Notice } from '@/components/ui';
+import { space } from '@/components/theme';
+import { resetPassword } from '@/client/auth';
+import { useAction } from '@/client/useAction';
 
 export default function ResetPassword() {
   const router = useRouter();

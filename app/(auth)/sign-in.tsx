@@ -1,11 +1,11 @@
 import React, { useState } from 'react';
 import { Link, useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
-import { Body, Button, Card, Field, Heading, Notice } from '../../components/ui';
-import { space } from '../../components/theme';
-import { signIn } from '../../client/auth';
-import { clearCache } from '../../client/hooks';
-import { useAction } from '../../client/useAction';
+import { Body, Button, Card, Field, Heading, Notice } from '@/components/ui';
+import { space } from '@/components/theme';
+import { signIn } from '@/client/auth';
+import { clearCache } from '@/client/hooks';
+import { useAction } from '@/client/useAction';
 
 export default function SignIn() {
   const router = useRouter();

@@ -1,10 +1,10 @@
 import React, { useState } from 'react';
 import { Link, useRouter } from 'expo-router';
 import { View } from 'react-native';
-import { Body, Button, Card, Field, Heading, Notice } from '../../components/ui';
-import { space } from '../../components/theme';
-import { signUp } from '../../client/auth';
-import { useAction } from '../../client/useAction';
+import { Body, Button, Card, Field, Heading, Notice } from '@/components/ui';
+import { space } from '@/components/theme';
+import { signUp } from '@/client/auth';
+import { useAction } from '@/client/useAction';
 
 export default function SignUp() {
   const router = useRouter();

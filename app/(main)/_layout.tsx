@@ -1,9 +1,9 @@
 // Signed-in frame: send anonymous visitors to sign-in, then show the navigation for this user's role.
 import React from 'react';
 import { Redirect, Slot, usePathname, useRouter } from 'expo-router';
-import { NavShell, type NavItem } from '../../components/NavShell';
-import { Loading, Notice, Screen } from '../../components/ui';
-import { useMe } from '../../client/hooks';
+import { NavShell, type NavItem } from '@/components/NavShell';
+import { Loading, Notice, Screen } from '@/components/ui';
+import { useMe } from '@/client/hooks';
 
 export default function MainLayout() {
   const { me, signedOut, error, isLoading } = useMe();

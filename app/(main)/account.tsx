@@ -2,11 +2,11 @@
 import React from 'react';
 import { useRouter } from 'expo-router';
 import { View } from 'react-native';
-import { Body, Button, Card, Heading, Screen, Small } from '../../components/ui';
-import { RoleEditor } from '../../components/RoleEditor';
-import { space } from '../../components/theme';
-import { signOut } from '../../client/auth';
-import { clearCache, useMe } from '../../client/hooks';
+import { Body, Button, Card, Heading, Screen, Small } from '@/components/ui';
+import { RoleEditor } from '@/components/RoleEditor';
+import { space } from '@/components/theme';
+import { signOut } from '@/client/auth';
+import { clearCache, useMe } from '@/client/hooks';
 
 const roleNames = { player: 'Player', teacher: 'Teacher', admin: 'Admin' } as const;
 

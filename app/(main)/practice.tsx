@@ -1,10 +1,10 @@
 // Practice: progress toward each goal tempo with the latest sessions of the log, and a plain metronome.
 import React from 'react';
-import { EmptyState, Heading, Screen, Notice } from '../../components/ui';
-import { useSongs } from '../../client/hooks';
-import { TempoProgress } from '../../components/TempoProgress';
-import { PracticeLog } from '../../components/PracticeLog';
-import { MetronomePanel } from '../../components/MetronomePanel';
+import { EmptyState, Heading, Screen, Notice } from '@/components/ui';
+import { useSongs } from '@/client/hooks';
+import { TempoProgress } from '@/components/TempoProgress';
+import { PracticeLog } from '@/components/PracticeLog';
+import { MetronomePanel } from '@/components/MetronomePanel';
 
 export default function Practice() {
   const { songs } = useSongs();

@@ -1,10 +1,10 @@
 // Students: a teacher's studio. Only teachers (and admins) see this screen; the server enforces it too.
 import React, { useState } from 'react';
 import { View } from 'react-native';
-import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Screen, Small } from '../../components/ui';
-import { space } from '../../components/theme';
-import { addStudent, useMe, useStudents } from '../../client/hooks';
-import { useAction } from '../../client/useAction';
+import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Screen, Small } from '@/components/ui';
+import { space } from '@/components/theme';
+import { addStudent, useMe, useStudents } from '@/client/hooks';
+import { useAction } from '@/client/useAction';
 
 export default function Students() {
   const { me } = useMe();

@@ -2,12 +2,12 @@
 // rate each and write a line on it, then mark one as the song's chosen tempo with a note.
 import React, { useState } from 'react';
 import { Text, View } from 'react-native';
-import { Button, Chip, Field, Notice, Row, Small } from '../ui';
-import { colors, radius, space, type } from '../theme';
-import { formatBpm } from '../TempoLabel';
-import { addCandidate, changeCandidate, chooseTempo, removeCandidate, useCandidates } from '../../client/hooks';
-import { useAction } from '../../client/useAction';
-import type { Candidate, Song } from '../../shared/schemas';
+import { Button, Chip, Field, Notice, Row, Small } from '@/components/ui';
+import { colors, radius, space, type } from '@/components/theme';
+import { formatBpm } from '@/components/TempoLabel';
+import { addCandidate, changeCandidate, chooseTempo, removeCandidate, useCandidates } from '@/client/hooks';
+import { useAction } from '@/client/useAction';
+import type { Candidate, Song } from '@/shared/schemas';
 
 export function CandidateTempos({ song, bpm, canEdit, wide, onHop }: { song: Song; bpm: number; canEdit: boolean; wide: boolean; onHop: (bpm: number) => void }) {
   const { candidates } = useCandidates(song.id);

@@ -2,11 +2,11 @@
 // the step-up run over it: start tempo, step, clean repetitions per step and goal.
 import React, { useState } from 'react';
 import { Text, View } from 'react-native';
-import { Button, Chip, Field, Notice, Row, Small } from '../ui';
-import { colors, space, type } from '../theme';
-import { formatBpm } from '../TempoLabel';
-import { stepUpTempos, validatePlan, type StepUpPlan, type StepUpState } from '../../audio/step-up';
-import type { Passage } from '../../audio/passage';
+import { Button, Chip, Field, Notice, Row, Small } from '@/components/ui';
+import { colors, space, type } from '@/components/theme';
+import { formatBpm } from '@/components/TempoLabel';
+import { stepUpTempos, validatePlan, type StepUpPlan, type StepUpState } from '@/audio/practice/step-up';
+import type { Passage } from '@/audio/practice/passage';
 
 export type SnapUnit = 'bar' | 'beat';
 

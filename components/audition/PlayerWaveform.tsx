@@ -2,9 +2,9 @@
 // the surface itself to tap or drag on: to seek, or, while choosing a passage, to mark it.
 import React, { memo, useEffect, useRef, useState } from 'react';
 import { Platform, View, type GestureResponderEvent, type LayoutChangeEvent } from 'react-native';
-import { Waveform } from '../Waveform';
-import { colors } from '../theme';
-import type { Passage } from '../../audio/passage';
+import { Waveform } from '@/components/Waveform';
+import { colors } from '@/components/theme';
+import type { Passage } from '@/audio/practice/passage';
 
 const StillWaveform = memo(Waveform);
 

@@ -1,8 +1,8 @@
 // Levels of the click and the music, each on its own, with the hearing caution beside them.
 import React from 'react';
 import { Text, View } from 'react-native';
-import { Chip, Notice, Row } from '../ui';
-import { colors, space, type } from '../theme';
+import { Chip, Notice, Row } from '@/components/ui';
+import { colors, space, type } from '@/components/theme';
 
 const STEP = 0.05;
 const pct = (v: number) => `${Math.round(v * 100)} %`;

@@ -2,11 +2,11 @@
 // the next mechanical metronome mark, 75 % / 100 %, an exact number, or one of the song's saved tempos.
 import React, { useState } from 'react';
 import { Text, View } from 'react-native';
-import { Button, Chip, Field, Row, Small } from '../ui';
-import { colors, space, type } from '../theme';
-import { formatBpm } from '../TempoLabel';
-import { nextMarkDown, nextMarkUp } from '../../audio/metronome';
-import type { Song } from '../../shared/schemas';
+import { Button, Chip, Field, Row, Small } from '@/components/ui';
+import { colors, space, type } from '@/components/theme';
+import { formatBpm } from '@/components/TempoLabel';
+import { nextMarkDown, nextMarkUp } from '@/audio/practice/metronome';
+import type { Song } from '@/shared/schemas';
 
 const tenth = (x: number) => Math.round(x * 10) / 10;
 

@@ -5,8 +5,8 @@ import fs from 'node:fs';
 import { fileTypeFromFile } from 'file-type';
 import { parseFile } from 'music-metadata';
 import { decodedSeconds, NotAudioError } from './decode';
-import { HttpError } from '../http';
-import type { AudioFormat } from '../models/Recording';
+import { HttpError } from '@/server/http';
+import type { AudioFormat } from '@/server/models/Recording';
 
 export interface CheckedAudio {
   format: AudioFormat;

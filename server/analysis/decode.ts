@@ -2,7 +2,7 @@
 // 32-bit float samples at the analysis rate, resampled inside ffmpeg. Measured fastest and the only route
 // that read every format here (see README, "Package choices").
 import { spawn } from 'node:child_process';
-import { ANALYSIS_RATE } from '../../audio/resample';
+import { ANALYSIS_RATE } from '@/audio/analysis/resample';
 
 export class NotAudioError extends Error {}
 

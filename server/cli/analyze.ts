@@ -1,9 +1,9 @@
 // `npm run analyze -- <file> [--json]`: the tempo engine on one file, for people and scripts.
 // Exit codes: 0 analysed, 2 not an audio file (or bad usage), 1 anything unexpected.
 import fs from 'node:fs';
-import { analyse } from '../../audio/analyse';
-import { decodeFile, NotAudioError } from '../analysis/decode';
-import type { Analysis } from '../../audio/types';
+import { analyse } from '@/audio/analysis/analyse';
+import { decodeFile, NotAudioError } from '@/server/analysis/decode';
+import type { Analysis } from '@/shared/analysis';
 
 async function main(argv: string[]) {
   const json = argv.includes('--json');

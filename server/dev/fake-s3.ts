@@ -3,7 +3,7 @@
 import path from 'node:path';
 // eslint-disable-next-line @typescript-eslint/no-require-imports
 const S3rver = require('s3rver');
-import { config } from '../config';
+import { config } from '@/server/config';
 
 const port = Number(new URL(config.storage.s3.endpoint).port || 4569);
 const directory = process.env.TACTUS_FAKE_S3_DIR ?? path.join(process.env.TACTUS_STATE ?? path.join(config.root, '.tactus'), 'fake-s3');

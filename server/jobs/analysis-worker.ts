@@ -5,11 +5,11 @@ import path from 'node:path';
 import crypto from 'node:crypto';
 import { pipeline } from 'node:stream/promises';
 import { parentPort } from 'node:worker_threads';
-import { analyse } from '../../audio/analyse';
-import { waveformPeaks } from '../../audio/peaks';
-import { decodeFile } from '../analysis/decode';
-import { objectStore } from '../storage';
-import { config } from '../config';
+import { analyse } from '@/audio/analysis/analyse';
+import { waveformPeaks } from '@/audio/analysis/peaks';
+import { decodeFile } from '@/server/analysis/decode';
+import { objectStore } from '@/server/storage';
+import { config } from '@/server/config';
 
 export interface WorkRequest {
   storageKey: string;

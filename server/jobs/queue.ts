@@ -4,9 +4,9 @@
 import os from 'node:os';
 import crypto from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
-import { sequelize } from '../db';
-import { config } from '../config';
-import { Analysis, AnalysisJob, Recording } from '../models';
+import { sequelize } from '@/server/db';
+import { config } from '@/server/config';
+import { Analysis, AnalysisJob, Recording } from '@/server/models';
 
 /** This process's name in the lockedBy / finishedBy columns. */
 export const processName = `${os.hostname()}:${process.pid}:${crypto.randomBytes(3).toString('hex')}`;

@@ -3,7 +3,7 @@
 import os from 'node:os';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { config } from '../config';
+import { config } from '@/server/config';
 import { claimNext, complete, fail, heartbeat, release, type ClaimedJob } from './queue';
 import type { WorkMessage } from './analysis-worker';
 

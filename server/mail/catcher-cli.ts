@@ -1,5 +1,5 @@
 // `tsx server/mail/catcher-cli.ts`: runs the SMTP catcher until stopped. Started by scripts/services.sh.
-import { config } from '../config';
+import { config } from '@/server/config';
 import { startMailCatcher } from './catcher';
 
 startMailCatcher({ port: config.mail.port, dir: config.mail.caughtDir })

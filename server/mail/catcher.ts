@@ -5,7 +5,7 @@ import path from 'node:path';
 import crypto from 'node:crypto';
 import { SMTPServer } from 'smtp-server';
 import { simpleParser, type AddressObject } from 'mailparser';
-import type { CaughtMail } from '../../shared/schemas';
+import type { CaughtMail } from '@/shared/schemas';
 
 const addresses = (a: AddressObject | AddressObject[] | undefined) =>
   (Array.isArray(a) ? a : a ? [a] : []).flatMap((x) => x.value.map((v) => v.address ?? '')).filter(Boolean);

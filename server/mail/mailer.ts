@@ -1,6 +1,6 @@
 // Outgoing e-mail through nodemailer. Locally it reaches the SMTP catcher on loopback (scripts/ start it).
 import nodemailer from 'nodemailer';
-import { config } from '../config';
+import { config } from '@/server/config';
 
 const transport = nodemailer.createTransport({
   host: config.mail.host,

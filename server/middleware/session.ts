@@ -1,9 +1,9 @@
 // Who is asking: every /api route below the auth handler passes through loadUser; roles are checked here.
 import type { NextFunction, Request, Response } from 'express';
 import { fromNodeHeaders } from 'better-auth/node';
-import { auth } from '../auth';
-import { HttpError } from '../http';
-import type { Me, Role } from '../../shared/schemas';
+import { auth } from '@/server/auth';
+import { HttpError } from '@/server/http';
+import type { Me, Role } from '@/shared/schemas';
 
 declare module 'express-serve-static-core' {
   interface Request {

@@ -5,8 +5,8 @@ import path from 'node:path';
 import crypto from 'node:crypto';
 import multer from 'multer';
 import type { NextFunction, Request, Response } from 'express';
-import { config } from '../config';
-import { HttpError } from '../http';
+import { config } from '@/server/config';
+import { HttpError } from '@/server/http';
 
 interface SpooledFile {
   path: string;

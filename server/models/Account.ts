@@ -1,5 +1,5 @@
 import { DataTypes, Model } from 'sequelize';
-import { sequelize } from '../db';
+import { sequelize } from '@/server/db';
 
 /** A way of signing in (here: e-mail and a password hash). Written by better-auth. */
 export class Account extends Model {}

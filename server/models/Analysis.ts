@@ -1,7 +1,7 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
-import { sequelize } from '../db';
+import { sequelize } from '@/server/db';
 
-/** What the tempo engine found in a recording (JSON of audio/types.ts Analysis) and its waveform peaks. */
+/** What the tempo engine found in a recording (JSON of audio/analysis/types.ts Analysis) and its waveform peaks. */
 export class Analysis extends Model<InferAttributes<Analysis>, InferCreationAttributes<Analysis>> {
   declare recordingId: string;
   declare result: string;

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
-import { sequelize } from '../db';
+import { sequelize } from '@/server/db';
 import type { AnalysisStatus } from './Recording';
 
 /** One analysis to run; claimed by a server process with SELECT … FOR UPDATE SKIP LOCKED (jobs/queue.ts). */

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
-import { sequelize } from '../db';
+import { sequelize } from '@/server/db';
 import { decimalBpm } from './decimal';
 
 /** A tempo the player is trying out for a song, with a rating (1–5) and a line of text. */

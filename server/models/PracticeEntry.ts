@@ -1,5 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
-import { sequelize } from '../db';
+import { sequelize } from '@/server/db';
 import { decimalBpm } from './decimal';
 
 /** One logged practice session on a song (or a passage of it). */

@@ -1,5 +1,5 @@
 import { DataTypes, Model } from 'sequelize';
-import { sequelize } from '../db';
+import { sequelize } from '@/server/db';
 
 /** A signed-in browser. Written by better-auth. */
 export class Session extends Model {}

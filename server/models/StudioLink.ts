@@ -1,5 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
-import { sequelize } from '../db';
+import { sequelize } from '@/server/db';
 
 /** A teacher and one of their students: the teacher may see the student's songs and takes. */
 export class StudioLink extends Model<InferAttributes<StudioLink>, InferCreationAttributes<StudioLink>> {

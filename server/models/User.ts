@@ -1,6 +1,6 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes } from 'sequelize';
-import { sequelize } from '../db';
-import type { Role } from '../../shared/schemas';
+import { sequelize } from '@/server/db';
+import type { Role } from '@/shared/schemas';
 
 /** A person who signs in. better-auth writes these rows through the adapter in auth-adapter.ts. */
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {

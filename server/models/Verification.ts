@@ -1,5 +1,5 @@
 import { DataTypes, Model } from 'sequelize';
-import { sequelize } from '../db';
+import { sequelize } from '@/server/db';
 
 /** One-time values for e-mail verification and password reset. Written by better-auth. */
 export class Verification extends Model {}

@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import { handler, parseBody } from '../http';
-import { requireRole } from '../middleware/session';
-import { RoleChangeSchema } from '../../shared/schemas';
-import { listUsers, setRole } from '../services/users';
+import { handler, parseBody } from '@/server/http';
+import { requireRole } from '@/server/middleware/session';
+import { RoleChangeSchema } from '@/shared/schemas';
+import { listUsers, setRole } from '@/server/services/users';
 
 export const adminRouter = Router();
 adminRouter.use(requireRole('admin'));

@@ -1,7 +1,7 @@
 // Development helpers: the caught-mail list. app.ts mounts this only when config.devTools is on.
 import { Router } from 'express';
-import { config } from '../config';
-import { readCaughtMails } from '../mail/catcher';
+import { config } from '@/server/config';
+import { readCaughtMails } from '@/server/mail/catcher';
 
 export const devRouter = Router();
 

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { currentUser, requireUser } from '../middleware/session';
+import { currentUser, requireUser } from '@/server/middleware/session';
 
 export const meRouter = Router();
 meRouter.get('/', requireUser, (req, res) => {

@@ -1,15 +1,15 @@
 import { Router } from 'express';
 import rangeParser from 'range-parser';
-import { config } from '../config';
-import { handler, HttpError, parseBody } from '../http';
-import { currentUser, requireUser } from '../middleware/session';
-import { receiveUpload, removeSpooled, spooledFile } from '../middleware/upload';
-import { checkAudio } from '../analysis/audio-check';
-import { Analysis } from '../models';
-import { objectStore } from '../storage';
-import { analysisRunner } from '../jobs/runner';
-import { retry } from '../jobs/queue';
-import { songForOwner, songForReader } from '../services/songs';
+import { config } from '@/server/config';
+import { handler, HttpError, parseBody } from '@/server/http';
+import { currentUser, requireUser } from '@/server/middleware/session';
+import { receiveUpload, removeSpooled, spooledFile } from '@/server/middleware/upload';
+import { checkAudio } from '@/server/analysis/audio-check';
+import { Analysis } from '@/server/models';
+import { objectStore } from '@/server/storage';
+import { analysisRunner } from '@/server/jobs/runner';
+import { retry } from '@/server/jobs/queue';
+import { songForOwner, songForReader } from '@/server/services/songs';
 import {
   checkFileName,
   deleteRecordings,
@@ -19,8 +19,8 @@ import {
   recordingForReader,
   storeRecording,
   toRecordingDto,
-} from '../services/recordings';
-import { RecordingPatchSchema, RecordingUploadFieldsSchema } from '../../shared/schemas';
+} from '@/server/services/recordings';
+import { RecordingPatchSchema, RecordingUploadFieldsSchema } from '@/shared/schemas';
 
 /** Mounted at /api/songs/:songId/recordings. */
 export const songRecordingsRouter = Router({ mergeParams: true });

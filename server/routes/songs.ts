@@ -1,9 +1,9 @@
 import { Router } from 'express';
-import { handler, parseBody } from '../http';
-import { currentUser, requireUser } from '../middleware/session';
-import { SongInputSchema, SongPatchSchema } from '../../shared/schemas';
-import { createSong, listSongs, songForOwner, songForReader, toSongDto, updateSong } from '../services/songs';
-import { deleteSong } from '../services/recordings';
+import { handler, parseBody } from '@/server/http';
+import { currentUser, requireUser } from '@/server/middleware/session';
+import { SongInputSchema, SongPatchSchema } from '@/shared/schemas';
+import { createSong, listSongs, songForOwner, songForReader, toSongDto, updateSong } from '@/server/services/songs';
+import { deleteSong } from '@/server/services/recordings';
 
 export const songsRouter = Router();
 songsRouter.use(requireUser);

@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import { handler, parseBody } from '../http';
-import { currentUser, requireRole } from '../middleware/session';
-import { AddStudentSchema } from '../../shared/schemas';
-import { addStudent, listStudents, removeStudent } from '../services/studio';
+import { handler, parseBody } from '@/server/http';
+import { currentUser, requireRole } from '@/server/middleware/session';
+import { AddStudentSchema } from '@/shared/schemas';
+import { addStudent, listStudents, removeStudent } from '@/server/services/studio';
 
 export const studentsRouter = Router();
 studentsRouter.use(requireRole('teacher', 'admin'));

@@ -1,10 +1,10 @@
 import { Router } from 'express';
-import { handler, parseBody } from '../http';
-import { currentUser, requireUser } from '../middleware/session';
-import { CandidateInputSchema, CandidatePatchSchema, ChooseTempoSchema, PracticeInputSchema } from '../../shared/schemas';
-import { songForOwner, songForReader, toSongDto } from '../services/songs';
-import { candidateForOwner, chooseTempo, listCandidates, listPractice, logPractice, toCandidateDto, toPracticeDto } from '../services/tempos';
-import { CandidateTempo } from '../models';
+import { handler, parseBody } from '@/server/http';
+import { currentUser, requireUser } from '@/server/middleware/session';
+import { CandidateInputSchema, CandidatePatchSchema, ChooseTempoSchema, PracticeInputSchema } from '@/shared/schemas';
+import { songForOwner, songForReader, toSongDto } from '@/server/services/songs';
+import { candidateForOwner, chooseTempo, listCandidates, listPractice, logPractice, toCandidateDto, toPracticeDto } from '@/server/services/tempos';
+import { CandidateTempo } from '@/server/models';
 
 /** Mounted at /api/songs/:songId: candidates, the chosen tempo and the practice log of one song. */
 export const songTemposRouter = Router({ mergeParams: true });

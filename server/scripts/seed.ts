@@ -1,6 +1,6 @@
-import { migrate } from '../migrator';
-import { sequelize } from '../db';
-import { demoSignInTable, seedDemo } from '../seed';
+import { migrate } from '@/server/migrator';
+import { sequelize } from '@/server/db';
+import { demoSignInTable, seedDemo } from '@/server/seed';
 
 (async () => {
   await migrate();

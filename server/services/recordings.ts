@@ -1,13 +1,13 @@
 // Recordings: who may read and change them, storing and removing them with their rows, and their API form.
 import crypto from 'node:crypto';
 import fs from 'node:fs';
-import { sequelize } from '../db';
-import { Analysis, Recording, Song, StudioLink } from '../models';
-import { HttpError, notFound } from '../http';
-import { objectStore } from '../storage';
-import { enqueue } from '../jobs/queue';
-import type { CheckedAudio } from '../analysis/audio-check';
-import type { Me, Recording as RecordingDto, RecordingKind, RecordingPatch } from '../../shared/schemas';
+import { sequelize } from '@/server/db';
+import { Analysis, Recording, Song, StudioLink } from '@/server/models';
+import { HttpError, notFound } from '@/server/http';
+import { objectStore } from '@/server/storage';
+import { enqueue } from '@/server/jobs/queue';
+import type { CheckedAudio } from '@/server/analysis/audio-check';
+import type { Me, Recording as RecordingDto, RecordingKind, RecordingPatch } from '@/shared/schemas';
 
 /**
  * The uploaded file name, kept only to show it back. Browsers send a bare name; one with folders or control

@@ -1,7 +1,7 @@
 // Songs: who may read and change them, and their API form.
-import { Song, StudioLink } from '../models';
-import { notFound } from '../http';
-import type { Me, Song as SongDto, SongInput, SongPatch } from '../../shared/schemas';
+import { Song, StudioLink } from '@/server/models';
+import { notFound } from '@/server/http';
+import type { Me, Song as SongDto, SongInput, SongPatch } from '@/shared/schemas';
 
 export function toSongDto(song: Song): SongDto {
   return {

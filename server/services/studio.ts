@@ -1,8 +1,8 @@
 // A studio: a teacher and the students linked to them.
 import { fn, col } from 'sequelize';
-import { Song, StudioLink, User } from '../models';
-import { HttpError, notFound } from '../http';
-import type { Student } from '../../shared/schemas';
+import { Song, StudioLink, User } from '@/server/models';
+import { HttpError, notFound } from '@/server/http';
+import type { Student } from '@/shared/schemas';
 
 export async function listStudents(teacherId: string): Promise<Student[]> {
   const links = await StudioLink.findAll({

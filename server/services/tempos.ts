@@ -1,7 +1,7 @@
 // A song's candidate tempos, its chosen tempo and its practice log.
-import { CandidateTempo, PracticeEntry, type Song } from '../models';
-import { notFound } from '../http';
-import type { Candidate, Me, PracticeEntryDto, PracticeInput } from '../../shared/schemas';
+import { CandidateTempo, PracticeEntry, type Song } from '@/server/models';
+import { notFound } from '@/server/http';
+import type { Candidate, Me, PracticeEntryDto, PracticeInput } from '@/shared/schemas';
 import { songForOwner } from './songs';
 
 export const toCandidateDto = (c: CandidateTempo): Candidate => ({

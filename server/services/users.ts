@@ -1,7 +1,7 @@
 // Accounts as an admin sees them.
-import { User } from '../models';
-import { notFound } from '../http';
-import type { Role, UserSummary } from '../../shared/schemas';
+import { User } from '@/server/models';
+import { notFound } from '@/server/http';
+import type { Role, UserSummary } from '@/shared/schemas';
 
 export const toUserSummary = (u: User): UserSummary => ({
   id: u.id,

@@ -1,6 +1,6 @@
 // Where recordings' files live: one small interface, two drivers (local disk, S3-compatible object storage).
 import type { Readable } from 'node:stream';
-import { config } from '../config';
+import { config } from '@/server/config';
 import { DiskStore } from './disk';
 import { S3Store } from './s3';
 

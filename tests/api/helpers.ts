@@ -2,7 +2,7 @@
 import request from 'supertest';
 import mariadb from 'mariadb';
 import crypto from 'node:crypto';
-import type { CaughtMail, Role } from '../../shared/schemas';
+import type { CaughtMail, Role } from '@/shared/schemas';
 
 export const baseUrl = process.env.TACTUS_TEST_URL!;
 

@@ -6,7 +6,7 @@ import os from 'node:os';
 import path from 'node:path';
 import mariadb from 'mariadb';
 import { agent, linkPath, PASSWORD, query, uniqueEmail, waitForMail } from './helpers';
-import { freePort, root, spawnTs, waitForOk } from '../setup/processes';
+import { freePort, root, spawnTs, waitForOk } from '@/tests/setup/processes';
 
 const DB = 'tactus_test_jobs';
 const CLIP = fs.readFileSync(path.join(root, 'fixtures/clips/waltz-150.mp3'));

@@ -1,7 +1,7 @@
 // In production the development helpers are not mounted: the caught-mail list must not exist there.
 import type { ChildProcess } from 'node:child_process';
 import request from 'supertest';
-import { freePort, spawnTs, waitForOk } from '../setup/processes';
+import { freePort, spawnTs, waitForOk } from '@/tests/setup/processes';
 
 let child: ChildProcess;
 let url: string;

@@ -6,7 +6,7 @@ import path from 'node:path';
 import crypto from 'node:crypto';
 import request from 'supertest';
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
-import { accuracy1 } from '../../audio/evaluation';
+import { accuracy1 } from '@/audio/analysis/evaluation';
 import { query, servers, signedInUser, waitForAnalysis, type TestServer } from './helpers';
 
 const CLIPS = path.resolve(__dirname, '../../fixtures/clips');

@@ -8,7 +8,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { launchChromium, outputDir, signInThroughApp } from './chromium';
-import { baseUrl, PASSWORD, signedInUser, waitForAnalysis } from '../api/helpers';
+import { baseUrl, PASSWORD, signedInUser, waitForAnalysis } from '@/tests/api/helpers';
 
 const CLIP = fs.readFileSync(path.resolve(__dirname, '../../fixtures/clips/drums-bass-124.wav'));
 const CLIP_SECONDS = 12;

@@ -3,7 +3,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
-import { baseUrl } from '../api/helpers';
+import { baseUrl } from '@/tests/api/helpers';
 
 export const outputDir = path.resolve(__dirname, '../../test-output');
 

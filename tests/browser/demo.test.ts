@@ -3,7 +3,7 @@ import { execFileSync } from 'node:child_process';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { launchChromium, outputDir, signInThroughApp, viewports } from './chromium';
-import { DEMO_PASSWORD } from '../../server/demo-data';
+import { DEMO_PASSWORD } from '@/server/demo-data';
 
 const root = path.resolve(__dirname, '../..');
 let browser: Browser;

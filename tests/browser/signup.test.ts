@@ -3,7 +3,7 @@
 import path from 'node:path';
 import type { Browser } from 'playwright-core';
 import { launchChromium, outputDir, viewports } from './chromium';
-import { linkPath, uniqueEmail, waitForMail, baseUrl } from '../api/helpers';
+import { linkPath, uniqueEmail, waitForMail, baseUrl } from '@/tests/api/helpers';
 
 let browser: Browser;
 beforeAll(async () => {

@@ -1,7 +1,7 @@
 // The new-song form validates with the shared schema before anything is sent.
 import React from 'react';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
-import { SongForm } from '../../components/SongForm';
+import { SongForm } from '@/components/SongForm';
 
 test('a missing title is shown beside the field and nothing is submitted', async () => {
   const onSubmit = jest.fn(async () => {});

@@ -1,6 +1,6 @@
 import React from 'react';
 import { render, screen } from '@testing-library/react';
-import { TempoProgress } from '../../components/TempoProgress';
+import { TempoProgress } from '@/components/TempoProgress';
 
 test('shows the working tempo as a share of the goal', () => {
   render(<TempoProgress title="Copperline Reel" working={88} goal={112} />);

@@ -1,11 +1,11 @@
 // The rendered corpus against the tempo maps it was made from (fixtures/pieces.ts: truth by construction).
 // The corpus is generated on first use and cached in fixtures/corpus/ (npm run corpus).
 import path from 'node:path';
-import { analyse } from '../../audio/analyse';
-import { accuracy1, beatFMeasure, trimBeats } from '../../audio/evaluation';
-import { decodeFile } from '../../server/analysis/decode';
-import { CORPUS_DIR, ensureCorpus } from '../../fixtures/generate';
-import { medianCurveError, referenceBpm, type Truth } from '../../fixtures/pieces';
+import { analyse } from '@/audio/analysis/analyse';
+import { accuracy1, beatFMeasure, trimBeats } from '@/audio/analysis/evaluation';
+import { decodeFile } from '@/server/analysis/decode';
+import { CORPUS_DIR, ensureCorpus } from '@/fixtures/generate';
+import { medianCurveError, referenceBpm, type Truth } from '@/fixtures/pieces';
 
 let truths: Truth[] = [];
 beforeAll(() => {

@@ -2,10 +2,10 @@
 // rendered from (fixtures/generate.ts --clips; truth known by construction).
 import fs from 'node:fs';
 import path from 'node:path';
-import { analyse } from '../../audio/analyse';
-import { accuracy1, beatFMeasure } from '../../audio/evaluation';
-import { decodeFile, NotAudioError } from '../../server/analysis/decode';
-import type { Truth } from '../../fixtures/pieces';
+import { analyse } from '@/audio/analysis/analyse';
+import { accuracy1, beatFMeasure } from '@/audio/analysis/evaluation';
+import { decodeFile, NotAudioError } from '@/server/analysis/decode';
+import type { Truth } from '@/fixtures/pieces';
 
 const CLIPS = path.resolve(__dirname, '../../fixtures/clips');
 const clips = fs.readdirSync(CLIPS).filter((f) => f.endsWith('.truth.json')).map((f) => f.replace('.truth.json', ''));

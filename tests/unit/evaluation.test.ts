@@ -3,7 +3,7 @@
 // definitions of Accuracy1/2 in Gouyon et al. 2006 (IEEE TASLP 14(5), section III).
 import fs from 'node:fs';
 import path from 'node:path';
-import { accuracy1, accuracy2, beatFMeasure, beatPScore, matchEvents, tempoDetection, trimBeats } from '../../audio/evaluation';
+import { accuracy1, accuracy2, beatFMeasure, beatPScore, matchEvents, tempoDetection, trimBeats } from '@/audio/analysis/evaluation';
 
 const REF = path.resolve(__dirname, '../../../shared/reference-data');
 

@@ -4,7 +4,7 @@ import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { encodeWav, exportFileName, renderAtTempo } from '../../audio/export';
+import { encodeWav, exportFileName, renderAtTempo } from '@/audio/playback/export';
 
 const SR = 44100;
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-wav-'));

@@ -3,10 +3,10 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { analyse } from '../../audio/analyse';
-import { accuracy1 } from '../../audio/evaluation';
-import { decodeFile } from '../../server/analysis/decode';
-import { renderMidi } from '../../fixtures/render';
+import { analyse } from '@/audio/analysis/analyse';
+import { accuracy1 } from '@/audio/analysis/evaluation';
+import { decodeFile } from '@/server/analysis/decode';
+import { renderMidi } from '@/fixtures/render';
 
 const MIDI = path.resolve(__dirname, '../../../shared/reference-data/groove-midi/1_funk-groove1_138_beat_4-4.mid');
 

@@ -1,9 +1,9 @@
 // LivePlayback, the code the player's audio thread runs, driven block by block in Node as the AudioWorklet
 // drives it (128 frames a block). Signals are exact by construction: a steady tone, and a click train whose
 // click times are known.
-import { LivePlayback } from '../../audio/live-playback';
-import { PlaybackMap } from '../../audio/click';
-import { heardOffsetSec } from '../../audio/stretch';
+import { LivePlayback } from '@/audio/playback/live-playback';
+import { PlaybackMap } from '@/audio/playback/click';
+import { heardOffsetSec } from '@/audio/playback/stretch';
 import { attackTimes, hitsOverBed, sineTone, zeroCrossingFrequency } from './signals';
 
 const SR = 44100;

@@ -1,6 +1,6 @@
 // Metronome marks, tempo-marking guides and tap tempo.
-import { METRONOME_MARKS, markingsFor, nearestMark, nextMarkDown, nextMarkUp, TEMPO_MARKINGS } from '../../audio/metronome';
-import { tapTempo } from '../../audio/tap-tempo';
+import { METRONOME_MARKS, markingsFor, nearestMark, nextMarkDown, nextMarkUp, TEMPO_MARKINGS } from '@/audio/practice/metronome';
+import { tapTempo } from '@/audio/practice/tap-tempo';
 
 describe('the mechanical metronome scale (as engraved on Maelzel-pattern metronomes; from memory)', () => {
   test('runs from 40 to 208 in 39 marks with the traditional steps', () => {

@@ -1,9 +1,9 @@
 // Passages on the beat grid, looping on a straight timeline, and step-up practice; on grids whose truth is
 // exact by construction (a steady 120 BPM in 4/4 with a one-beat pickup).
-import { barAt, barContaining, beatInBar, beatsBetween, describePassage, loopPass, skipBar, snapPassage, wrapIntoLoop } from '../../audio/passage';
-import { clicksBetween, PlaybackMap } from '../../audio/click';
-import { loopedSource } from '../../audio/stretch';
-import { passFinished, startStepUp, stepUpTempos, validatePlan } from '../../audio/step-up';
+import { barAt, barContaining, beatInBar, beatsBetween, describePassage, loopPass, skipBar, snapPassage, wrapIntoLoop } from '@/audio/practice/passage';
+import { clicksBetween, PlaybackMap } from '@/audio/playback/click';
+import { loopedSource } from '@/audio/playback/stretch';
+import { passFinished, startStepUp, stepUpTempos, validatePlan } from '@/audio/practice/step-up';
 
 // Beat 0 at 0.5 s is a pickup; bar 1 starts at 1.0 s; bars are 2 s long.
 const beats = Array.from({ length: 41 }, (_, i) => 0.5 + i * 0.5);

@@ -1,8 +1,8 @@
-// Time stretch (soundtouchjs through audio/stretch.ts) and click scheduling (audio/click.ts), on signals whose
+// Time stretch (soundtouchjs through audio/playback/stretch.ts) and click scheduling (audio/playback/click.ts), on signals whose
 // truth is exact by construction.
-import { stretchOffline } from '../../audio/stretch';
+import { stretchOffline } from '@/audio/playback/stretch';
 import { sineTone, zeroCrossingFrequency } from './signals';
-import { beatsPerBar, clicksBetween, countIn, MetronomeTimeline, PlaybackMap } from '../../audio/click';
+import { beatsPerBar, clicksBetween, countIn, MetronomeTimeline, PlaybackMap } from '@/audio/playback/click';
 
 const SR = 44100;
 const tone = (hz: number, sec: number) => sineTone(hz, sec, SR);
@@ -34,7 +34,7 @@ describe.each([0.5, 0.7, 0.85, 1.15, 1.5, 2.0])('stretching a 440 Hz tone to %p 
 });
 
 test.each([0.5, 0.7, 0.85, 1.15, 1.5, 2.0])('a 55 Hz bass tone (A1) keeps its pitch within 2 %% at %p ×', (ratio) => {
-  // Short overlap-add sequences (audio/stretch.ts) keep attacks in time but cut low notes into fewer periods;
+  // Short overlap-add sequences (audio/playback/stretch.ts) keep attacks in time but cut low notes into fewer periods;
   // measured worst case with our settings 1.6 % (SoundTouch's automatic settings 1.2 %).
   const input = tone(55, 8);
   const out = stretchOffline({ left: input, right: input }, ratio);

@@ -1,7 +1,7 @@
 // The tempo engine on signals whose truth is exact by construction (click times are placed to the sample):
 // steady clicks, a ramp, silence, a single chord and very short inputs.
-import { analyse } from '../../audio/analyse';
-import { beatFMeasure } from '../../audio/evaluation';
+import { analyse } from '@/audio/analysis/analyse';
+import { beatFMeasure } from '@/audio/analysis/evaluation';
 import { clickTrack, rampBeats, RATE, singleChord, steadyBeats, tempoAt } from './signals';
 
 describe('steady click tracks', () => {

@@ -3,16 +3,16 @@
 import React from 'react';
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { Text, View } from 'react-native';
-import { Body, Button, Card, Heading, Loading, Notice, Screen, Small } from '../../../components/ui';
-import { Waveform } from '../../../components/Waveform';
-import { ProgressBar } from '../../../components/ProgressBar';
-import { TempoCorrection } from '../../../components/TempoCorrection';
-import { AuditionPanel } from '../../../components/AuditionPanel';
-import { apiBase, apiFetch } from '../../../client/api';
-import { formatBpm } from '../../../components/TempoLabel';
-import { formatDuration } from '../../../components/RecordingRow';
-import { colors, space, type } from '../../../components/theme';
-import { correctRecording, useMe, usePeaks, useRecording, useSong } from '../../../client/hooks';
+import { Body, Button, Card, Heading, Loading, Notice, Screen, Small } from '@/components/ui';
+import { Waveform } from '@/components/Waveform';
+import { ProgressBar } from '@/components/ProgressBar';
+import { TempoCorrection } from '@/components/TempoCorrection';
+import { AuditionPanel } from '@/components/AuditionPanel';
+import { apiBase, apiFetch } from '@/client/api';
+import { formatBpm } from '@/components/TempoLabel';
+import { formatDuration } from '@/components/RecordingRow';
+import { colors, space, type } from '@/components/theme';
+import { correctRecording, useMe, usePeaks, useRecording, useSong } from '@/client/hooks';
 
 import { mutate } from 'swr';
 

@@ -2,12 +2,12 @@
 import React from 'react';
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
-import { Body, Button, EmptyState, Heading, Loading, Notice, Screen, Small } from '../../../components/ui';
-import { SongTempos } from '../../../components/TempoLabel';
-import { UploadPanel } from '../../../components/UploadPanel';
-import { RecordingRow } from '../../../components/RecordingRow';
-import { space } from '../../../components/theme';
-import { useRecordings, useSong } from '../../../client/hooks';
+import { Body, Button, EmptyState, Heading, Loading, Notice, Screen, Small } from '@/components/ui';
+import { SongTempos } from '@/components/TempoLabel';
+import { UploadPanel } from '@/components/UploadPanel';
+import { RecordingRow } from '@/components/RecordingRow';
+import { space } from '@/components/theme';
+import { useRecordings, useSong } from '@/client/hooks';
 
 export default function SongScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();

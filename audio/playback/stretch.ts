@@ -96,7 +96,7 @@ class SteadyFilter extends SimpleFilter {
 
 /**
  * A running stretcher at one tempo: a tempo change starts a new one at the same musical position
- * (audio/live-playback.ts), which is heard at once where changing SoundTouch's tempo in place is not.
+ * (audio/playback/live-playback.ts), which is heard at once where changing SoundTouch's tempo in place is not.
  */
 export class Stretcher {
   private readonly pipe = new SoundTouch();

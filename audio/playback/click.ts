@@ -1,6 +1,6 @@
 // The click: where the recording's beats fall in playback time when it plays at another tempo (possibly
 // changed part-way), which of them are accented, and the count-in before playback starts.
-import { beatsBetween, type Passage } from './passage';
+import { beatsBetween, type Passage } from '@/audio/practice/passage';
 
 /**
  * One stretch of playback at a constant speed: from context time `at` (seconds on the audio clock) the
@@ -72,7 +72,7 @@ export interface Click {
 
 /**
  * The clicks to schedule between context times [from, to): the recording's beats mapped through the playback.
- * With a loop the map runs on the loop's straight timeline (audio/passage.ts) and the region's beats repeat.
+ * With a loop the map runs on the loop's straight timeline (audio/practice/passage.ts) and the region's beats repeat.
  */
 export function clicksBetween(map: PlaybackMap, beats: number[], downbeats: number[], from: number, to: number, loop: Passage | null = null): Click[] {
   const out: Click[] = [];

@@ -1,7 +1,7 @@
-// The player's audio-thread half: an AudioWorkletProcessor around PlaybackHost (audio/playback-host.ts, which
+// The player's audio-thread half: an AudioWorkletProcessor around PlaybackHost (audio/playback/playback-host.ts, which
 // also says what the messages are). Bundled on its own into public/stretch-processor.js by
 // `npm run build:worklet`, because a worklet module loads as one plain script.
-import { PlaybackHost, type ToEngine } from '../playback-host';
+import { PlaybackHost, type ToEngine } from '@/audio/playback/playback-host';
 
 // The AudioWorkletGlobalScope, declared here because TypeScript's DOM library does not describe it.
 declare const currentTime: number;

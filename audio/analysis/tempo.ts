@@ -1,7 +1,7 @@
 // Stage 3 — global tempo: the strongest periodicity under a broad prior on tempo (log-normal around 120 BPM,
 // as in Ellis 2007 and librosa's beat tracker), with the other strong peaks ranked and named by their
 // relation to it (half, double, dotted …).
-import type { TempoCandidate, TempoRelation } from './types';
+import type { TempoCandidate, TempoRelation } from '@/shared/analysis';
 import type { PeriodicityCurve } from './periodicity';
 
 const PRIOR_CENTRE_BPM = 120;

@@ -4,10 +4,10 @@
 // A tempo change is applied at the start of the next block: a new stretcher starts at the exact musical
 // position the timeline gives for that moment, cross-faded from the old one over a few milliseconds. (SoundTouch
 // keeps up to ~16 k frames of already-stretched audio queued, so changing its tempo in place would be heard a
-// third of a second late.) Loops run on a straight timeline over a looped source (audio/passage.ts).
+// third of a second late.) Loops run on a straight timeline over a looped source (audio/practice/passage.ts).
 import { loopedSource, planarSource, Stretcher, type StereoBuffer } from './stretch';
 import { PlaybackMap, type PlaybackSegment } from './click';
-import { loopPass, type Passage } from './passage';
+import { loopPass, type Passage } from '@/audio/practice/passage';
 
 const CROSSFADE = 256;
 

@@ -1,6 +1,6 @@
 // Stage 6 — the tempo curve and its summary, from the beat times: beat-to-beat tempo, lightly smoothed,
 // sampled once a second; start and end tempo, drift and stability (coefficient of variation).
-import type { CurvePoint } from './types';
+import type { CurvePoint } from '@/shared/analysis';
 
 /** Tempo of each beat-to-beat interval, placed at the interval's midpoint. */
 export function interBeatTempi(beats: number[]): { t: number; bpm: number }[] {

@@ -1,6 +1,6 @@
 // The tempo engine: samples in, analysis out. Each stage is one function in its own file, called here in
 // the order the signal flows: onset → periodicity → tempo → beats → meter → curve → summary.
-import type { Analysis } from './types';
+import type { Analysis } from '@/shared/analysis';
 import { onsetEnvelope } from './onset';
 import { bpmToLag, globalPeriodicity, localPulse, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
 import { estimateTempo, relationTo, round1, round3 } from './tempo';

@@ -2,7 +2,7 @@
 // 16-bit PCM WAV file (through wavefile, which writes the RIFF/WAVE header to the format's specification).
 import { WaveFile } from 'wavefile';
 import { stretchOffline, type StereoBuffer } from './stretch';
-import type { Passage } from './passage';
+import type { Passage } from '@/audio/practice/passage';
 
 /** The passage (or everything) at `tempo` × the recording's own speed. */
 export function renderAtTempo(audio: StereoBuffer, sampleRate: number, tempo: number, passage: Passage | null = null): StereoBuffer {

@@ -1,5 +1,5 @@
 // The engine side of the player, whichever thread it runs on: takes the main thread's messages, drives
-// LivePlayback block by block, and reports back. The AudioWorklet (audio/worklet/stretch-processor.ts) and the
+// LivePlayback block by block, and reports back. The AudioWorklet (audio/playback/worklet/stretch-processor.ts) and the
 // ScriptProcessor fallback (client/player.ts) both run this one class.
 //
 // Messages in: load (right is null for a mono recording), start, speed, stop, reset-stats. Messages out:
