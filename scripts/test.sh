@@ -18,6 +18,6 @@ results="$TACTUS_STATE/jest-results.json"
 status=0
 npx jest --ci --json --outputFile="$results" "$@" || status=$?
 # One plain closing line that any reader of the log understands.
-node -e 'const r = require(process.argv[1]); console.log(`tests: ${r.numPassedTests} passed, ${r.numFailedTests} failed, ${r.numPendingTests} skipped`)' "$results" || true
+node "$ROOT/tests/setup/summary.js" "$results" || true
 log "npm test took $(( $(date +%s) - started )) s"
 exit $status

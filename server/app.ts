@@ -15,6 +15,7 @@ import { songsRouter } from '@/server/routes/songs';
 import { studentsRouter } from '@/server/routes/students';
 import { recordingsRouter, songRecordingsRouter } from '@/server/routes/recordings';
 import { candidatesRouter, songTemposRouter } from '@/server/routes/tempos';
+import { songPracticeRouter } from '@/server/routes/practice';
 import type { Health } from '@/shared/schemas';
 
 // eslint-disable-next-line @typescript-eslint/no-require-imports
@@ -41,6 +42,7 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.use('/api', loadUser);
   app.use('/api/me', meRouter);
   app.use('/api/songs/:songId/recordings', songRecordingsRouter);
+  app.use('/api/songs/:songId/practice', songPracticeRouter);
   app.use('/api/songs/:songId', songTemposRouter);
   app.use('/api/candidates', candidatesRouter);
   app.use('/api/songs', songsRouter);

@@ -4,12 +4,17 @@ import { createApp } from './app';
 import { migrate } from './migrator';
 import { sequelize } from './db';
 import { startAnalysisRunner } from '@/server/jobs/runner';
+import { queueReanalyses } from '@/server/jobs/queue';
+import { ENGINE_VERSION } from '@/audio/analysis/version';
 import { cleanSpool } from '@/server/middleware/upload';
 
 async function main() {
   const applied = await migrate();
   if (applied.length) console.log(`[tactus] applied migrations: ${applied.join(', ')}`);
   cleanSpool();
+  // Recordings analysed by an older engine are analysed again in the background, behind new uploads.
+  const outdated = await queueReanalyses(ENGINE_VERSION);
+  if (outdated) console.log(`[tactus] ${outdated} recording(s) analysed by an older engine queued for re-analysis`);
   // Queued jobs, and jobs whose process died mid-way, are picked up again from the table.
   const runner = startAnalysisRunner();
   const serveWeb = config.production || process.env.TACTUS_SERVE_WEB === '1';

@@ -162,7 +162,9 @@ export const CandidateInputSchema = z.object({
   rating: z.number().int().min(1, 'rating is 1 to 5').max(5, 'rating is 1 to 5').nullish(),
   note: z.string().trim().max(500).nullish(),
 });
+export type CandidateInput = z.infer<typeof CandidateInputSchema>;
 export const CandidatePatchSchema = CandidateInputSchema.partial();
+export type CandidatePatch = z.infer<typeof CandidatePatchSchema>;
 export const CandidateSchema = z.object({
   id: z.string(),
   songId: z.string(),

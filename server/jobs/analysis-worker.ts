@@ -7,6 +7,7 @@ import { pipeline } from 'node:stream/promises';
 import { parentPort } from 'node:worker_threads';
 import { analyse } from '@/audio/analysis/analyse';
 import { waveformPeaks } from '@/audio/analysis/peaks';
+import { ENGINE_VERSION } from '@/audio/analysis/version';
 import { decodeFile } from '@/server/analysis/decode';
 import { objectStore } from '@/server/storage';
 import { config } from '@/server/config';
@@ -16,7 +17,7 @@ export interface WorkRequest {
 }
 export type WorkMessage =
   | { type: 'progress'; value: number }
-  | { type: 'done'; result: ReturnType<typeof analyse>; peaks: ReturnType<typeof waveformPeaks>; engineMs: number }
+  | { type: 'done'; result: ReturnType<typeof analyse>; peaks: ReturnType<typeof waveformPeaks>; engineMs: number; engineVersion: number }
   | { type: 'failed'; reason: string };
 
 const post = (m: WorkMessage) => parentPort!.postMessage(m);
@@ -35,7 +36,7 @@ parentPort!.on('message', async ({ storageKey }: WorkRequest) => {
     const started = performance.now();
     const result = analyse(samples, sampleRate);
     const peaks = waveformPeaks(samples, sampleRate);
-    post({ type: 'done', result, peaks, engineMs: Math.round(performance.now() - started) });
+    post({ type: 'done', result, peaks, engineMs: Math.round(performance.now() - started), engineVersion: ENGINE_VERSION });
   } catch (err) {
     post({ type: 'failed', reason: `analysis failed: ${(err as Error).message}` });
   } finally {

@@ -72,7 +72,7 @@ export class AnalysisRunner {
         await heartbeat(job, m.value);
         return;
       }
-      if (m.type === 'done') await complete(job, m.result, m.peaks, m.engineMs);
+      if (m.type === 'done') await complete(job, m.result, m.peaks, m.engineMs, m.engineVersion);
       else await fail(job, m.reason);
     } catch (err) {
       console.error('[tactus] could not record an analysis result:', err);

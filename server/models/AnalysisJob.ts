@@ -8,6 +8,8 @@ export class AnalysisJob extends Model<InferAttributes<AnalysisJob>, InferCreati
   declare recordingId: string;
   declare status: CreationOptional<AnalysisStatus>;
   declare attempts: CreationOptional<number>;
+  /** 0: a new upload; 1: a background re-analysis (after an engine change), taken only when nothing else waits. */
+  declare priority: CreationOptional<number>;
   declare lastError: CreationOptional<string | null>;
   declare lockedBy: CreationOptional<string | null>;
   declare heartbeatAt: CreationOptional<Date | null>;
@@ -21,6 +23,7 @@ AnalysisJob.init(
     recordingId: { type: DataTypes.UUID, allowNull: false, unique: true },
     status: { type: DataTypes.ENUM('queued', 'running', 'done', 'failed'), allowNull: false, defaultValue: 'queued' },
     attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    priority: { type: DataTypes.TINYINT, allowNull: false, defaultValue: 0 },
     lastError: { type: DataTypes.TEXT, allowNull: true },
     lockedBy: { type: DataTypes.STRING(100), allowNull: true },
     heartbeatAt: { type: DataTypes.DATE(3), allowNull: true },

@@ -1,13 +1,18 @@
-// Recordings: who may read and change them, storing and removing them with their rows, and their API form.
+// Recordings: storing an upload with its row and analysis job, reading them back (the analysis validated
+// against its one schema), serving their audio, changing and deleting them with their files.
 import crypto from 'node:crypto';
 import fs from 'node:fs';
+import type { Readable } from 'node:stream';
 import { sequelize } from '@/server/db';
-import { Analysis, Recording, Song, StudioLink } from '@/server/models';
-import { HttpError, notFound } from '@/server/http';
-import { objectStore } from '@/server/storage';
-import { enqueue } from '@/server/jobs/queue';
-import type { CheckedAudio } from '@/server/analysis/audio-check';
-import type { Me, Recording as RecordingDto, RecordingKind, RecordingPatch } from '@/shared/schemas';
+import { config } from '@/server/config';
+import { Analysis, Recording, type Song } from '@/server/models';
+import { HttpError } from '@/server/http';
+import { objectStore, type ByteRange } from '@/server/storage';
+import { enqueue, retry } from '@/server/jobs/queue';
+import { analysisRunner } from '@/server/jobs/runner';
+import { checkAudio, type CheckedAudio } from '@/server/analysis/audio-check';
+import { AnalysisSchema, type Analysis as AnalysisDto, type Me, type Recording as RecordingDto, type RecordingKind, type RecordingPatch } from '@/shared/schemas';
+import { assertMay, missing, type Action } from './access';
 
 /**
  * The uploaded file name, kept only to show it back. Browsers send a bare name; one with folders or control
@@ -61,31 +66,43 @@ export async function storeRecording(opts: {
   }
 }
 
-async function canRead(user: Me, ownerId: string): Promise<boolean> {
-  if (ownerId === user.id || user.role === 'admin') return true;
-  return user.role === 'teacher' && (await StudioLink.count({ where: { teacherId: user.id, studentId: ownerId } })) > 0;
+/** An upload that multer has spooled: judged by its content, stored, and queued for analysis. */
+export async function addRecording(
+  user: Me,
+  song: Song,
+  upload: { kind: RecordingKind; label: string | null; fileName: string | undefined; spoolFile: string; sizeBytes: number },
+): Promise<RecordingDto> {
+  await assertMay(user, 'write', 'song', song.ownerId);
+  const originalName = checkFileName(upload.fileName);
+  const audio = await checkAudio(upload.spoolFile, config.uploads.maxDurationSec);
+  const recording = await storeRecording({ song, ownerId: user.id, kind: upload.kind, label: upload.label, originalName, spoolFile: upload.spoolFile, sizeBytes: upload.sizeBytes, audio });
+  analysisRunner()?.poke();
+  return toRecordingDto(recording, null);
 }
 
-/** The owner, their linked teacher and an admin may read; anyone else is told it does not exist. */
-export async function recordingForReader(user: Me, id: string): Promise<Recording> {
+/** The recording, when `user` may do `action` to it (see access.ts); otherwise "recording not found". */
+export async function recordingFor(user: Me, action: Action, id: string): Promise<Recording> {
   const r = await Recording.findByPk(id);
-  if (!r || !(await canRead(user, r.ownerId))) throw notFound('recording');
+  if (!r) throw missing('recording');
+  await assertMay(user, action, 'recording', r.ownerId);
   return r;
 }
 
-export async function recordingForOwner(user: Me, id: string): Promise<Recording> {
-  const r = await Recording.findByPk(id);
-  if (!r || r.ownerId !== user.id) throw notFound('recording');
-  return r;
-}
-
-export async function listRecordings(songId: string): Promise<Recording[]> {
-  return Recording.findAll({ where: { songId }, order: [['createdAt', 'DESC']] });
+/**
+ * A stored analysis, checked against the one schema as it is read. A result that no longer fits (written by
+ * an engine whose output differed) is shown as no analysis rather than passed on half-understood; the
+ * re-analysis of outdated results replaces it.
+ */
+export function readStoredAnalysis(a: Analysis | null): AnalysisDto | null {
+  if (!a) return null;
+  const parsed = AnalysisSchema.safeParse(JSON.parse(a.result));
+  if (parsed.success) return parsed.data;
+  console.error(`[tactus] the stored analysis of recording ${a.recordingId} does not fit the schema: ${parsed.error.issues[0]?.message}`);
+  return null;
 }
 
 export async function toRecordingDto(r: Recording, analysis?: Analysis | null): Promise<RecordingDto> {
-  const a = analysis === undefined ? await Analysis.findByPk(r.id) : analysis;
-  const result = a ? JSON.parse(a.result) : null;
+  const result = readStoredAnalysis(analysis === undefined ? await Analysis.findByPk(r.id) : analysis);
   return {
     id: r.id,
     songId: r.songId,
@@ -107,21 +124,62 @@ export async function toRecordingDto(r: Recording, analysis?: Analysis | null): 
   };
 }
 
-export async function patchRecording(r: Recording, patch: RecordingPatch): Promise<Recording> {
-  return r.update(patch as Partial<Recording>);
+export async function getRecording(user: Me, id: string): Promise<RecordingDto> {
+  return toRecordingDto(await recordingFor(user, 'read', id));
 }
 
-/** Rows first (one transaction), then the files: a failed delete leaves everything in place. */
-export async function deleteRecordings(where: { id?: string; songId?: string }): Promise<void> {
-  const rows = await Recording.findAll({ where });
+/** A song's recordings, newest first, with all their analyses read in one query rather than one each. */
+export async function listRecordings(user: Me, song: Song): Promise<RecordingDto[]> {
+  await assertMay(user, 'read', 'recording', song.ownerId);
+  const rows = await Recording.findAll({ where: { songId: song.id }, order: [['createdAt', 'DESC']] });
+  const analyses = new Map((await Analysis.findAll({ where: { recordingId: rows.map((r) => r.id) } })).map((a) => [a.recordingId, a]));
+  return Promise.all(rows.map((r) => toRecordingDto(r, analyses.get(r.id) ?? null)));
+}
+
+/** The waveform peaks as stored (JSON text), once the analysis has made them. */
+export async function recordingPeaks(user: Me, id: string): Promise<string> {
+  const r = await recordingFor(user, 'read', id);
+  const a = await Analysis.findByPk(r.id, { attributes: ['peaks'] });
+  if (!a) throw new HttpError(409, 'not_ready', `the waveform is not ready yet (analysis ${r.status})`);
+  return a.peaks;
+}
+
+/** The stored file (or one byte range of it) with what the answer needs to describe it. */
+export async function recordingAudio(user: Me, id: string): Promise<{ sizeBytes: number; mimeType: string; open: (range?: ByteRange) => Promise<Readable> }> {
+  const r = await recordingFor(user, 'read', id);
+  return { sizeBytes: r.sizeBytes, mimeType: r.mimeType, open: (range) => objectStore().read(r.storageKey, range) };
+}
+
+export async function patchRecording(user: Me, id: string, patch: RecordingPatch): Promise<RecordingDto> {
+  const r = await recordingFor(user, 'write', id);
+  if (patch.beatOffsetSec != null && patch.beatOffsetSec > r.durationSec) {
+    throw new HttpError(400, 'invalid_body', 'beatOffsetSec: must lie within the recording', 'beatOffsetSec');
+  }
+  return toRecordingDto(await r.update(patch as Partial<Recording>));
+}
+
+/** A failed analysis goes back in the queue. */
+export async function retryRecording(user: Me, id: string): Promise<RecordingDto> {
+  const r = await recordingFor(user, 'write', id);
+  if (!(await retry(r.id))) throw new HttpError(409, 'not_failed', 'only a failed analysis can be retried');
+  analysisRunner()?.poke();
+  return toRecordingDto(await r.reload());
+}
+
+/** Rows first (one transaction), then the file: a failed delete leaves everything in place. */
+export async function deleteRecording(user: Me, id: string): Promise<void> {
+  const r = await recordingFor(user, 'write', id);
   await sequelize.transaction(async (t) => {
-    await Recording.destroy({ where, transaction: t });
+    await Recording.destroy({ where: { id: r.id }, transaction: t });
   });
-  for (const r of rows) await objectStore().remove(r.storageKey).catch((err) => console.error('[tactus] could not remove a stored file:', err));
+  await removeStoredFiles([r.storageKey]);
 }
 
-export async function deleteSong(song: Song): Promise<void> {
-  const keys = (await Recording.findAll({ where: { songId: song.id }, attributes: ['storageKey'] })).map((r) => r.storageKey);
-  await song.destroy();
+export async function storageKeysOfSong(songId: string): Promise<string[]> {
+  return (await Recording.findAll({ where: { songId }, attributes: ['storageKey'] })).map((r) => r.storageKey);
+}
+
+/** Removes stored files whose rows are gone; a file that cannot be removed is reported, not fatal. */
+export async function removeStoredFiles(keys: string[]): Promise<void> {
   for (const key of keys) await objectStore().remove(key).catch((err) => console.error('[tactus] could not remove a stored file:', err));
 }

@@ -1,7 +1,8 @@
-// Songs: who may read and change them, and their API form.
-import { Song, StudioLink } from '@/server/models';
-import { notFound } from '@/server/http';
+// Songs: listing, creating, changing and deleting them (with their recordings' files), and their API form.
+import { Song } from '@/server/models';
 import type { Me, Song as SongDto, SongInput, SongPatch } from '@/shared/schemas';
+import { assertMay, missing, type Action } from './access';
+import { removeStoredFiles, storageKeysOfSong } from './recordings';
 
 export function toSongDto(song: Song): SongDto {
   return {
@@ -20,8 +21,17 @@ export function toSongDto(song: Song): SongDto {
   };
 }
 
-export async function listSongs(ownerId: string): Promise<Song[]> {
-  return Song.findAll({ where: { ownerId }, order: [['updatedAt', 'DESC']] });
+/** The song, when `user` may do `action` to it (see access.ts); otherwise "song not found". */
+export async function songFor(user: Me, action: Action, songId: string): Promise<Song> {
+  const song = await Song.findByPk(songId);
+  if (!song) throw missing('song');
+  await assertMay(user, action, 'song', song.ownerId);
+  return song;
+}
+
+/** The library: a player's own songs. */
+export async function listSongs(user: Me): Promise<SongDto[]> {
+  return (await Song.findAll({ where: { ownerId: user.id }, order: [['updatedAt', 'DESC']] })).map(toSongDto);
 }
 
 export async function createSong(ownerId: string, input: SongInput): Promise<Song> {
@@ -37,22 +47,15 @@ export async function createSong(ownerId: string, input: SongInput): Promise<Son
   });
 }
 
-/** The owner, their linked teacher and an admin may read a song; anyone else is told it does not exist. */
-export async function songForReader(user: Me, songId: string): Promise<Song> {
-  const song = await Song.findByPk(songId);
-  if (!song) throw notFound('song');
-  if (song.ownerId === user.id || user.role === 'admin') return song;
-  if (user.role === 'teacher' && (await StudioLink.count({ where: { teacherId: user.id, studentId: song.ownerId } }))) return song;
-  throw notFound('song');
+export async function updateSong(user: Me, songId: string, patch: SongPatch): Promise<SongDto> {
+  const song = await songFor(user, 'write', songId);
+  return toSongDto(await song.update(patch as Partial<Song>));
 }
 
-/** Only the owner changes a song (teachers set tempos through their own routes, later). */
-export async function songForOwner(user: Me, songId: string): Promise<Song> {
-  const song = await Song.findByPk(songId);
-  if (!song || song.ownerId !== user.id) throw notFound('song');
-  return song;
-}
-
-export async function updateSong(song: Song, patch: SongPatch): Promise<Song> {
-  return song.update(patch as Partial<Song>);
+/** The song's rows go first (its recordings, candidates and log cascade), then its recordings' files. */
+export async function deleteSong(user: Me, songId: string): Promise<void> {
+  const song = await songFor(user, 'write', songId);
+  const keys = await storageKeysOfSong(song.id);
+  await song.destroy();
+  await removeStoredFiles(keys);
 }

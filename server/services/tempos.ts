@@ -1,8 +1,8 @@
-// A song's candidate tempos, its chosen tempo and its practice log.
-import { CandidateTempo, PracticeEntry, type Song } from '@/server/models';
-import { notFound } from '@/server/http';
-import type { Candidate, Me, PracticeEntryDto, PracticeInput } from '@/shared/schemas';
-import { songForOwner } from './songs';
+// A song's candidate tempos and its chosen tempo.
+import { CandidateTempo, Song } from '@/server/models';
+import type { Candidate, CandidateInput, CandidatePatch, Me, Song as SongDto } from '@/shared/schemas';
+import { assertMay, missing, type Action } from './access';
+import { songFor, toSongDto } from './songs';
 
 export const toCandidateDto = (c: CandidateTempo): Candidate => ({
   id: c.id,
@@ -13,41 +13,37 @@ export const toCandidateDto = (c: CandidateTempo): Candidate => ({
   createdAt: c.createdAt.toISOString(),
 });
 
-export const listCandidates = (songId: string) => CandidateTempo.findAll({ where: { songId }, order: [['bpm', 'ASC']] });
+export async function listCandidates(user: Me, songId: string): Promise<Candidate[]> {
+  const song = await songFor(user, 'read', songId);
+  return (await CandidateTempo.findAll({ where: { songId: song.id }, order: [['bpm', 'ASC']] })).map(toCandidateDto);
+}
 
-/** A candidate may only be changed by the owner of its song. */
-export async function candidateForOwner(user: Me, id: string): Promise<CandidateTempo> {
+export async function addCandidate(user: Me, songId: string, input: CandidateInput): Promise<Candidate> {
+  const song = await songFor(user, 'write', songId);
+  return toCandidateDto(await CandidateTempo.create({ songId: song.id, bpm: input.bpm, rating: input.rating ?? null, note: input.note ?? null }));
+}
+
+/** The candidate, when `user` may do `action` to it: candidates belong to their song's owner. */
+async function candidateFor(user: Me, action: Action, id: string): Promise<CandidateTempo> {
   const c = await CandidateTempo.findByPk(id);
-  if (!c) throw notFound('candidate tempo');
-  await songForOwner(user, c.songId).catch(() => {
-    throw notFound('candidate tempo');
-  });
+  if (!c) throw missing('candidate');
+  const song = await Song.findByPk(c.songId, { attributes: ['ownerId'] });
+  await assertMay(user, action, 'candidate', song?.ownerId);
   return c;
 }
 
-/** The chosen tempo and why; choosing also keeps it among the candidates. */
-export async function chooseTempo(song: Song, bpm: number, note: string | null): Promise<Song> {
-  if (!(await CandidateTempo.findOne({ where: { songId: song.id, bpm } }))) await CandidateTempo.create({ songId: song.id, bpm, rating: null, note: null });
-  return song.update({ chosenBpm: bpm, chosenNote: note });
+export async function updateCandidate(user: Me, id: string, patch: CandidatePatch): Promise<Candidate> {
+  const c = await candidateFor(user, 'write', id);
+  return toCandidateDto(await c.update(patch as Partial<CandidateTempo>));
 }
 
-export const toPracticeDto = (p: PracticeEntry): PracticeEntryDto => ({
-  id: p.id,
-  songId: p.songId,
-  passage: p.passage,
-  startBpm: p.startBpm,
-  reachedBpm: p.reachedBpm,
-  repetitions: p.repetitions,
-  minutes: p.minutes,
-  clean: Boolean(p.clean),
-  createdAt: p.createdAt.toISOString(),
-});
+export async function deleteCandidate(user: Me, id: string): Promise<void> {
+  await (await candidateFor(user, 'write', id)).destroy();
+}
 
-export const listPractice = (songId: string) => PracticeEntry.findAll({ where: { songId }, order: [['createdAt', 'DESC']], limit: 500 });
-
-/** Logging a clean session at a faster tempo moves the song's working tempo up to it. */
-export async function logPractice(song: Song, userId: string, input: PracticeInput): Promise<PracticeEntry> {
-  const entry = await PracticeEntry.create({ ...input, songId: song.id, userId, passage: input.passage ?? null });
-  if (input.clean && !input.passage && (song.workingBpm === null || input.reachedBpm > song.workingBpm)) await song.update({ workingBpm: input.reachedBpm });
-  return entry;
+/** The chosen tempo and why; choosing also keeps it among the candidates. */
+export async function chooseTempo(user: Me, songId: string, bpm: number, note: string | null): Promise<SongDto> {
+  const song = await songFor(user, 'write', songId);
+  if (!(await CandidateTempo.findOne({ where: { songId: song.id, bpm } }))) await CandidateTempo.create({ songId: song.id, bpm, rating: null, note: null });
+  return toSongDto(await song.update({ chosenBpm: bpm, chosenNote: note }));
 }

@@ -12,7 +12,7 @@ beforeAll(async () => {
   // The seed script is the one npm start runs; twice in a row must be harmless.
   const seed = () =>
     execFileSync(path.join(root, 'node_modules/.bin/tsx'), [path.join(root, 'server/scripts/seed.ts')], {
-      env: { ...process.env, TACTUS_DB_NAME: 'tactus_test' },
+      env: process.env, // the global set-up points the defaults at the test database and folders
       encoding: 'utf8',
     });
   expect(seed()).toMatch(/demo studio (seeded|already present)/);

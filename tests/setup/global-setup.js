@@ -4,6 +4,7 @@ const fs = require('node:fs');
 const path = require('node:path');
 const mariadb = require('mariadb');
 const { freePort, root, spawnTs, waitForOk } = require('./processes');
+const { devStateFingerprint } = require('./dev-state');
 
 module.exports = async function globalSetup() {
   const state = process.env.TACTUS_STATE || path.join(root, '.tactus');
@@ -17,6 +18,9 @@ module.exports = async function globalSetup() {
     user: process.env.TACTUS_DB_USER || 'tactus',
     password: process.env.TACTUS_DB_PASSWORD || 'tactus-local',
   };
+  // What npm start's development state looks like now; global-teardown and tests/api/dev-state.test.ts compare.
+  const devState = await devStateFingerprint(state, db);
+
   const conn = await mariadb.createConnection(db);
   // tactus_test for the server that stores files on disk, tactus_test_s3 for the one that uses the fake S3
   // (one database, one object store: processes that share a database must share where its files live).
@@ -72,6 +76,14 @@ module.exports = async function globalSetup() {
     TACTUS_TEST_MAIL_DIR: mailDir,
     TACTUS_TEST_SMTP_PORT: env.TACTUS_SMTP_PORT,
     TACTUS_DB_NAME: 'tactus_test',
+    TACTUS_TEST_DEV_STATE: JSON.stringify(devState),
+    TACTUS_TEST_DB: JSON.stringify(db),
+    // Anything a test starts without its own settings (the seed script, the analyze command) gets the test
+    // server's folders, never the development ones.
+    TACTUS_STORAGE_DIR: env.TACTUS_STORAGE_DIR,
+    TACTUS_SPOOL_DIR: env.TACTUS_SPOOL_DIR,
+    TACTUS_MAIL_DIR: mailDir,
+    TACTUS_SMTP_PORT: env.TACTUS_SMTP_PORT,
   });
 
   const start = (script, name, childEnv = env) => {

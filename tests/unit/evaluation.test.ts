@@ -4,8 +4,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { accuracy1, accuracy2, beatFMeasure, beatPScore, matchEvents, tempoDetection, trimBeats } from '@/audio/analysis/evaluation';
-
-const REF = path.resolve(__dirname, '../../../shared/reference-data');
+import { describeWithReferenceData, REFERENCE_DATA as REF } from '@/tests/reference-data';
 
 const numbers = (file: string) =>
   fs
@@ -14,7 +13,7 @@ const numbers = (file: string) =>
     .filter((l) => l.trim() && !l.trim().startsWith('#'))
     .flatMap((l) => l.trim().split(/\s+/).map(Number));
 
-describe('beat measures against mir_eval test vectors (craffel/mir_eval tests/data/beat, via ../shared)', () => {
+describeWithReferenceData('beat measures against mir_eval test vectors (craffel/mir_eval tests/data/beat, via ../shared)', () => {
   test.each(['00', '01', '02', '03'])('pair %s', (id) => {
     const dir = path.join(REF, 'mir_eval-beat');
     const expected = JSON.parse(fs.readFileSync(path.join(dir, `output${id}.json`), 'utf8'));
@@ -26,7 +25,7 @@ describe('beat measures against mir_eval test vectors (craffel/mir_eval tests/da
   });
 });
 
-describe('tempo detection against mir_eval test vectors (tests/data/tempo, via ../shared)', () => {
+describeWithReferenceData('tempo detection against mir_eval test vectors (tests/data/tempo, via ../shared)', () => {
   const dir = path.join(REF, 'mir_eval-tempo');
   test.each(['00', '01', '02', '03'])('pair %s', (id) => {
     const [r1, r2, weight] = numbers(path.join(dir, `ref${id}.lab`));

@@ -7,9 +7,11 @@ import { analyse } from '@/audio/analysis/analyse';
 import { accuracy1 } from '@/audio/analysis/evaluation';
 import { decodeFile } from '@/server/analysis/decode';
 import { renderMidi } from '@/fixtures/render';
+import { describeWithReferenceData, REFERENCE_DATA } from '@/tests/reference-data';
 
-const MIDI = path.resolve(__dirname, '../../../shared/reference-data/groove-midi/1_funk-groove1_138_beat_4-4.mid');
+const MIDI = path.join(REFERENCE_DATA, 'groove-midi/1_funk-groove1_138_beat_4-4.mid');
 
+describeWithReferenceData('a human drummer from the Groove MIDI Dataset', () => {
 test('the drummer reads 138 BPM within 4 % (Accuracy1)', async () => {
   const wav = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-groove-')), 'groove.wav');
   renderMidi(MIDI, wav);
@@ -18,4 +20,5 @@ test('the drummer reads 138 BPM within 4 % (Accuracy1)', async () => {
   const a = analyse(samples, sampleRate);
   expect(accuracy1(a.bpm!, 138)).toBe(true);
   expect(a.meter).toBe('4/4');
+});
 });

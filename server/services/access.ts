@@ -1,0 +1,50 @@
+// Who may read and who may write each kind of thing: the one place the rule is written. Every service asks
+// here; no route or other service repeats it. Someone who may not read a thing is told it does not exist
+// (404), so ids reveal nothing; someone who may read but not write gets the same answer for a write.
+import { StudioLink } from '@/server/models';
+import { notFound } from '@/server/http';
+import type { Me } from '@/shared/schemas';
+
+/** How the person asking stands to the owner of the thing. */
+export type Relation = 'owner' | 'linked-teacher' | 'admin' | 'other-user' | 'anonymous';
+export type ThingKind = 'song' | 'recording' | 'candidate' | 'practice-entry';
+export type Action = 'read' | 'write';
+
+/**
+ * The table. A linked teacher reads a student's songs, recordings, candidate tempos and practice log; an
+ * admin reads everything (support); only the owner changes anything. Other players and teachers who are
+ * not linked see nothing; anonymous requests never reach a service (requireUser answers 401 first).
+ */
+export const ACCESS: Record<ThingKind, Record<Action, readonly Relation[]>> = {
+  song: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
+  recording: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
+  candidate: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
+  'practice-entry': { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
+};
+
+const NAMES: Record<ThingKind, string> = {
+  song: 'song',
+  recording: 'recording',
+  candidate: 'candidate tempo',
+  'practice-entry': 'practice entry',
+};
+
+export async function relationTo(user: Me | null | undefined, ownerId: string): Promise<Relation> {
+  if (!user) return 'anonymous';
+  if (user.id === ownerId) return 'owner';
+  if (user.role === 'admin') return 'admin';
+  if (user.role === 'teacher' && (await StudioLink.count({ where: { teacherId: user.id, studentId: ownerId } })) > 0) return 'linked-teacher';
+  return 'other-user';
+}
+
+export async function may(user: Me | null | undefined, action: Action, kind: ThingKind, ownerId: string): Promise<boolean> {
+  return ACCESS[kind][action].includes(await relationTo(user, ownerId));
+}
+
+/** Passes when `user` may do `action` to a `kind` owned by `ownerId`; otherwise "not found". */
+export async function assertMay(user: Me, action: Action, kind: ThingKind, ownerId: string | null | undefined): Promise<void> {
+  if (!ownerId || !(await may(user, action, kind, ownerId))) throw notFound(NAMES[kind]);
+}
+
+/** The not-found error for a thing that does not exist at all (the same words as a refused one). */
+export const missing = (kind: ThingKind) => notFound(NAMES[kind]);
