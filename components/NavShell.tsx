@@ -1,10 +1,11 @@
 // The signed-in frame: a bottom bar on phones, a rail beside the content on wide screens.
 import React from 'react';
 import { Pressable, StyleSheet, Text, useWindowDimensions, View } from 'react-native';
+import type { Href } from 'expo-router';
 import { colors, fonts, layout, space, type } from './theme';
 
 export interface NavItem {
-  href: string;
+  href: Href;
   label: string;
   glyph: string;
 }
@@ -18,13 +19,13 @@ export function NavShell({
 }: {
   items: NavItem[];
   current: string;
-  onNavigate: (href: string) => void;
+  onNavigate: (href: Href) => void;
   userName?: string;
   children: React.ReactNode;
 }) {
   const { width } = useWindowDimensions();
   const wide = width >= layout.wideFrom;
-  const isActive = (href: string) => (href === '/' ? current === '/' : current.startsWith(href));
+  const isActive = (href: Href) => (href === '/' ? current === '/' : current.startsWith(String(href)));
 
   if (wide) {
     return (
@@ -35,7 +36,7 @@ export function NavShell({
           <View style={{ gap: space.xs, marginTop: space.lg }}>
             {items.map((item) => (
               <Pressable
-                key={item.href}
+                key={String(item.href)}
                 role="link"
                 accessibilityLabel={item.label}
                 aria-current={isActive(item.href) ? 'page' : undefined}
@@ -62,7 +63,7 @@ export function NavShell({
       <View style={styles.bottomBar} role="navigation" aria-label="Main">
         {items.map((item) => (
           <Pressable
-            key={item.href}
+            key={String(item.href)}
             role="link"
             accessibilityLabel={item.label}
             aria-current={isActive(item.href) ? 'page' : undefined}

@@ -13,7 +13,7 @@ export function RoleEditor({ selfId }: { selfId: string }) {
   return (
     <Card testID="role-editor">
       <Heading level={2}>People and roles</Heading>
-      <Small>Teachers see their linked students' songs and takes. Admins manage roles.</Small>
+      <Small>Teachers see their linked students’ songs and takes. Admins manage roles.</Small>
       {isLoading ? <Loading /> : null}
       {users?.map((u) => (
         <View key={u.id} style={{ borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.sm, gap: space.xs }}>

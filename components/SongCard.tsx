@@ -9,7 +9,7 @@ import type { Song } from '@/shared/schemas';
 export function SongCard({ song }: { song: Song }) {
   const router = useRouter();
   return (
-    <Pressable role="link" accessibilityLabel={`Open ${song.title}`} onPress={() => router.navigate(`/songs/${song.id}` as never)}>
+    <Pressable role="link" accessibilityLabel={`Open ${song.title}`} onPress={() => router.navigate(`/songs/${song.id}`)}>
     <Card testID="song-card">
       <View style={{ flexDirection: 'row', justifyContent: 'space-between', flexWrap: 'wrap', gap: space.sm }}>
         <View style={{ flexShrink: 1 }}>

@@ -12,10 +12,14 @@ log "building the web app for the browser tests"
 (cd "$ROOT" && npm run build:web >"$TACTUS_STATE/logs/web-build.log" 2>&1) \
   || { tail -30 "$TACTUS_STATE/logs/web-build.log" >&2; exit 1; }
 
-log "set-up took $(( $(date +%s) - started )) s; running the tests"
+log "set-up took $(( $(date +%s) - started )) s; checking conventions (lint, types)"
 cd "$ROOT"
-results="$TACTUS_STATE/jest-results.json"
 status=0
+npm run --silent lint || { status=1; log "npm run lint found problems (above)"; }
+npm run --silent typecheck || { status=1; log "npm run typecheck found problems (above)"; }
+
+log "running the tests"
+results="$TACTUS_STATE/jest-results.json"
 npx jest --ci --json --outputFile="$results" "$@" || status=$?
 # One plain closing line that any reader of the log understands.
 node "$ROOT/tests/setup/summary.js" "$results" || true

@@ -18,7 +18,6 @@ import { candidatesRouter, songTemposRouter } from '@/server/routes/tempos';
 import { songPracticeRouter } from '@/server/routes/practice';
 import type { Health } from '@/shared/schemas';
 
-// eslint-disable-next-line @typescript-eslint/no-require-imports
 const { version } = require('../package.json') as { version: string };
 
 export function createApp(opts: { serveWeb?: boolean } = {}) {

@@ -23,12 +23,12 @@ export default function MainLayout() {
   const items: NavItem[] = [
     { href: '/', label: 'Library', glyph: '♪' },
     { href: '/practice', label: 'Practice', glyph: '◴' },
-    ...(me.role === 'teacher' || me.role === 'admin' ? [{ href: '/students', label: 'Students', glyph: '☰' }] : []),
+    ...(me.role === 'teacher' || me.role === 'admin' ? [{ href: '/students', label: 'Students', glyph: '☰' } as const] : []),
     { href: '/account', label: 'Account', glyph: '○' },
   ];
 
   return (
-    <NavShell items={items} current={pathname} onNavigate={(href) => router.navigate(href as never)} userName={me.name}>
+    <NavShell items={items} current={pathname} onNavigate={(href) => router.navigate(href)} userName={me.name}>
       <Slot />
     </NavShell>
   );

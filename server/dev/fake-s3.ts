@@ -1,9 +1,10 @@
 // A local S3-compatible server (s3rver) on loopback, for development and tests of the S3 storage driver.
 // `tsx server/dev/fake-s3.ts` runs it until stopped; its data lives under TACTUS_STATE.
 import path from 'node:path';
+import { config } from '@/server/config';
+
 // eslint-disable-next-line @typescript-eslint/no-require-imports
 const S3rver = require('s3rver');
-import { config } from '@/server/config';
 
 const port = Number(new URL(config.storage.s3.endpoint).port || 4569);
 const directory = process.env.TACTUS_FAKE_S3_DIR ?? path.join(process.env.TACTUS_STATE ?? path.join(config.root, '.tactus'), 'fake-s3');

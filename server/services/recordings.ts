@@ -20,7 +20,6 @@ import { assertMay, missing, type Action } from './access';
  */
 export function checkFileName(name: string | undefined): string | null {
   if (!name) return null;
-  // eslint-disable-next-line no-control-regex
   if (/[\u0000-\u001f\u007f]/.test(name)) throw new HttpError(400, 'invalid_body', 'file: the file name contains control characters', 'file');
   if (/[\\/]/.test(name) || name.split(/[\\/]/).includes('..')) throw new HttpError(400, 'invalid_body', 'file: send the file name without folders', 'file');
   return name.trim().slice(0, 255) || null;

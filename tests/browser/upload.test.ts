@@ -3,7 +3,7 @@
 import path from 'node:path';
 import type { Browser } from 'playwright-core';
 import { launchChromium, outputDir, signInThroughApp, viewports } from './chromium';
-import { baseUrl, PASSWORD, signedInUser } from '@/tests/api/helpers';
+import { PASSWORD, signedInUser } from '@/tests/api/helpers';
 
 const CLIP = path.resolve(__dirname, '../../fixtures/clips/drums-bass-124.mp3');
 let browser: Browser;

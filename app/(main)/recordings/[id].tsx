@@ -30,7 +30,7 @@ export default function RecordingScreen() {
 
   return (
     <Screen testID="recording" wide>
-      <Button label="‹ Song" kind="quiet" onPress={() => router.navigate(`/songs/${r.songId}` as never)} />
+      <Button label="‹ Song" kind="quiet" onPress={() => router.navigate(`/songs/${r.songId}`)} />
       <View style={{ gap: space.xs }}>
         <Heading>{r.label || r.originalName || 'Recording'}</Heading>
         <Small>

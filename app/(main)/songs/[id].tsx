@@ -31,8 +31,8 @@ export default function SongScreen() {
           other tempos with a click.
         </EmptyState>
       ) : null}
-      {recordings?.map((r) => <RecordingRow key={r.id} recording={r} onOpen={() => router.navigate(`/recordings/${r.id}` as never)} />)}
-      <UploadPanel songId={song.id} onUploaded={(r) => router.navigate(`/recordings/${r.id}` as never)} />
+      {recordings?.map((r) => <RecordingRow key={r.id} recording={r} onOpen={() => router.navigate(`/recordings/${r.id}`)} />)}
+      <UploadPanel songId={song.id} onUploaded={(r) => router.navigate(`/recordings/${r.id}`)} />
       {song.notes ? <Body muted>{song.notes}</Body> : null}
     </Screen>
   );
