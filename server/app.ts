@@ -16,6 +16,7 @@ import { studentsRouter } from '@/server/routes/students';
 import { recordingsRouter, songRecordingsRouter } from '@/server/routes/recordings';
 import { candidatesRouter, songTemposRouter } from '@/server/routes/tempos';
 import { songPracticeRouter } from '@/server/routes/practice';
+import { passagesRouter, songPassagesRouter } from '@/server/routes/passages';
 import type { Health } from '@/shared/schemas';
 
 const { version } = require('../package.json') as { version: string };
@@ -42,6 +43,8 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.use('/api/me', meRouter);
   app.use('/api/songs/:songId/recordings', songRecordingsRouter);
   app.use('/api/songs/:songId/practice', songPracticeRouter);
+  app.use('/api/songs/:songId/passages', songPassagesRouter);
+  app.use('/api/passages', passagesRouter);
   app.use('/api/songs/:songId', songTemposRouter);
   app.use('/api/candidates', candidatesRouter);
   app.use('/api/songs', songsRouter);

@@ -155,7 +155,7 @@ export const RecordingListSchema = z.object({ recordings: z.array(RecordingSchem
 export const PeaksSchema = z.object({ minMax: z.array(z.number()), buckets: z.number(), durationSec: z.number() });
 export type PeaksDto = z.infer<typeof PeaksSchema>;
 
-// ── Candidate tempos, the chosen tempo, practice entries ─────────────────────────────────────────────
+// ── Candidate tempos and the chosen tempo ─────────────────────────────────────────────────────────────
 
 export const CandidateInputSchema = z.object({
   bpm: BpmSchema,
@@ -178,9 +178,70 @@ export const CandidateListSchema = z.object({ candidates: z.array(CandidateSchem
 
 export const ChooseTempoSchema = z.object({ bpm: BpmSchema, note: z.string().trim().max(2000).nullish() });
 
+// ── Passages ────────────────────────────────────────────────────────────────────────────────────────
+
+const SecondsSchema = z.number().min(0, 'times start at 0 s').max(24 * 3600);
+const BarSchema = z.number().int().min(1, 'bars are numbered from 1').max(100_000);
+
+/** A named region of one of the song's recordings; bars as numbered on that recording's beat grid. */
+export const PassageInputSchema = z
+  .object({
+    recordingId: z.string().min(1, 'recordingId is required'),
+    name: z.string().trim().min(1, 'give the passage a name').max(120, 'name must be at most 120 characters'),
+    startSec: SecondsSchema,
+    endSec: SecondsSchema,
+    startBar: BarSchema.nullish(),
+    endBar: BarSchema.nullish(),
+    workingBpm: BpmSchema.nullish(),
+    goalBpm: BpmSchema.nullish(),
+  })
+  .strict()
+  .refine((p) => p.endSec > p.startSec, { message: 'the passage must end after it starts', path: ['endSec'] });
+export type PassageInput = z.infer<typeof PassageInputSchema>;
+export const PassagePatchSchema = z
+  .object({
+    name: z.string().trim().min(1, 'give the passage a name').max(120, 'name must be at most 120 characters'),
+    startSec: SecondsSchema,
+    endSec: SecondsSchema,
+    startBar: BarSchema.nullable(),
+    endBar: BarSchema.nullable(),
+    workingBpm: BpmSchema.nullable(),
+    goalBpm: BpmSchema.nullable(),
+  })
+  .partial()
+  .strict();
+export type PassagePatch = z.infer<typeof PassagePatchSchema>;
+export const PassageSchema = z.object({
+  id: z.string(),
+  songId: z.string(),
+  recordingId: z.string(),
+  name: z.string(),
+  startSec: z.number(),
+  endSec: z.number(),
+  startBar: z.number().nullable(),
+  endBar: z.number().nullable(),
+  workingBpm: z.number().nullable(),
+  goalBpm: z.number().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Passage = z.infer<typeof PassageSchema>;
+export const PassageListSchema = z.object({ passages: z.array(PassageSchema) });
+
+// ── The practice log ────────────────────────────────────────────────────────────────────────────────
+
 export const PracticeInputSchema = z
   .object({
+    /** What was played, in words; for a saved passage the server takes its name. */
     passage: z.string().trim().max(200).nullish(),
+    /** A saved passage this entry was played on; its recording and region are filled in from it. */
+    passageId: z.string().min(1).nullish(),
+    /** Or a region of a recording that is not saved as a passage (a loop). */
+    recordingId: z.string().min(1).nullish(),
+    startSec: SecondsSchema.nullish(),
+    endSec: SecondsSchema.nullish(),
+    startBar: BarSchema.nullish(),
+    endBar: BarSchema.nullish(),
     startBpm: BpmSchema,
     reachedBpm: BpmSchema,
     repetitions: z.number().int().min(1, 'repetitions must be at least 1').max(10_000),
@@ -189,5 +250,21 @@ export const PracticeInputSchema = z
   })
   .strict();
 export type PracticeInput = z.infer<typeof PracticeInputSchema>;
-export const PracticeEntrySchema = PracticeInputSchema.extend({ id: z.string(), songId: z.string(), passage: z.string().nullable(), createdAt: z.string() });
+export const PracticeEntrySchema = z.object({
+  id: z.string(),
+  songId: z.string(),
+  passage: z.string().nullable(),
+  passageId: z.string().nullable(),
+  recordingId: z.string().nullable(),
+  startSec: z.number().nullable(),
+  endSec: z.number().nullable(),
+  startBar: z.number().nullable(),
+  endBar: z.number().nullable(),
+  startBpm: z.number(),
+  reachedBpm: z.number(),
+  repetitions: z.number(),
+  minutes: z.number(),
+  clean: z.boolean(),
+  createdAt: z.string(),
+});
 export type PracticeEntryDto = z.infer<typeof PracticeEntrySchema>;

@@ -7,7 +7,14 @@ export class PracticeEntry extends Model<InferAttributes<PracticeEntry>, InferCr
   declare id: CreationOptional<string>;
   declare songId: string;
   declare userId: string;
+  /** What was played, in words ("bridge", "bars 5–8"); null for the whole piece. */
   declare passage: string | null;
+  declare passageId: string | null;
+  declare recordingId: string | null;
+  declare startSec: number | null;
+  declare endSec: number | null;
+  declare startBar: number | null;
+  declare endBar: number | null;
   declare startBpm: number;
   declare reachedBpm: number;
   declare repetitions: number;
@@ -22,6 +29,12 @@ PracticeEntry.init(
     songId: { type: DataTypes.UUID, allowNull: false },
     userId: { type: DataTypes.STRING(64), allowNull: false },
     passage: { type: DataTypes.STRING(200), allowNull: true },
+    passageId: { type: DataTypes.UUID, allowNull: true },
+    recordingId: { type: DataTypes.UUID, allowNull: true },
+    startSec: { type: DataTypes.DOUBLE, allowNull: true },
+    endSec: { type: DataTypes.DOUBLE, allowNull: true },
+    startBar: { type: DataTypes.INTEGER, allowNull: true },
+    endBar: { type: DataTypes.INTEGER, allowNull: true },
     startBpm: decimalBpm('startBpm', false),
     reachedBpm: decimalBpm('reachedBpm', false),
     repetitions: { type: DataTypes.INTEGER, allowNull: false },

@@ -10,6 +10,7 @@ import { Analysis } from './Analysis';
 import { AnalysisJob } from './AnalysisJob';
 import { CandidateTempo } from './CandidateTempo';
 import { PracticeEntry } from './PracticeEntry';
+import { Passage } from './Passage';
 
 User.hasMany(Song, { foreignKey: 'ownerId', as: 'songs', onDelete: 'CASCADE' });
 Song.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
@@ -21,8 +22,10 @@ Recording.hasOne(Analysis, { foreignKey: 'recordingId', as: 'analysis', onDelete
 Recording.hasOne(AnalysisJob, { foreignKey: 'recordingId', as: 'job', onDelete: 'CASCADE' });
 Song.hasMany(CandidateTempo, { foreignKey: 'songId', as: 'candidates', onDelete: 'CASCADE' });
 Song.hasMany(PracticeEntry, { foreignKey: 'songId', as: 'practice', onDelete: 'CASCADE' });
+Song.hasMany(Passage, { foreignKey: 'songId', as: 'passages', onDelete: 'CASCADE' });
+Passage.belongsTo(Recording, { foreignKey: 'recordingId', as: 'recording' });
 
 /** better-auth's model names (after our modelName mapping) → the Sequelize model that stores them. */
 export const authModels = { users: User, sessions: Session, accounts: Account, verifications: Verification } as const;
 
-export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry };
+export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry, Passage };

@@ -7,11 +7,11 @@ import type { Me } from '@/shared/schemas';
 
 /** How the person asking stands to the owner of the thing. */
 export type Relation = 'owner' | 'linked-teacher' | 'admin' | 'other-user' | 'anonymous';
-export type ThingKind = 'song' | 'recording' | 'candidate' | 'practice-entry';
+export type ThingKind = 'song' | 'recording' | 'candidate' | 'practice-entry' | 'passage';
 export type Action = 'read' | 'write';
 
 /**
- * The table. A linked teacher reads a student's songs, recordings, candidate tempos and practice log; an
+ * The table. A linked teacher reads a student's songs, recordings, candidate tempos, passages and practice log; an
  * admin reads everything (support); only the owner changes anything. Other players and teachers who are
  * not linked see nothing; anonymous requests never reach a service (requireUser answers 401 first).
  */
@@ -20,6 +20,7 @@ export const ACCESS: Record<ThingKind, Record<Action, readonly Relation[]>> = {
   recording: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
   candidate: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
   'practice-entry': { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
+  passage: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
 };
 
 const NAMES: Record<ThingKind, string> = {
@@ -27,6 +28,7 @@ const NAMES: Record<ThingKind, string> = {
   recording: 'recording',
   candidate: 'candidate tempo',
   'practice-entry': 'practice entry',
+  passage: 'passage',
 };
 
 export async function relationTo(user: Me | null | undefined, ownerId: string): Promise<Relation> {

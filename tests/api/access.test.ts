@@ -52,8 +52,9 @@ describe.each(everyone)('as %s', (who) => {
     await agents[who].post(`/api/songs/${songId}/practice`).send(entry).expect(CREATE[who]);
   });
 
-  test('recordings of the song: list', async () => {
+  test('recordings of the song and their passages: list', async () => {
     await agents[who].get(`/api/songs/${songId}/recordings`).expect(READ[who]);
+    await agents[who].get(`/api/songs/${songId}/passages`).expect(READ[who]);
   });
 });
 
