@@ -24,6 +24,12 @@ module.exports = {
       displayName: 'components',
       preset: 'jest-expo/web',
       moduleNameMapper: alias,
+      // jest-expo's own list (its web preset) plus d3's packages, which are published as ES modules only.
+      transformIgnorePatterns: [
+        '/node_modules/(?!(.pnpm|react-native|@react-native|@react-native-community|expo|@expo|@expo-google-fonts|react-navigation|@react-navigation|@sentry/react-native|native-base|standard-navigation|d3-|internmap))',
+        '/node_modules/react-native-reanimated/plugin/',
+        '/node_modules/@react-native/babel-preset/',
+      ],
       testMatch: ['<rootDir>/tests/components/**/*.test.tsx'],
     },
   ],
