@@ -1,9 +1,11 @@
 // The one place the client talks HTTP. Same origin as the server; cookies carry the session.
 import { ApiErrorSchema } from '@/shared/schemas';
+import { plainProblem } from '@/shared/messages';
 
 /** Where the API lives: the same origin in the web build, overridable for the dev server. */
 export const apiBase = (process.env.EXPO_PUBLIC_API_URL ?? '').replace(/\/$/, '');
 
+/** A refused or failed request; its message is in plain words, with the field named as the screen names it. */
 export class ApiRequestError extends Error {
   constructor(
     readonly status: number,
@@ -11,7 +13,7 @@ export class ApiRequestError extends Error {
     readonly field?: string,
     readonly code?: string,
   ) {
-    super(message);
+    super(plainProblem(message, field));
   }
 }
 

@@ -3,6 +3,7 @@ import { View } from 'react-native';
 import { Button, Card, Field, Heading, Notice } from './ui';
 import { space } from './theme';
 import { SongInputSchema, type SongInput } from '@/shared/schemas';
+import { fieldProblems } from '@/shared/messages';
 
 const optionalNumber = (s: string) => (s.trim() === '' ? null : Number(s.replace(',', '.')));
 
@@ -26,7 +27,7 @@ export function SongForm({ onSubmit, onCancel }: { onSubmit: (input: SongInput) 
       workingBpm: optionalNumber(working),
     });
     if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
+      setErrors(fieldProblems(parsed.error));
       return;
     }
     setErrors({});

@@ -1,6 +1,8 @@
 // The single source of every API shape: the server validates with these, the client infers its types.
 import { z } from 'zod';
 import { AnalysisSchema } from './analysis';
+// Sets zod's messages to plain words for every schema below (see messages.ts).
+import './messages';
 
 export * from './analysis';
 
@@ -14,7 +16,7 @@ export const BpmSchema = z.number().min(30, 'tempo must be at least 30 BPM').max
 /** A time signature such as 4/4, 3/4, 6/8 or 7/8. */
 export const MeterSchema = z
   .string()
-  .regex(/^(?:[1-9]|1[0-9])\/(?:2|4|8|16)$/, 'meter must look like 4/4, 3/4 or 6/8');
+  .regex(/^(?:[1-9]|1[0-9])\/(?:2|4|8|16)$/, 'write the time signature like 4/4, 3/4 or 6/8');
 
 export const HealthSchema = z.object({
   status: z.enum(['ok', 'degraded']),
@@ -33,7 +35,7 @@ export const MeSchema = z.object({
 export type Me = z.infer<typeof MeSchema>;
 
 export const SongInputSchema = z.object({
-  title: z.string().trim().min(1, 'title is required').max(200),
+  title: z.string().trim().min(1, 'give the song a title').max(200),
   composer: z.string().trim().max(200).nullish(),
   meter: MeterSchema.optional(),
   goalBpm: BpmSchema.nullish(),
@@ -82,7 +84,7 @@ export const StudentSchema = z.object({
 });
 export type Student = z.infer<typeof StudentSchema>;
 export const StudentListSchema = z.object({ students: z.array(StudentSchema) });
-export const AddStudentSchema = z.object({ email: z.string().trim().email('email must be an e-mail address') });
+export const AddStudentSchema = z.object({ email: z.string().trim().email('enter an e-mail address such as name@example.com') });
 
 /** Every error the API sends has this shape; `field` names the offending input when there is one. */
 export const ApiErrorSchema = z.object({
@@ -110,20 +112,20 @@ export const CaughtMailListSchema = z.object({ mails: z.array(CaughtMailSchema) 
 
 // ── Recordings and their analysis ────────────────────────────────────────────────────────────────────
 
-export const RecordingKindSchema = z.enum(['reference', 'take'], { message: "kind must be 'reference' or 'take'" });
+export const RecordingKindSchema = z.enum(['reference', 'take'], { message: 'choose reference (someone else’s recording) or take (your own)' });
 export type RecordingKind = z.infer<typeof RecordingKindSchema>;
 
 /** The text fields of an upload (multipart); the file itself is the field `file`. */
 export const RecordingUploadFieldsSchema = z.object({
   kind: RecordingKindSchema,
-  label: z.string().trim().max(200, 'label must be at most 200 characters').optional(),
+  label: z.string().trim().max(200, 'use at most 200 characters').optional(),
 });
 
 export const RecordingPatchSchema = z
   .object({
     label: z.string().trim().max(200).nullable().optional(),
     correctedBpm: BpmSchema.nullable().optional(),
-    beatOffsetSec: z.number().min(0, 'beatOffsetSec must not be negative').max(3600).nullable().optional(),
+    beatOffsetSec: z.number().min(0, 'must not be negative').max(3600).nullable().optional(),
   })
   .strict();
 export type RecordingPatch = z.infer<typeof RecordingPatchSchema>;
@@ -187,7 +189,7 @@ const BarSchema = z.number().int().min(1, 'bars are numbered from 1').max(100_00
 export const PassageInputSchema = z
   .object({
     recordingId: z.string().min(1, 'recordingId is required'),
-    name: z.string().trim().min(1, 'give the passage a name').max(120, 'name must be at most 120 characters'),
+    name: z.string().trim().min(1, 'give the passage a name').max(120, 'use at most 120 characters'),
     startSec: SecondsSchema,
     endSec: SecondsSchema,
     startBar: BarSchema.nullish(),
@@ -200,7 +202,7 @@ export const PassageInputSchema = z
 export type PassageInput = z.infer<typeof PassageInputSchema>;
 export const PassagePatchSchema = z
   .object({
-    name: z.string().trim().min(1, 'give the passage a name').max(120, 'name must be at most 120 characters'),
+    name: z.string().trim().min(1, 'give the passage a name').max(120, 'use at most 120 characters'),
     startSec: SecondsSchema,
     endSec: SecondsSchema,
     startBar: BarSchema.nullable(),
@@ -244,8 +246,8 @@ export const PracticeInputSchema = z
     endBar: BarSchema.nullish(),
     startBpm: BpmSchema,
     reachedBpm: BpmSchema,
-    repetitions: z.number().int().min(1, 'repetitions must be at least 1').max(10_000),
-    minutes: z.number().min(0).max(24 * 60, 'minutes must be at most a day'),
+    repetitions: z.number().int().min(1, 'must be at least 1').max(10_000),
+    minutes: z.number().min(0).max(24 * 60, 'must be at most a day (1440 minutes)'),
     clean: z.boolean(),
   })
   .strict();

@@ -7,7 +7,7 @@ test('a missing title is shown beside the field and nothing is submitted', async
   const onSubmit = jest.fn(async () => {});
   render(<SongForm onSubmit={onSubmit} onCancel={() => {}} />);
   fireEvent.click(screen.getByText('Save song'));
-  expect(await screen.findByText('title is required')).toBeTruthy();
+  expect(await screen.findByText('give the song a title')).toBeTruthy();
   expect(onSubmit).not.toHaveBeenCalled();
 });
 
