@@ -189,3 +189,4 @@ export const PracticeInputSchema = z
 export type PracticeInput = z.infer<typeof PracticeInputSchema>;
 export const PracticeEntrySchema = PracticeInputSchema.extend({ id: z.string(), songId: z.string(), passage: z.string().nullable(), createdAt: z.string() });
 export type PracticeEntryDto = z.infer<typeof PracticeEntrySchema>;
+export const PracticeEntryListSchema = z.object({ entries: z.array(PracticeEntrySchema) });
