@@ -7,6 +7,7 @@ import { auth } from './auth';
 import { config } from './config';
 import { databaseState } from './db';
 import { errorHandler, HttpError } from './http';
+import { buildOpenApiDocument, openApiRouter } from './openapi';
 import { loadUser } from '@/server/middleware/session';
 import { adminRouter } from '@/server/routes/admin';
 import { devRouter } from '@/server/routes/dev';
@@ -38,6 +39,8 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   });
 
   if (config.devTools) app.use(devRouter);
+  // The API described (server/openapi.ts); the readable page only where the development helpers are.
+  app.use('/api', openApiRouter(buildOpenApiDocument({ devTools: config.devTools }), { referencePage: config.devTools }));
 
   app.use('/api', loadUser);
   app.use('/api/me', meRouter);

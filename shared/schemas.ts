@@ -270,3 +270,4 @@ export const PracticeEntrySchema = z.object({
   createdAt: z.string(),
 });
 export type PracticeEntryDto = z.infer<typeof PracticeEntrySchema>;
+export const PracticeEntryListSchema = z.object({ entries: z.array(PracticeEntrySchema) });

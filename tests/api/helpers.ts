@@ -2,7 +2,12 @@
 import request from 'supertest';
 import mariadb from 'mariadb';
 import crypto from 'node:crypto';
+import { execFileSync } from 'node:child_process';
+import path from 'node:path';
 import type { CaughtMail, Role } from '@/shared/schemas';
+import type { RouteEntry } from '@/server/route-table';
+
+const root = path.resolve(__dirname, '../..');
 
 export const baseUrl = process.env.TACTUS_TEST_URL!;
 
@@ -83,4 +88,20 @@ export async function waitForAnalysis(agent: ReturnType<typeof request.agent>, i
     if (Date.now() > until) throw new Error(`analysis of ${id} still ${r.status} after ${timeoutMs} ms`);
     await new Promise((res) => setTimeout(res, 200));
   }
+}
+
+/** `METHOD /path` for every operation of an OpenAPI document, the path in its OpenAPI form. */
+export function documentedOperations(doc: { paths: Record<string, Record<string, unknown>> }): string[] {
+  const methods = ['get', 'put', 'post', 'delete', 'options', 'head', 'patch', 'trace'];
+  return Object.entries(doc.paths).flatMap(([path, item]) =>
+    Object.keys(item)
+      .filter((k) => methods.includes(k))
+      .map((m) => `${m.toUpperCase()} ${path}`),
+  );
+}
+
+/** The app's own route listing (server/scripts/routes.ts, run as a server with this environment would be built). */
+export function appRoutes(env: NodeJS.ProcessEnv): RouteEntry[] {
+  const out = execFileSync(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/routes.ts'), '--json'], { cwd: root, env });
+  return JSON.parse(out.toString()) as RouteEntry[];
 }
