@@ -1,11 +1,13 @@
 import React from 'react';
 import { Link, useLocalSearchParams } from 'expo-router';
 import { Body, Card, Heading } from '@/components/ui';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function CheckEmail() {
   const { email } = useLocalSearchParams<{ email?: string }>();
   return (
     <Card testID="check-email">
+      <ScreenTitle title="Check your e-mail" />
       <Heading>Check your e-mail</Heading>
       <Body>
         We sent a confirmation link to {email ? <Body style={{ fontWeight: '700' }}>{email}</Body> : 'your address'}. Open it, then sign in.

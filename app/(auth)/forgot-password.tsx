@@ -5,6 +5,7 @@ import { Body, Button, Card, Field, Heading, Notice } from '@/components/ui';
 import { space } from '@/components/theme';
 import { requestPasswordReset } from '@/client/auth';
 import { useAction } from '@/client/useAction';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function ForgotPassword() {
   const [email, setEmail] = useState('');
@@ -16,6 +17,7 @@ export default function ForgotPassword() {
 
   return (
     <Card>
+      <ScreenTitle title="Forgotten password" />
       <Heading>Reset your password</Heading>
       {sent ? (
         <Notice tone="success">If an account uses that address, a reset link is on its way. It works for one hour.</Notice>

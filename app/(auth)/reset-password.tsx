@@ -5,6 +5,7 @@ import { Button, Card, Field, Heading, Notice } from '@/components/ui';
 import { space } from '@/components/theme';
 import { resetPassword } from '@/client/auth';
 import { useAction } from '@/client/useAction';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function ResetPassword() {
   const router = useRouter();
@@ -18,6 +19,7 @@ export default function ResetPassword() {
 
   return (
     <Card>
+      <ScreenTitle title="New password" />
       <Heading>Choose a new password</Heading>
       {!token || linkError ? (
         <Notice tone="error">This reset link has expired or was already used. Ask for a new one from the sign-in page.</Notice>

@@ -6,6 +6,7 @@ import { space } from '@/components/theme';
 import { signIn } from '@/client/auth';
 import { clearCache } from '@/client/hooks';
 import { useAction } from '@/client/useAction';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function SignIn() {
   const router = useRouter();
@@ -20,6 +21,7 @@ export default function SignIn() {
 
   return (
     <Card>
+      <ScreenTitle title="Sign in" />
       <Heading>Sign in</Heading>
       {params.confirmed ? <Notice tone="success">Your e-mail is confirmed. Sign in to open your library.</Notice> : null}
       {params.reset ? <Notice tone="success">Your password is changed. Sign in with the new one.</Notice> : null}

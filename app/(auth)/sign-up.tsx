@@ -5,6 +5,7 @@ import { Body, Button, Card, Field, Heading, Notice } from '@/components/ui';
 import { space } from '@/components/theme';
 import { signUp } from '@/client/auth';
 import { useAction } from '@/client/useAction';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function SignUp() {
   const router = useRouter();
@@ -20,6 +21,7 @@ export default function SignUp() {
 
   return (
     <Card>
+      <ScreenTitle title="Create an account" />
       <Heading>Create your account</Heading>
       <View style={{ gap: space.md }}>
         <Field label="Name" value={name} onChangeText={setName} autoComplete="name" testID="name" />

@@ -7,6 +7,7 @@ import { RoleEditor } from '@/components/RoleEditor';
 import { space } from '@/components/theme';
 import { signOut } from '@/client/auth';
 import { clearCache, useMe } from '@/client/hooks';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 const roleNames = { player: 'Player', teacher: 'Teacher', admin: 'Admin' } as const;
 
@@ -16,6 +17,7 @@ export default function Account() {
   if (!me) return null;
   return (
     <Screen testID="account">
+      <ScreenTitle title="Account" />
       <Heading>Account</Heading>
       <Card>
         <Body style={{ fontWeight: '700' }}>{me.name}</Body>

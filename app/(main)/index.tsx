@@ -6,6 +6,7 @@ import { SongCard } from '@/components/SongCard';
 import { SongForm } from '@/components/SongForm';
 import { space } from '@/components/theme';
 import { addSong, useSongs } from '@/client/hooks';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function Library() {
   const { songs, error, isLoading } = useSongs();
@@ -13,6 +14,7 @@ export default function Library() {
 
   return (
     <Screen testID="library">
+      <ScreenTitle title="Library" />
       <View style={{ flexDirection: 'row', justifyContent: 'space-between', alignItems: 'center', flexWrap: 'wrap', gap: space.md }}>
         <Heading>Library</Heading>
         {songs?.length && !adding ? <Button label="Add a song" kind="secondary" onPress={() => setAdding(true)} /> : null}

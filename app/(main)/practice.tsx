@@ -5,12 +5,14 @@ import { useSongs } from '@/client/hooks';
 import { TempoProgress } from '@/components/TempoProgress';
 import { PracticeLog } from '@/components/PracticeLog';
 import { MetronomePanel } from '@/components/MetronomePanel';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function Practice() {
   const { songs } = useSongs();
   const withGoal = songs?.filter((s) => s.goalBpm) ?? [];
   return (
     <Screen testID="practice">
+      <ScreenTitle title="Practice" />
       <Heading>Practice</Heading>
       {withGoal.length === 0 ? (
         <EmptyState title="Nothing to practise toward yet">

@@ -5,6 +5,7 @@ import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Screen
 import { space } from '@/components/theme';
 import { addStudent, useMe, useStudents } from '@/client/hooks';
 import { useAction } from '@/client/useAction';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function Students() {
   const { me } = useMe();
@@ -26,6 +27,7 @@ export default function Students() {
 
   return (
     <Screen testID="students">
+      <ScreenTitle title="Students" />
       <Heading>Students</Heading>
       {isLoading ? <Loading /> : null}
       {students && students.length === 0 ? (

@@ -197,16 +197,28 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
     expect(await query(server.db, 'SELECT 1 FROM analyses WHERE recordingId = ?', [id])).toHaveLength(0);
   });
 
-  test('deleting a song removes its recordings, their files and rows', async () => {
+  test('deleting a song removes its recordings, their files and every row that hangs from it', async () => {
     const other = (await owner.agent.post('/api/songs').send({ title: 'Short-lived' }).expect(201)).body.id;
     const keys: string[] = [];
+    const ids: string[] = [];
     for (const f of ['waltz-150.mp3', 'waltz-150.wav']) {
       const id = (await owner.agent.post(`/api/songs/${other}/recordings`).field('kind', 'take').attach('file', clip(f), f).expect(201)).body.id;
+      ids.push(id);
       keys.push(await keyOf(id));
     }
+    await waitForAnalysis(owner.agent, ids[0]!);
+    await owner.agent.post(`/api/songs/${other}/candidates`).send({ bpm: 150 }).expect(201);
+    await owner.agent.post(`/api/songs/${other}/passages`).send({ recordingId: ids[0], name: 'first bars', startSec: 0, endSec: 2 }).expect(201);
+    await owner.agent.post(`/api/songs/${other}/practice`).send({ recordingId: ids[0], startSec: 0, endSec: 2, startBpm: 140, reachedBpm: 150, repetitions: 3, minutes: 5, clean: true }).expect(201);
     expect(await storedFiles(server)).toEqual(expect.arrayContaining(keys));
     await owner.agent.delete(`/api/songs/${other}`).expect(204);
     expect(await rowsFor(server, other)).toBe(0);
+    for (const table of ['candidate_tempos', 'passages', 'practice_entries']) {
+      expect(await query(server.db, `SELECT 1 FROM ${table} WHERE songId = ?`, [other])).toHaveLength(0);
+    }
+    for (const table of ['analyses', 'analysis_jobs']) {
+      expect(await query(server.db, `SELECT 1 FROM ${table} WHERE recordingId IN (?, ?)`, ids)).toHaveLength(0);
+    }
     const left = await storedFiles(server);
     expect(keys.filter((k) => left.includes(k))).toEqual([]);
   });

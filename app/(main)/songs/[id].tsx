@@ -7,6 +7,7 @@ import { SongTempos } from '@/components/TempoLabel';
 import { UploadPanel } from '@/components/UploadPanel';
 import { RecordingRow } from '@/components/RecordingRow';
 import { space } from '@/components/theme';
+import { ScreenTitle } from '@/components/ScreenTitle';
 import { useRecordings, useSong } from '@/client/hooks';
 
 export default function SongScreen() {
@@ -18,6 +19,7 @@ export default function SongScreen() {
   if (!song) return <Loading />;
   return (
     <Screen testID="song">
+      <ScreenTitle title={song.title} />
       <Button label="‹ Library" kind="quiet" onPress={() => router.navigate('/')} />
       <View style={{ gap: space.xs }}>
         <Heading>{song.title}</Heading>
