@@ -13,7 +13,8 @@ import { adminRouter } from '@/server/routes/admin';
 import { devRouter } from '@/server/routes/dev';
 import { meRouter } from '@/server/routes/me';
 import { songsRouter } from '@/server/routes/songs';
-import { studentsRouter } from '@/server/routes/students';
+import { studentsRouter, teachersRouter } from '@/server/routes/students';
+import { invitationsRouter } from '@/server/routes/invitations';
 import { recordingsRouter, songRecordingsRouter } from '@/server/routes/recordings';
 import { candidatesRouter, songTemposRouter } from '@/server/routes/tempos';
 import { songPracticeRouter } from '@/server/routes/practice';
@@ -53,6 +54,8 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.use('/api/songs', songsRouter);
   app.use('/api/recordings', recordingsRouter);
   app.use('/api/students', studentsRouter);
+  app.use('/api/teachers', teachersRouter);
+  app.use('/api/invitations', invitationsRouter);
   app.use('/api/admin', adminRouter);
   app.use('/api', (req, _res, next) => next(new HttpError(404, 'not_found', `no API route ${req.method} ${req.path}`)));
 

@@ -6,7 +6,6 @@ import swaggerUi from 'swagger-ui-express';
 import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig } from '@asteasolutions/zod-to-openapi';
 import { z, type ZodType } from 'zod';
 import {
-  AddStudentSchema,
   ApiErrorSchema,
   CandidateInputSchema,
   CandidateListSchema,
@@ -15,6 +14,9 @@ import {
   CaughtMailListSchema,
   ChooseTempoSchema,
   HealthSchema,
+  InvitationListSchema,
+  InvitationSchema,
+  InviteStudentSchema,
   MeSchema,
   PassageInputSchema,
   PassageListSchema,
@@ -24,6 +26,8 @@ import {
   PracticeEntryListSchema,
   PracticeEntrySchema,
   PracticeInputSchema,
+  ReceivedInvitationListSchema,
+  ReceivedInvitationSchema,
   RecordingListSchema,
   RecordingPatchSchema,
   RecordingSchema,
@@ -35,6 +39,8 @@ import {
   SongPatchSchema,
   SongSchema,
   StudentListSchema,
+  TeacherListSchema,
+  TeacherSchema,
   UserListSchema,
   UserSummarySchema,
 } from '@/shared/schemas';
@@ -72,9 +78,10 @@ interface Operation {
 const ERROR_MEANINGS: Record<number, string> = {
   400: 'The body or a parameter is invalid; `error.field` names the first offending field, `error.issues` lists them all.',
   401: 'Not signed in (no valid session cookie).',
-  403: 'Signed in, but without a role this needs.',
+  403: 'Signed in, but without a role this needs, or not the account this was meant for.',
   404: 'No such thing, or it belongs to someone else (the API does not say which).',
   409: 'The thing is not in a state that allows this.',
+  410: 'Gone: the invitation expired, was withdrawn or was already answered.',
   413: 'The body or the uploaded file is over the size or duration limit.',
   415: 'The upload is not audio Tactus can read (MP3, WAV, FLAC, OGG or M4A).',
   416: 'The Range header cannot be served (one bytes range within the file).',
@@ -206,13 +213,46 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
     // ── Teaching ──
     { method: 'get', path: '/api/students', tag: 'studio', access: ['teacher', 'admin'], summary: 'My students', ok: { 200: json('My students.', s.StudentList) } },
     {
-      method: 'post', path: '/api/students', tag: 'studio', access: ['teacher', 'admin'], summary: 'Add a student by e-mail',
-      description: 'A 404 names the field `email` when no account uses that address.',
-      body: s.AddStudent, ok: { 201: json('My students, the new one included.', s.StudentList) }, errors: [404],
-    },
-    {
       method: 'delete', path: '/api/students/{studentId}', tag: 'studio', access: ['teacher', 'admin'], summary: 'Remove a student',
       ok: { 204: noContent('Removed.') },
+    },
+
+    {
+      method: 'get', path: '/api/teachers', tag: 'studio', access: 'signed-in', summary: 'My teachers (invitations I accepted)',
+      ok: { 200: json('My teachers.', s.TeacherList) },
+    },
+    {
+      method: 'delete', path: '/api/teachers/{teacherId}', tag: 'studio', access: 'signed-in', summary: 'End the link with a teacher',
+      description: 'The teacher loses access to my songs at once.', ok: { 204: noContent('Ended.') },
+    },
+    {
+      method: 'post', path: '/api/invitations', tag: 'studio', access: ['teacher', 'admin'], summary: 'Invite a student by e-mail',
+      description: 'Mails a one-time link that works for 7 days. The answer is the same whether or not an account uses the address.',
+      body: s.InviteStudent, ok: { 202: json('Sent.', s.Invitation) },
+    },
+    {
+      method: 'get', path: '/api/invitations', tag: 'studio', access: ['teacher', 'admin'], summary: 'My pending invitations',
+      ok: { 200: json('Not yet answered, newest first (expired ones say so).', s.InvitationList) },
+    },
+    {
+      method: 'delete', path: '/api/invitations/{id}', tag: 'studio', access: ['teacher', 'admin'], summary: 'Withdraw a pending invitation',
+      ok: { 204: noContent('Withdrawn: the link no longer works.') },
+    },
+    {
+      method: 'get', path: '/api/invitations/token/{token}', tag: 'studio', access: 'public', summary: 'The invitation a mailed link points at',
+      ok: { 200: json('Who invites, to which address, and whether the signed-in account may answer.', s.ReceivedInvitation) },
+    },
+    {
+      method: 'get', path: '/api/invitations/received', tag: 'studio', access: 'signed-in', summary: 'Pending invitations to my address',
+      ok: { 200: json('Newest first.', s.ReceivedInvitationList) },
+    },
+    {
+      method: 'post', path: '/api/invitations/{id}/accept', tag: 'studio', access: 'signed-in', summary: 'Accept an invitation (the invited address only)',
+      ok: { 200: json('The teacher now linked.', s.Teacher) }, errors: [403, 410],
+    },
+    {
+      method: 'post', path: '/api/invitations/{id}/decline', tag: 'studio', access: 'signed-in', summary: 'Decline an invitation (the invited address only)',
+      ok: { 204: noContent('Declined.') }, errors: [403, 410],
     },
 
     // ── Administration ──
@@ -270,7 +310,13 @@ function namedSchemas() {
     PassagePatch: r('PassagePatch', PassagePatchSchema),
     PassageList: r('PassageList', PassageListSchema),
     StudentList: r('StudentList', StudentListSchema),
-    AddStudent: r('AddStudent', AddStudentSchema),
+    InviteStudent: r('InviteStudent', InviteStudentSchema),
+    Invitation: r('Invitation', InvitationSchema),
+    InvitationList: r('InvitationList', InvitationListSchema),
+    ReceivedInvitation: r('ReceivedInvitation', ReceivedInvitationSchema),
+    ReceivedInvitationList: r('ReceivedInvitationList', ReceivedInvitationListSchema),
+    Teacher: r('Teacher', TeacherSchema),
+    TeacherList: r('TeacherList', TeacherListSchema),
     UserSummary: r('UserSummary', UserSummarySchema),
     UserList: r('UserList', UserListSchema),
     RoleChange: r('RoleChange', RoleChangeSchema),

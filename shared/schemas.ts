@@ -84,7 +84,36 @@ export const StudentSchema = z.object({
 });
 export type Student = z.infer<typeof StudentSchema>;
 export const StudentListSchema = z.object({ students: z.array(StudentSchema) });
-export const AddStudentSchema = z.object({ email: z.string().trim().email('enter an e-mail address such as name@example.com') });
+
+// ── Invitations between a teacher and a student ────────────────────────────────────────────────────
+
+export const InviteStudentSchema = z.object({ email: z.string().trim().toLowerCase().email('enter an e-mail address such as name@example.com') }).strict();
+export const INVITATION_STATES = ['pending', 'accepted', 'declined', 'withdrawn', 'expired'] as const;
+/** An invitation as the teacher who sent it sees it. */
+export const InvitationSchema = z.object({
+  id: z.string(),
+  email: z.string(),
+  status: z.enum(INVITATION_STATES),
+  expiresAt: z.string(),
+  createdAt: z.string(),
+});
+export type Invitation = z.infer<typeof InvitationSchema>;
+export const InvitationListSchema = z.object({ invitations: z.array(InvitationSchema) });
+/** An invitation as the invited person sees it (from the mailed link, or listed in the app). */
+export const ReceivedInvitationSchema = z.object({
+  id: z.string(),
+  teacherName: z.string(),
+  email: z.string(),
+  status: z.enum(INVITATION_STATES),
+  expiresAt: z.string(),
+  /** Signed in with the invited address: this account may answer. Null when nobody is signed in. */
+  forYou: z.boolean().nullable(),
+});
+export type ReceivedInvitation = z.infer<typeof ReceivedInvitationSchema>;
+export const ReceivedInvitationListSchema = z.object({ invitations: z.array(ReceivedInvitationSchema) });
+export const TeacherSchema = z.object({ id: z.string(), name: z.string(), email: z.string(), since: z.string() });
+export type Teacher = z.infer<typeof TeacherSchema>;
+export const TeacherListSchema = z.object({ teachers: z.array(TeacherSchema) });
 
 /** Every error the API sends has this shape; `field` names the offending input when there is one. */
 export const ApiErrorSchema = z.object({

@@ -11,6 +11,7 @@ import { AnalysisJob } from './AnalysisJob';
 import { CandidateTempo } from './CandidateTempo';
 import { PracticeEntry } from './PracticeEntry';
 import { Passage } from './Passage';
+import { StudioInvitation } from './StudioInvitation';
 
 User.hasMany(Song, { foreignKey: 'ownerId', as: 'songs', onDelete: 'CASCADE' });
 Song.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
@@ -28,4 +29,4 @@ Passage.belongsTo(Recording, { foreignKey: 'recordingId', as: 'recording' });
 /** better-auth's model names (after our modelName mapping) → the Sequelize model that stores them. */
 export const authModels = { users: User, sessions: Session, accounts: Account, verifications: Verification } as const;
 
-export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry, Passage };
+export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry, Passage, StudioInvitation };

@@ -3,7 +3,7 @@
 // expected answers are written out here by hand (the product's rule: owner writes; owner, linked teacher and
 // admin read; anyone else is told it does not exist; no session → 401), not read from the module.
 import request from 'supertest';
-import { baseUrl, signedInUser } from './helpers';
+import { baseUrl, linkStudent, signedInUser } from './helpers';
 
 type Who = 'owner' | 'linkedTeacher' | 'otherTeacher' | 'otherPlayer' | 'admin' | 'anonymous';
 const everyone: Who[] = ['owner', 'linkedTeacher', 'otherTeacher', 'otherPlayer', 'admin', 'anonymous'];
@@ -21,7 +21,7 @@ beforeAll(async () => {
   const otherTeacher = await signedInUser('acc-other-teacher', 'teacher');
   const otherPlayer = await signedInUser('acc-player');
   const admin = await signedInUser('acc-admin', 'admin');
-  await linkedTeacher.agent.post('/api/students').send({ email: owner.email }).expect(201);
+  await linkStudent(linkedTeacher, owner);
   agents = {
     owner: owner.agent,
     linkedTeacher: linkedTeacher.agent,

@@ -46,8 +46,7 @@ export function linkPath(mail: CaughtMail, url = baseUrl): string {
 export const PASSWORD = 'metronome-at-96';
 
 /** Signs up, confirms through the caught mail and signs in; returns the signed-in agent. */
-export async function signedInUser(label: string, role: Role = 'player', server: TestServer = servers.disk) {
-  const email = uniqueEmail(label);
+export async function signedInUser(label: string, role: Role = 'player', server: TestServer = servers.disk, email = uniqueEmail(label)) {
   const a = agent(server.url);
   await a.post('/api/auth/sign-up/email').send({ name: `Test ${label}`, email, password: PASSWORD }).expect(200);
   const mail = await waitForMail(email, /confirm/i, 10_000, server.url);
@@ -104,4 +103,30 @@ export function documentedOperations(doc: { paths: Record<string, Record<string,
 export function appRoutes(env: NodeJS.ProcessEnv): RouteEntry[] {
   const out = execFileSync(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/routes.ts'), '--json'], { cwd: root, env });
   return JSON.parse(out.toString()) as RouteEntry[];
+}
+
+type Person = { agent: ReturnType<typeof request.agent>; email: string; id: string };
+
+/** The token of the newest invitation link mailed to `email` (received after `since`, a Date.now() value). */
+export async function invitationToken(email: string, url = baseUrl, since = 0): Promise<string> {
+  const until = Date.now() + 10_000;
+  while (Date.now() < until) {
+    const res = await request(url).get('/api/dev/mail').query({ to: email });
+    const mails = (res.body.mails as CaughtMail[])
+      .filter((m) => /invites you/i.test(m.subject) && Date.parse(m.receivedAt) >= since)
+      .sort((a, b) => Date.parse(b.receivedAt) - Date.parse(a.receivedAt));
+    const token = mails[0] && /\/invitations\/([A-Za-z0-9_-]+)/.exec(linkPath(mails[0], url))?.[1];
+    if (token) return token;
+    await new Promise((r) => setTimeout(r, 150));
+  }
+  throw new Error(`no invitation reached ${email} within 10 s`);
+}
+
+/** A teacher invites a student, and the student accepts through the mailed link: the consented way to link. */
+export async function linkStudent(teacher: Person, student: Person, url = baseUrl) {
+  const since = Date.now();
+  await teacher.agent.post('/api/invitations').send({ email: student.email }).expect(202);
+  const token = await invitationToken(student.email, url, since);
+  const invitation = (await student.agent.get(`/api/invitations/token/${token}`).expect(200)).body;
+  await student.agent.post(`/api/invitations/${invitation.id}/accept`).expect(200);
 }

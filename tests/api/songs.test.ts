@@ -1,6 +1,6 @@
 // Songs: validation with clear 400s naming the field, ownership, and the teacher's view of a student.
 import request from 'supertest';
-import { baseUrl, signedInUser } from './helpers';
+import { baseUrl, linkStudent, signedInUser } from './helpers';
 
 describe('songs', () => {
   test('a player creates, lists, changes and deletes a song', async () => {
@@ -62,8 +62,9 @@ describe('songs', () => {
     await stranger.agent.delete(`/api/songs/${song.id}`).expect(404);
     await teacher.agent.get(`/api/songs/${song.id}`).expect(404);
 
-    const added = await teacher.agent.post('/api/students').send({ email: owner.email }).expect(201);
-    expect(added.body.students).toEqual([expect.objectContaining({ email: owner.email, songCount: 1 })]);
+    await linkStudent(teacher, owner);
+    const students = (await teacher.agent.get('/api/students').expect(200)).body.students;
+    expect(students).toEqual([expect.objectContaining({ email: owner.email, songCount: 1 })]);
     expect((await teacher.agent.get(`/api/songs/${song.id}`).expect(200)).body.title).toBe('Private Etude');
     // Reading is not owning.
     await teacher.agent.patch(`/api/songs/${song.id}`).send({ title: 'Changed' }).expect(404);

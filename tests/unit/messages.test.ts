@@ -1,7 +1,7 @@
 // What a musician reads when a form or request is refused: zod's default wording replaced by plain words,
 // field names as the screen names them (shared/messages.ts), for server answers and client forms alike.
 import { z } from 'zod';
-import { AddStudentSchema, PracticeInputSchema, SongInputSchema } from '@/shared/schemas';
+import { InviteStudentSchema, PracticeInputSchema, SongInputSchema } from '@/shared/schemas';
 import { fieldProblems, plainProblem } from '@/shared/messages';
 
 const problems = (schema: z.ZodType, input: unknown) => {
@@ -22,7 +22,7 @@ test('a missing required field says so, and a schema’s own message wins over t
 });
 
 test('an e-mail address that is not one gets an example, not the field name twice', () => {
-  expect(problems(AddStudentSchema, { email: 'ilya at example' }).email).toBe('enter an e-mail address such as name@example.com');
+  expect(problems(InviteStudentSchema, { email: 'ilya at example' }).email).toBe('enter an e-mail address such as name@example.com');
 });
 
 test('unexpected fields are named; whole numbers are asked for where a count is expected', () => {
