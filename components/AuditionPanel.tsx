@@ -6,7 +6,6 @@ import React, { useCallback, useEffect, useRef, useState } from 'react';
 import { Platform, Text, useWindowDimensions, View } from 'react-native';
 import { Button, Card, Chip, Heading, Notice, Row, Small } from './ui';
 import { colors, layout, space, type } from './theme';
-import { formatBpm } from './TempoLabel';
 import { PlayerWaveform, usePolled } from '@/components/audition/PlayerWaveform';
 import { TempoControl } from '@/components/audition/TempoControl';
 import { CandidateTempos } from '@/components/audition/CandidateTempos';
@@ -19,9 +18,8 @@ import { logPractice, useCandidates } from '@/client/hooks';
 import { barAt, barContaining, beatInBar, describePassage, skipBar, snapPassage, type Passage } from '@/audio/practice/passage';
 import { passFinished, startStepUp, type StepUpPlan, type StepUpState } from '@/audio/practice/step-up';
 import { exportFileName } from '@/audio/playback/export';
+import { formatBpm, formatClock, plural, tenth } from '@/shared/format';
 import type { PeaksDto, Recording, Song } from '@/shared/schemas';
-
-const tenth = (x: number) => Math.round(x * 10) / 10;
 
 export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { recording: Recording; song: Song | undefined; peaks: PeaksDto | undefined; canEdit: boolean; audioUrl: string }) {
   const a = recording.analysis!;
@@ -96,13 +94,13 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
     const r = run.current;
     run.current = null;
     if (!r || s.repetitions === 0 || !song) return;
-    const minutes = Math.round(((Date.now() - r.startedAt) / 60000) * 10) / 10;
+    const minutes = tenth((Date.now() - r.startedAt) / 60000);
     const passage = loop ? describePassage(loop, a.downbeats) : null;
     const reached = s.reachedBpm ?? s.plan.startBpm;
     if (!canEdit) return;
     try {
       await logPractice(song.id, { passage, startBpm: s.plan.startBpm, reachedBpm: reached, repetitions: s.repetitions, minutes, clean: s.done });
-      setLogged(`Logged: ${passage ?? 'the recording'}, ${formatBpm(s.plan.startBpm)} → ${formatBpm(reached)} BPM, ${s.repetitions} repetitions, ${minutes} min.`);
+      setLogged(`Logged: ${passage ?? 'the recording'}, ${formatBpm(s.plan.startBpm)} → ${formatBpm(reached)} BPM, ${plural(s.repetitions, 'repetition')}, ${minutes} min.`);
     } catch (e) {
       setLogged(null);
       setFailure(`The practice entry was not saved: ${(e as Error).message}`);
@@ -304,8 +302,6 @@ export function AuditionPanel({ recording, song, peaks, canEdit, audioUrl }: { r
   );
 }
 
-const clock = (s: number) => `${Math.floor(s / 60)}:${(s % 60).toFixed(1).padStart(4, '0')}`;
-
 function PositionReadout({ getPosition, beats, downbeats, durationSec }: { getPosition: () => number; beats: number[]; downbeats: number[]; durationSec: number }) {
   const t = usePolled(getPosition, 50);
   const bar = barAt(t, downbeats);
@@ -317,7 +313,7 @@ function PositionReadout({ getPosition, beats, downbeats, durationSec }: { getPo
       {beat > 0 ? <Text style={{ color: colors.muted }}>{` · beat ${beat}`}</Text> : null}
       <Text style={{ color: colors.muted }}>
         {'  ·  '}
-        <Text testID="playback-position" accessibilityLabel={`${t.toFixed(1)} seconds`}>{clock(t)}</Text> / {clock(durationSec)}
+        <Text testID="playback-position" accessibilityLabel={`${t.toFixed(1)} seconds`}>{formatClock(t)}</Text> / {formatClock(durationSec)}
       </Text>
     </Text>
   );

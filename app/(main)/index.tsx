@@ -6,6 +6,7 @@ import { SongCard } from '@/components/SongCard';
 import { SongForm } from '@/components/SongForm';
 import { space } from '@/components/theme';
 import { addSong, useSongs } from '@/client/hooks';
+import { plural } from '@/shared/format';
 
 export default function Library() {
   const { songs, error, isLoading } = useSongs();
@@ -38,7 +39,7 @@ export default function Library() {
         </EmptyState>
       ) : null}
       {songs?.map((song) => <SongCard key={song.id} song={song} />)}
-      {songs && songs.length > 0 ? <Body muted>{songs.length === 1 ? '1 song' : `${songs.length} songs`}</Body> : null}
+      {songs && songs.length > 0 ? <Body muted>{plural(songs.length, 'song')}</Body> : null}
     </Screen>
   );
 }

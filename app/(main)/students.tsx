@@ -5,6 +5,7 @@ import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Screen
 import { space } from '@/components/theme';
 import { addStudent, useMe, useStudents } from '@/client/hooks';
 import { useAction } from '@/client/useAction';
+import { plural } from '@/shared/format';
 
 export default function Students() {
   const { me } = useMe();
@@ -38,7 +39,7 @@ export default function Students() {
         <Card key={s.id}>
           <Body style={{ fontWeight: '700' }}>{s.name}</Body>
           <Small>
-            {s.email} · {s.songCount === 1 ? '1 song' : `${s.songCount} songs`}
+            {s.email} · {plural(s.songCount, 'song')}
           </Small>
         </Card>
       ))}
