@@ -8,12 +8,10 @@ import { Waveform } from '@/components/Waveform';
 import { ProgressBar } from '@/components/ProgressBar';
 import { TempoCorrection } from '@/components/TempoCorrection';
 import { AuditionPanel } from '@/components/AuditionPanel';
-import { apiBase, apiFetch } from '@/client/api';
+import { apiBase } from '@/client/api';
 import { formatBpm, formatDuration, plural, tenth } from '@/shared/format';
 import { colors, space, type } from '@/components/theme';
-import { correctRecording, useMe, usePeaks, useRecording, useSong } from '@/client/hooks';
-
-import { mutate } from 'swr';
+import { correctRecording, retryAnalysis, useMe, usePeaks, useRecording, useSong } from '@/client/hooks';
 
 export default function RecordingScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
@@ -47,10 +45,7 @@ export default function RecordingScreen() {
       {r.status === 'failed' ? (
         <Card>
           <Notice tone="error">{r.error ?? 'The analysis failed.'}</Notice>
-          <Button label="Try the analysis again" onPress={async () => {
-            await apiFetch(`/api/recordings/${r.id}/retry`, { method: 'POST', body: {} });
-            await mutate(`/api/recordings/${r.id}`);
-          }} />
+          <Button label="Try the analysis again" onPress={() => retryAnalysis(r.id)} />
         </Card>
       ) : null}
 
