@@ -13,6 +13,8 @@ export type AuditionPlayerState = ReturnType<typeof useAuditionPlayer>;
 export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   const { originalBpm } = grid;
   const player = useRef<AuditionPlayer | null>(null);
+  /** Called at each pass through the loop (the step-up run listens here). */
+  const onLoopPassRef = useRef<(() => void) | null>(null);
   const [ready, setReady] = useState(false);
   const [failure, setFailure] = useState<string | null>(null);
   const [playing, setPlaying] = useState(false);
@@ -30,10 +32,12 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
     player.current = p;
     p.load().then(() => setReady(true), (e: Error) => setFailure(e.message));
     p.onEnded = () => setPlaying(false);
+    p.onLoopPass = () => onLoopPassRef.current?.();
     // The player benchmark (fixtures/bench-player.ts) reads the player's figures from here.
     (window as unknown as { tactusAudition?: AuditionPlayer }).tactusAudition = p;
     return () => p.dispose();
     // The grid is read when the player is made; a correction reloads it with the new tempo.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [audioUrl, originalBpm]);
 
   const getPosition = useCallback(() => player.current?.position() ?? 0, []);
@@ -67,7 +71,7 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
     player.current?.seek(sec);
     if (player.current && !player.current.loopRegion) setLoopState(null);
   }, []);
-  const skip = useCallback((dir: 1 | -1) => seek(skipBar(getPosition(), grid, dir)), [seek, getPosition, grid.downbeats]);
+  const skip = (dir: 1 | -1) => seek(skipBar(getPosition(), grid, dir));
 
   const setLoop = useCallback((p: Passage | null) => {
     setLoopState(p);
@@ -92,7 +96,7 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   };
 
   return {
-    player, ready, failure, setFailure, playing, play, pause, togglePlay, getPosition, seek, skip,
+    player, onLoopPassRef, ready, failure, setFailure, playing, play, pause, togglePlay, getPosition, seek, skip,
     bpm, setBpm, loop, setLoop, countInOn, setCountIn, clickOn, setClickOn, clickLevel, setClickLevel, musicLevel, setMusicLevel,
   };
 }

@@ -27,7 +27,7 @@ export function useStepUpRun({ audition, song, canLog, downbeats, originalBpm }:
   downbeats: number[];
   originalBpm: number;
 }) {
-  const { player, loop, bpm, setBpm, seek, play, pause, setFailure } = audition;
+  const { onLoopPassRef, loop, bpm, setBpm, seek, play, pause, setFailure } = audition;
   const [stepUp, setStepUp] = useState<StepUpState | null>(null);
   const [logged, setLogged] = useState<string | null>(null);
   const run = useRef<{ state: StepUpState; notClean: boolean; startedAt: number } | null>(null);
@@ -51,9 +51,7 @@ export function useStepUpRun({ audition, song, canLog, downbeats, originalBpm }:
 
   // Each render hands the player a listener that sees this render's tempo and passage.
   useEffect(() => {
-    const p = player.current;
-    if (!p) return;
-    p.onLoopPass = () => {
+    onLoopPassRef.current = () => {
       const r = run.current;
       if (!r) return;
       const next = passFinished(r.state, !r.notClean);
