@@ -1,12 +1,12 @@
 // Library: the songs this player is working on, with their tempos.
 import React, { useState } from 'react';
 import { View } from 'react-native';
+import { plural } from '@/shared/format';
 import { Button, EmptyState, Heading, Loading, Notice, Screen, Body } from '@/components/ui';
 import { SongCard } from '@/components/SongCard';
 import { SongForm } from '@/components/SongForm';
 import { space } from '@/components/theme';
 import { addSong, useSongs } from '@/client/hooks';
-import { plural } from '@/shared/format';
 
 export default function Library() {
   const { songs, error, isLoading } = useSongs();

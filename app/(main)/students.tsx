@@ -1,11 +1,11 @@
 // Students: a teacher's studio. Only teachers (and admins) see this screen; the server enforces it too.
 import React, { useState } from 'react';
 import { View } from 'react-native';
+import { plural } from '@/shared/format';
 import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Screen, Small } from '@/components/ui';
 import { space } from '@/components/theme';
 import { addStudent, useMe, useStudents } from '@/client/hooks';
 import { useAction } from '@/client/useAction';
-import { plural } from '@/shared/format';
 
 export default function Students() {
   const { me } = useMe();
