@@ -1,5 +1,5 @@
 // The click's sound: a short sine blip, higher and louder on the downbeat. Shared by the audition player and
-// the plain metronome so both sound alike.
+// the plain metronome (through client/click-scheduler.ts, on the page's context) so both sound alike.
 
 /** Default click level, well below full scale (a sudden loud click in headphones is what hurts). */
 export const DEFAULT_CLICK_GAIN = 0.25;
@@ -16,9 +16,4 @@ export function scheduleBlip(ctx: BaseAudioContext, destination: AudioNode, at: 
   osc.start(at);
   osc.stop(at + 0.06);
   return osc;
-}
-
-export function newAudioContext(): AudioContext {
-  const Ctx = window.AudioContext ?? (window as unknown as { webkitAudioContext: typeof AudioContext }).webkitAudioContext;
-  return new Ctx();
 }

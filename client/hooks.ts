@@ -1,7 +1,7 @@
 // SWR hooks: how screens read server data. Mutations revalidate the keys they change.
 import useSWR, { mutate } from 'swr';
 import { ApiRequestError, apiFetch, fetcher } from './api';
-import type { Candidate, Me, PeaksDto, PracticeEntryDto, PracticeInput, Recording, RecordingPatch, Song, SongInput, SongPatch, Student, UserSummary, Role } from '@/shared/schemas';
+import type { Candidate, Me, PeaksDto, PracticeEntryDto, PracticeInput, Recording, RecordingPatch, Song, SongInput, Student, UserSummary, Role } from '@/shared/schemas';
 
 export function useMe() {
   const { data, error, isLoading } = useSWR<Me>('/api/me', fetcher, { shouldRetryOnError: false });
@@ -16,12 +16,6 @@ export function useSongs() {
 
 export async function addSong(input: SongInput) {
   const song = await apiFetch<Song>('/api/songs', { body: input });
-  await mutate('/api/songs');
-  return song;
-}
-
-export async function changeSong(id: string, patch: SongPatch) {
-  const song = await apiFetch<Song>(`/api/songs/${id}`, { method: 'PATCH', body: patch });
   await mutate('/api/songs');
   return song;
 }
@@ -73,6 +67,12 @@ export function useRecording(id: string) {
 export function usePeaks(id: string, ready: boolean) {
   const { data } = useSWR<PeaksDto>(ready ? `/api/recordings/${id}/peaks` : null, fetcher);
   return data;
+}
+
+/** Queues a failed analysis again; the recording's own key then polls until it is done. */
+export async function retryAnalysis(id: string) {
+  await apiFetch(`/api/recordings/${id}/retry`, { method: 'POST', body: {} });
+  await mutate(`/api/recordings/${id}`);
 }
 
 export async function correctRecording(id: string, patch: RecordingPatch) {

@@ -1,66 +1,61 @@
 // The plain metronome (click-only mode): any BPM and meter, accent on the first beat of the bar. The beats
-// come from MetronomeTimeline (audio/playback/click.ts) and are scheduled a little ahead on the audio clock; a tempo or
-// meter change takes effect from the next beat.
+// come from MetronomeTimeline (audio/playback/click.ts) and go to the audio clock through the click scheduler
+// (client/click-scheduler.ts), as the player's do; a tempo or meter change takes effect from the next beat.
 import { beatsPerBar, MetronomeTimeline } from '@/audio/playback/click';
-import { DEFAULT_CLICK_GAIN, newAudioContext, scheduleBlip } from './click-sound';
+import { DEFAULT_CLICK_GAIN } from './click-sound';
+import { resumeAudio } from './audio-context';
+import { ClickScheduler } from './click-scheduler';
 
-const LOOKAHEAD_SEC = 0.12;
+/** Time between pressing Start and the first click, so the first one is never late. */
+const START_MARGIN_SEC = 0.05;
 
 export class Metronome {
-  private ctx: AudioContext | null = null;
   private gain: GainNode | null = null;
-  private timer: ReturnType<typeof setInterval> | null = null;
+  private clicksOut: ClickScheduler | null = null;
   private timeline: MetronomeTimeline | null = null;
-  private scheduledUntil = 0;
-  private planned: { at: number; osc: OscillatorNode; inBar: number }[] = [];
   private bpm = 100;
   private meter = '4/4';
   private volume = DEFAULT_CLICK_GAIN;
   running = false;
 
   /** Clicks scheduled so far (what the browser test reads). */
-  clicks = 0;
+  get clicks() {
+    return this.clicksOut?.count ?? 0;
+  }
 
   async start() {
     if (this.running) return;
-    this.ctx ??= newAudioContext();
-    await this.ctx.resume();
-    this.gain = this.ctx.createGain();
+    const ctx = await resumeAudio();
+    if (!this.gain || !this.clicksOut) {
+      this.gain = ctx.createGain();
+      this.gain.connect(ctx.destination);
+      this.clicksOut = new ClickScheduler(ctx, this.gain, (from, until) => this.timeline?.clicksBetween(from, until) ?? []);
+    }
     this.gain.gain.value = this.volume;
-    this.gain.connect(this.ctx.destination);
-    const start = this.ctx.currentTime + 0.05;
+    const start = ctx.currentTime + START_MARGIN_SEC;
     this.timeline = new MetronomeTimeline(start, this.bpm, beatsPerBar(this.meter));
-    this.scheduledUntil = start;
     this.running = true;
-    this.timer = setInterval(() => this.schedule(), 25);
-    this.schedule();
+    this.clicksOut.start(start);
   }
 
   stop() {
-    if (this.timer) clearInterval(this.timer);
-    this.timer = null;
     this.running = false;
-    for (const p of this.planned) p.osc.stop(0);
-    this.planned = [];
-    this.gain?.disconnect();
+    this.clicksOut?.stop();
   }
 
   set(bpm: number, meter: string) {
     this.bpm = bpm;
     this.meter = meter;
-    if (this.running && this.timeline && this.ctx) {
+    if (this.running && this.timeline && this.clicksOut) {
       // Beats already handed to the audio clock stay; the change counts from the first one not yet scheduled.
-      this.timeline.change(this.scheduledUntil, bpm, beatsPerBar(meter));
+      this.timeline.change(this.clicksOut.scheduledUntil, bpm, beatsPerBar(meter));
     }
   }
 
   /** The beat sounding now, as its place in the bar (0 = downbeat), for the beat lights; null when stopped. */
   beatNow(): number | null {
-    if (!this.running || !this.ctx) return null;
-    const now = this.ctx.currentTime;
-    let current: number | null = null;
-    for (const p of this.planned) if (p.at <= now) current = p.inBar;
-    return current;
+    if (!this.running || !this.clicksOut) return null;
+    return this.clicksOut.lastHeard();
   }
 
   setVolume(v: number) {
@@ -68,20 +63,11 @@ export class Metronome {
     if (this.gain) this.gain.gain.value = this.volume;
   }
 
+  /** The context is the page's and stays; the metronome's own node leaves it. */
   dispose() {
     this.stop();
-    void this.ctx?.close();
-  }
-
-  private schedule() {
-    const ctx = this.ctx!;
-    const until = ctx.currentTime + LOOKAHEAD_SEC;
-    // Keep the last beat heard (the beat lights read it) and the ones still to come.
-    this.planned = this.planned.filter((p) => p.at > ctx.currentTime - 60 / this.bpm - 0.05);
-    for (const c of this.timeline!.clicksBetween(this.scheduledUntil, until)) {
-      this.planned.push({ at: c.time, osc: scheduleBlip(ctx, this.gain!, c.time, c.accent), inBar: c.inBar ?? 0 });
-      this.clicks++;
-    }
-    this.scheduledUntil = Math.max(this.scheduledUntil, until);
+    this.gain?.disconnect();
+    this.gain = null;
+    this.clicksOut = null;
   }
 }

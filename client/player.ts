@@ -9,11 +9,12 @@ import { PlaybackHost, type FromEngine, type RenderStats, type ToEngine } from '
 import { wrapIntoLoop, type Passage } from '@/audio/practice/passage';
 import { encodeWav, renderAtTempo } from '@/audio/playback/export';
 import { heardOffsetSec, type StereoBuffer } from '@/audio/playback/stretch';
-import { DEFAULT_CLICK_GAIN, newAudioContext, scheduleBlip } from './click-sound';
+import { DEFAULT_CLICK_GAIN } from './click-sound';
+import { addWorkletModule, audioContext, resumeAudio } from './audio-context';
+import { ClickScheduler } from './click-scheduler';
 
 /** Frames per block of the ScriptProcessor fallback (the worklet renders 128 at a time). */
 const FALLBACK_BLOCK = 1024;
-const LOOKAHEAD_SEC = 0.12;
 /** Time between pressing Play and the first sound, so the first block is never late. */
 const START_MARGIN_SEC = 0.06;
 export const MIN_SPEED = 0.4;
@@ -47,9 +48,7 @@ export class AuditionPlayer {
   private audio: StereoBuffer | null = null;
   private engine: Engine | null = null;
   private map: PlaybackMap | null = null;
-  private timer: ReturnType<typeof setInterval> | null = null;
-  private scheduledUntil = 0;
-  private scheduled: { at: number; osc: OscillatorNode }[] = [];
+  private clicks: ClickScheduler | null = null;
   private startFrom = 0;
   private speed = 1;
   private musicStartsAt = 0;
@@ -58,6 +57,7 @@ export class AuditionPlayer {
   private loop: Passage | null = null;
   /** Numbers each start, so reports from an earlier run that arrive late are ignored. */
   private run = 0;
+  private disposed = false;
   clickOn = true;
   countInOn = false;
   playing = false;
@@ -80,7 +80,7 @@ export class AuditionPlayer {
   }
 
   async load(): Promise<void> {
-    const ctx = newAudioContext();
+    const ctx = audioContext();
     this.ctx = ctx;
     const audio = await this.decode(ctx);
     this.musicGain = ctx.createGain();
@@ -88,8 +88,11 @@ export class AuditionPlayer {
     this.clickGain = ctx.createGain();
     this.clickGain.gain.value = DEFAULT_CLICK_GAIN;
     this.clickGain.connect(ctx.destination);
+    this.clicks = new ClickScheduler(ctx, this.clickGain, (from, until) => this.beatClicks(from, until), (now) => this.checkEnd(now));
     this.engine = (await this.workletEngine(ctx, audio)) ?? this.scriptProcessorEngine(ctx, audio);
     this.engine.node.connect(this.musicGain);
+    // Thrown away while it loaded (the screen was left): what was just made leaves the page's context too.
+    if (this.disposed) this.dispose();
   }
 
   /** Seconds into the recording being heard now. */
@@ -126,10 +129,9 @@ export class AuditionPlayer {
   }
 
   async play() {
-    if (!this.ctx || !this.engine || this.playing) return;
+    if (!this.ctx || !this.engine || !this.clicks || this.playing) return;
     this.playing = true;
-    await this.ctx.resume();
-    const ctx = this.ctx;
+    const ctx = await resumeAudio();
     if (!this.loop && this.startFrom >= this.durationSec - 0.05) this.startFrom = 0;
 
     // The music comes in after the count-in bar, so that the count-in's beats run on into the recording's.
@@ -141,24 +143,22 @@ export class AuditionPlayer {
       const firstBeat = this.grid.beats.find((b) => b >= this.startFrom - 1e-6);
       const toFirstBeat = firstBeat === undefined ? 0 : (firstBeat - this.startFrom) / this.speed;
       startsAt = now + Math.max(0, (perBar * 60) / playbackBpm - toFirstBeat);
-      for (const c of countIn(startsAt + toFirstBeat, perBar, playbackBpm)) this.click(c.time + heardOffsetSec(this.speed), c.accent);
+      for (const c of countIn(startsAt + toFirstBeat, perBar, playbackBpm)) this.clicks.add(c.time + heardOffsetSec(this.speed), c.accent);
     }
     const options: StartOptions = { fromSec: this.startFrom, speed: this.speed, startsAt, loop: this.loop };
     this.musicStartsAt = startsAt;
     this.map = new PlaybackMap(startsAt, this.startFrom, this.speed);
-    this.scheduledUntil = startsAt;
     this.run += 1;
     this.engine.send({ type: 'start', options, run: this.run });
-    this.timer = setInterval(() => this.tick(), 25);
+    this.clicks.start(startsAt);
   }
 
   pause() {
     if (!this.playing) return;
     this.startFrom = this.position();
     this.playing = false;
-    if (this.timer) clearInterval(this.timer);
     this.engine?.send({ type: 'stop' });
-    this.cancelClicksFrom(0);
+    this.clicks?.stop();
   }
 
   seek(sec: number) {
@@ -199,9 +199,15 @@ export class AuditionPlayer {
     this.engine?.send({ type: 'reset-stats' });
   }
 
+  /** The context is the page's and stays; this player's nodes leave it, and the engine lets its samples go. */
   dispose() {
+    this.disposed = true;
     this.pause();
-    void this.ctx?.close();
+    this.engine?.send({ type: 'unload' });
+    this.engine?.node.disconnect();
+    this.musicGain?.disconnect();
+    this.clickGain?.disconnect();
+    this.engine = null;
   }
 
   /** What the audio thread reports. */
@@ -211,7 +217,7 @@ export class AuditionPlayer {
       if (!this.map) return;
       const seg: PlaybackSegment = { at: m.at, from: m.from, speed: m.speed };
       this.map.addSegment(seg);
-      this.cancelClicksFrom(seg.at);
+      this.clicks?.cancelFrom(seg.at);
       this.stats.changeLatencies.push(m.at - m.requestedAt);
     } else if (m.type === 'pass') {
       this.onLoopPass?.(m.pass);
@@ -224,7 +230,7 @@ export class AuditionPlayer {
   private async workletEngine(ctx: AudioContext, audio: StereoBuffer): Promise<Engine | null> {
     if (!ctx.audioWorklet || typeof AudioWorkletNode === 'undefined') return null;
     try {
-      await ctx.audioWorklet.addModule(WORKLET_URL);
+      await addWorkletModule(WORKLET_URL);
     } catch {
       return null;
     }
@@ -256,38 +262,23 @@ export class AuditionPlayer {
     return { node, send: (m) => host.receive(m) };
   }
 
-  private tick() {
-    if (!this.ctx || !this.map) return;
-    const until = this.ctx.currentTime + LOOKAHEAD_SEC;
-    if (this.clickOn && until > this.scheduledUntil) {
-      // The stretched attacks come a little early or late (audio/playback/stretch.ts): the click follows the music.
-      for (const c of clicksBetween(this.map, this.grid.beats, this.grid.downbeats, this.scheduledUntil, until, this.loop)) {
-        this.click(Math.max(this.ctx.currentTime, c.time + heardOffsetSec(this.map.speedAt(c.time))), c.accent);
-      }
-    }
-    this.scheduledUntil = Math.max(this.scheduledUntil, until);
+  /** The recording's beats due in [from, until) of context time, while the click is on. */
+  private beatClicks(from: number, until: number) {
+    if (!this.clickOn || !this.ctx || !this.map) return [];
     const now = this.ctx.currentTime;
-    this.scheduled = this.scheduled.filter((s) => s.at > now - 0.2);
-    if (!this.loop && now > this.musicStartsAt && this.map.recordingTime(now) >= this.durationSec) {
-      this.pause();
-      this.startFrom = this.durationSec;
-      this.onEnded?.();
-    }
+    const map = this.map;
+    // The stretched attacks come a little early or late (audio/playback/stretch.ts): the click follows the music.
+    return clicksBetween(map, this.grid.beats, this.grid.downbeats, from, until, this.loop).map((c) => ({
+      time: Math.max(now, c.time + heardOffsetSec(map.speedAt(c.time))),
+      accent: c.accent,
+    }));
   }
 
-  private click(at: number, accent: boolean) {
-    this.scheduled.push({ at, osc: scheduleBlip(this.ctx!, this.clickGain!, at, accent) });
-  }
-
-  /** Clicks planned on the old timeline after a change would land off the beat: drop them. */
-  private cancelClicksFrom(at: number) {
-    const now = this.ctx?.currentTime ?? 0;
-    this.scheduledUntil = Math.min(this.scheduledUntil, Math.max(at, now));
-    this.scheduled = this.scheduled.filter((s) => {
-      if (s.at < at || s.at < now) return true;
-      s.osc.stop(0);
-      s.osc.disconnect();
-      return false;
-    });
+  /** Playback without a loop stops at the recording's end. */
+  private checkEnd(now: number) {
+    if (!this.map || this.loop || now <= this.musicStartsAt || this.map.recordingTime(now) < this.durationSec) return;
+    this.pause();
+    this.startFrom = this.durationSec;
+    this.onEnded?.();
   }
 }

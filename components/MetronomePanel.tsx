@@ -3,7 +3,7 @@ import React, { useEffect, useRef, useState } from 'react';
 import { Platform, Text, View } from 'react-native';
 import { Button, Card, Chip, Heading, Notice, Row, Small } from './ui';
 import { colors, space, type } from './theme';
-import { formatBpm } from './TempoLabel';
+import { formatBpm, tenth } from '@/shared/format';
 import { Level } from '@/components/audition/SoundLevels';
 import { usePolled } from '@/components/audition/PlayerWaveform';
 import { beatsPerBar } from '@/audio/playback/click';
@@ -31,7 +31,7 @@ export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { ini
     return () => m.dispose();
   }, []);
   const apply = (v: number) => {
-    const next = Math.round(Math.max(MIN, Math.min(MAX, v)) * 10) / 10;
+    const next = tenth(Math.max(MIN, Math.min(MAX, v)));
     setBpm(next);
     clock.current?.set(next, meter);
   };

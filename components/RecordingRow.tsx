@@ -2,8 +2,8 @@ import React from 'react';
 import { Pressable, View } from 'react-native';
 import { Body, Small } from './ui';
 import { ProgressBar } from './ProgressBar';
-import { formatBpm } from './TempoLabel';
 import { colors, radius, space } from './theme';
+import { formatBpm, formatDuration, tenth } from '@/shared/format';
 import type { Recording } from '@/shared/schemas';
 
 const statusText: Record<Recording['status'], string> = {
@@ -13,14 +13,12 @@ const statusText: Record<Recording['status'], string> = {
   failed: 'Analysis failed',
 };
 
-export const formatDuration = (sec: number) => `${Math.floor(sec / 60)}:${String(Math.round(sec % 60)).padStart(2, '0')}`;
-
 export function RecordingRow({ recording: r, onOpen }: { recording: Recording; onOpen: () => void }) {
   return (
     <Pressable role="link" onPress={onOpen} testID="recording-row" style={{ padding: space.md, borderRadius: radius.sm, borderWidth: 1, borderColor: colors.line, backgroundColor: colors.card, gap: space.xs }}>
       <View style={{ flexDirection: 'row', justifyContent: 'space-between', gap: space.sm }}>
         <Body style={{ fontWeight: '700', flexShrink: 1 }}>{r.label || r.originalName || 'Untitled recording'}</Body>
-        <Body style={{ color: colors.amber, fontWeight: '700' }}>{r.status === 'done' && r.originalBpm ? `${formatBpm(Math.round(r.originalBpm * 10) / 10)} BPM` : ''}</Body>
+        <Body style={{ color: colors.amber, fontWeight: '700' }}>{r.status === 'done' && r.originalBpm ? `${formatBpm(tenth(r.originalBpm))} BPM` : ''}</Body>
       </View>
       <Small>
         {r.kind === 'take' ? 'Take' : 'Reference'} · {r.format.toUpperCase()} · {formatDuration(r.durationSec)}

@@ -3,7 +3,7 @@ import React, { useRef, useState } from 'react';
 import { Pressable, Text, View } from 'react-native';
 import { Button, Small } from './ui';
 import { colors, layout, radius, space, type } from './theme';
-import { formatBpm } from './TempoLabel';
+import { formatBpm, tenth } from '@/shared/format';
 import { tapTempo } from '@/audio/practice/tap-tempo';
 import type { Analysis } from '@/shared/schemas';
 
@@ -31,7 +31,7 @@ export function TempoCorrection({
   const taps = useRef<number[]>([]);
   const [tapped, setTapped] = useState<number | null>(null);
   const detected = analysis.bpm;
-  const within = (b: number) => Math.max(30, Math.min(300, Math.round(b * 10) / 10));
+  const within = (b: number) => Math.max(30, Math.min(300, tenth(b)));
 
   const tap = () => {
     const now = performance.now() / 1000;
@@ -63,7 +63,7 @@ export function TempoCorrection({
         {tapped ? <Button label={`Use ${formatBpm(tapped)} BPM`} kind="secondary" onPress={() => onChoose(tapped)} /> : <Small>Four taps or more.</Small>}
       </View>
       {detected !== null && Math.abs(current - detected) > 0.05 ? (
-        <Button label={`Back to the detected ${formatBpm(Math.round(detected * 10) / 10)} BPM`} kind="quiet" onPress={() => onChoose(null)} />
+        <Button label={`Back to the detected ${formatBpm(tenth(detected))} BPM`} kind="quiet" onPress={() => onChoose(null)} />
       ) : null}
     </View>
   );

@@ -1,6 +1,7 @@
 import React from 'react';
 import { Text, View } from 'react-native';
 import { colors, fonts, type } from './theme';
+import { formatBpm } from '@/shared/format';
 
 /** A tempo as a musician reads it: the number big, "BPM" small, a caption above. */
 export function TempoLabel({ caption, bpm, accent }: { caption: string; bpm: number | null; accent?: boolean }) {
@@ -25,6 +26,3 @@ export function SongTempos({ working, goal, chosen }: { working: number | null; 
     </View>
   );
 }
-
-/** Whole tempos without decimals, others to one decimal place. */
-export const formatBpm = (bpm: number) => (Number.isInteger(bpm) ? String(bpm) : bpm.toFixed(1));

@@ -2,7 +2,7 @@ import React from 'react';
 import { View } from 'react-native';
 import { Body, Card, Small } from './ui';
 import { colors, radius } from './theme';
-import { formatBpm } from './TempoLabel';
+import { formatBpm } from '@/shared/format';
 
 /** How far the working tempo has come toward the goal, as a share of the goal. */
 export function TempoProgress({ title, working, goal, children }: { title: string; working: number | null; goal: number; children?: React.ReactNode }) {

@@ -2,6 +2,7 @@
 import React from 'react';
 import { Text, View } from 'react-native';
 import { colors, fonts } from './theme';
+import { plural } from '@/shared/format';
 
 export function Waveform({
   minMax,
@@ -37,7 +38,7 @@ export function Waveform({
   // Number every bar while they are few, every second or fourth when they would crowd a phone's width.
   const labelEvery = downbeats.length <= 12 ? 1 : downbeats.length <= 24 ? 2 : 4;
   return (
-    <View testID={testID} accessibilityLabel={`Waveform with ${beats.length} beats`} style={{ height: height + 16, width: '100%' }}>
+    <View testID={testID} accessibilityLabel={`Waveform with ${plural(beats.length, 'beat')}`} style={{ height: height + 16, width: '100%' }}>
       <View style={{ position: 'absolute', top: 16, left: 0, right: 0, height, flexDirection: 'row', alignItems: 'center' }}>
         {cols.map((c, i) => (
           <View key={i} style={{ flex: 1, alignItems: 'center', justifyContent: 'center', height }}>

@@ -1,6 +1,7 @@
 // Library: the songs this player is working on, with their tempos.
 import React, { useState } from 'react';
 import { View } from 'react-native';
+import { plural } from '@/shared/format';
 import { Button, EmptyState, Heading, Loading, Notice, Screen, Body } from '@/components/ui';
 import { SongCard } from '@/components/SongCard';
 import { SongForm } from '@/components/SongForm';
@@ -40,7 +41,7 @@ export default function Library() {
         </EmptyState>
       ) : null}
       {songs?.map((song) => <SongCard key={song.id} song={song} />)}
-      {songs && songs.length > 0 ? <Body muted>{songs.length === 1 ? '1 song' : `${songs.length} songs`}</Body> : null}
+      {songs && songs.length > 0 ? <Body muted>{plural(songs.length, 'song')}</Body> : null}
     </Screen>
   );
 }

@@ -1,6 +1,7 @@
 // Students: a teacher's studio. Only teachers (and admins) see this screen; the server enforces it too.
 import React, { useState } from 'react';
 import { View } from 'react-native';
+import { plural } from '@/shared/format';
 import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Screen, Small } from '@/components/ui';
 import { space } from '@/components/theme';
 import { addStudent, useMe, useStudents } from '@/client/hooks';
@@ -40,7 +41,7 @@ export default function Students() {
         <Card key={s.id}>
           <Body style={{ fontWeight: '700' }}>{s.name}</Body>
           <Small>
-            {s.email} · {s.songCount === 1 ? '1 song' : `${s.songCount} songs`}
+            {s.email} · {plural(s.songCount, 'song')}
           </Small>
         </Card>
       ))}

@@ -3,6 +3,7 @@
 import { WaveFile } from 'wavefile';
 import { stretchOffline, type StereoBuffer } from './stretch';
 import type { Passage } from '@/audio/practice/passage';
+import { formatBpm, tenth } from '@/shared/format';
 
 /** The passage (or everything) at `tempo` × the recording's own speed. */
 export function renderAtTempo(audio: StereoBuffer, sampleRate: number, tempo: number, passage: Passage | null = null): StereoBuffer {
@@ -32,6 +33,6 @@ export function encodeWav(audio: StereoBuffer, sampleRate: number): Uint8Array {
 /** The download's name: the title, the tempo and, for a passage, which one. */
 export function exportFileName(title: string, bpm: number, passageLabel: string | null): string {
   const safe = title.replace(/[\\/:*?"<>|]+/g, ' ').replace(/\s+/g, ' ').trim() || 'recording';
-  const tempo = `${Math.round(bpm * 10) / 10} BPM`;
+  const tempo = `${formatBpm(tenth(bpm))} BPM`;
   return `${safe} - ${passageLabel ? `${passageLabel} - ` : ''}${tempo}.wav`;
 }

@@ -2,7 +2,7 @@
 // LivePlayback block by block, and reports back. The AudioWorklet (audio/playback/worklet/stretch-processor.ts) and the
 // ScriptProcessor fallback (client/player.ts) both run this one class.
 //
-// Messages in: load (right is null for a mono recording), start, speed, stop, reset-stats. Messages out:
+// Messages in: load (right is null for a mono recording), start, speed, stop, reset-stats, unload. Messages out:
 // segment (a tempo change took effect), pass (the loop came round), stats (time spent rendering ÷ audio time
 // rendered, every 64 blocks). Each start is a numbered run, and what the engine reports carries the run's
 // number, so a report that crosses a restart in flight is recognised as stale.
@@ -13,7 +13,9 @@ export type ToEngine =
   | { type: 'start'; options: StartOptions; run: number }
   | { type: 'speed'; speed: number; requestedAt: number }
   | { type: 'stop' }
-  | { type: 'reset-stats' };
+  | { type: 'reset-stats' }
+  /** The player is gone: drop the samples (the audio context outlives it, being the page's). */
+  | { type: 'unload' };
 
 export interface RenderStats {
   busyMs: number;
@@ -34,6 +36,8 @@ export class PlaybackHost {
   private playback: LivePlayback | null = null;
   private run = 0;
   private stats = noStats();
+  /** Set by unload: nothing will be played again, and the worklet's processor may end. */
+  unloaded = false;
 
   constructor(
     private readonly sampleRate: number,
@@ -52,6 +56,10 @@ export class PlaybackHost {
     } else if (m.type === 'speed') this.playback?.requestSpeed(m.speed, m.requestedAt);
     else if (m.type === 'stop') this.playback?.stop();
     else if (m.type === 'reset-stats') this.stats = noStats();
+    else if (m.type === 'unload') {
+      this.playback = null;
+      this.unloaded = true;
+    }
   }
 
   /** Fills one block heard from context time `blockAt` (silence when stopped). */

@@ -1,5 +1,6 @@
 // Passages of a recording on its beat grid: bar numbers, skipping by a bar, a loop region snapped to beats or
 // bars, and the beats a looping playback passes over (the loop repeats the region end to start).
+import { formatClock } from '@/shared/format';
 
 export interface Grid {
   beats: number[];
@@ -91,8 +92,7 @@ export function describePassage(p: Passage, downbeats: number[]): string {
   const endIdx = downbeats.findIndex((d) => Math.abs(d - p.end) < 0.02);
   const lastBar = endIdx >= 0 ? endIdx : first >= 0 && p.end > downbeats[downbeats.length - 1]! ? downbeats.length : -1;
   if (first >= 0 && lastBar > first) return lastBar - first === 1 ? `bar ${first + 1}` : `bars ${first + 1}–${lastBar}`;
-  const clock = (s: number) => `${Math.floor(s / 60)}:${(s % 60).toFixed(1).padStart(4, '0')}`;
-  return `${clock(p.start)}–${clock(p.end)}`;
+  return `${formatClock(p.start)}–${formatClock(p.end)}`;
 }
 
 /**

@@ -1,5 +1,6 @@
 // Step-up practice on a looped passage: start slow, play the passage a set number of clean times at each
 // tempo, then raise the tempo by a step, until the goal is reached. Pure state; the player feeds it passes.
+import { tenth } from '@/shared/format';
 
 export interface StepUpPlan {
   startBpm: number;
@@ -52,7 +53,7 @@ export function passFinished(s: StepUpState, clean: boolean): StepUpState {
   if (cleanAtTempo < s.plan.repsPerStep) return { ...s, repetitions, cleanAtTempo };
   const reachedBpm = s.bpm;
   if (s.bpm >= s.plan.goalBpm - 1e-9) return { ...s, repetitions, cleanAtTempo, reachedBpm, done: true };
-  const bpm = Math.min(s.plan.goalBpm, Math.round((s.bpm + s.plan.stepBpm) * 10) / 10);
+  const bpm = Math.min(s.plan.goalBpm, tenth(s.bpm + s.plan.stepBpm));
   return { ...s, repetitions, cleanAtTempo: 0, reachedBpm, bpm };
 }
 

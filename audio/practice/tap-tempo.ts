@@ -1,5 +1,6 @@
 // Tap tempo: the tempo of a list of tap times (seconds), robust to a stray tap (an extra one between two
 // beats, or one pressed far off time), which is simply left out.
+import { tenth } from '@/shared/format';
 
 export interface TapTempo {
   bpm: number;
@@ -42,5 +43,5 @@ export function tapTempo(taps: number[]): TapTempo | null {
   const num = points.reduce((s, p) => s + (p.beat - mb) * (p.time - mt), 0);
   const den = points.reduce((s, p) => s + (p.beat - mb) ** 2, 0);
   if (den === 0 || num <= 0) return null;
-  return { bpm: Math.round((60 / (num / den)) * 10) / 10, used: points.length, dropped: t.length - points.length };
+  return { bpm: tenth(60 / (num / den)), used: points.length, dropped: t.length - points.length };
 }

@@ -4,7 +4,7 @@ import React, { useState } from 'react';
 import { Text, View } from 'react-native';
 import { Button, Chip, Field, Notice, Row, Small } from '@/components/ui';
 import { colors, radius, space, type } from '@/components/theme';
-import { formatBpm } from '@/components/TempoLabel';
+import { formatBpm, tenth } from '@/shared/format';
 import { addCandidate, changeCandidate, chooseTempo, removeCandidate, useCandidates } from '@/client/hooks';
 import { useAction } from '@/client/useAction';
 import type { Candidate, Song } from '@/shared/schemas';
@@ -12,7 +12,7 @@ import type { Candidate, Song } from '@/shared/schemas';
 export function CandidateTempos({ song, bpm, canEdit, wide, onHop }: { song: Song; bpm: number; canEdit: boolean; wide: boolean; onHop: (bpm: number) => void }) {
   const { candidates } = useCandidates(song.id);
   const add = useAction(async () => {
-    await addCandidate(song.id, Math.round(bpm * 10) / 10);
+    await addCandidate(song.id, tenth(bpm));
   });
   const list = candidates ?? [];
   const already = list.some((c) => Math.abs(c.bpm - bpm) < 0.05);
@@ -29,7 +29,7 @@ export function CandidateTempos({ song, bpm, canEdit, wide, onHop }: { song: Son
             onPress={() => onHop(c.bpm)}
           />
         ))}
-        {canEdit ? <Button label={`Add ${formatBpm(Math.round(bpm * 10) / 10)} as a candidate`} kind="secondary" busy={add.busy} disabled={already} onPress={add.run} testID="add-candidate" /> : null}
+        {canEdit ? <Button label={`Add ${formatBpm(tenth(bpm))} as a candidate`} kind="secondary" busy={add.busy} disabled={already} onPress={add.run} testID="add-candidate" /> : null}
       </Row>
       {add.error ? <Notice tone="error">{add.error}</Notice> : null}
       {list.length === 0 ? <Small>Try a few tempos, add the ones worth comparing, then hop between them while the music plays.</Small> : null}

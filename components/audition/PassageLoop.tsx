@@ -4,7 +4,7 @@ import React, { useState } from 'react';
 import { Text, View } from 'react-native';
 import { Button, Chip, Field, Notice, Row, Small } from '@/components/ui';
 import { colors, space, type } from '@/components/theme';
-import { formatBpm } from '@/components/TempoLabel';
+import { formatBpm, plural } from '@/shared/format';
 import { stepUpTempos, validatePlan, type StepUpPlan, type StepUpState } from '@/audio/practice/step-up';
 import type { Passage } from '@/audio/practice/passage';
 
@@ -113,7 +113,7 @@ export function PassageLoop({
             ))}
           </Text>
           <Small>
-            {stepUp.repetitions} repetitions so far · goal {formatBpm(stepUp.plan.goalBpm)} BPM. Every pass counts as clean unless you
+            {plural(stepUp.repetitions, 'repetition')} so far · goal {formatBpm(stepUp.plan.goalBpm)} BPM. Every pass counts as clean unless you
             press “That one was not clean” while it plays.
           </Small>
           {!stepUp.done ? (

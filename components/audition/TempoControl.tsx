@@ -4,11 +4,10 @@ import React, { useState } from 'react';
 import { Text, View } from 'react-native';
 import { Button, Chip, Field, Row, Small } from '@/components/ui';
 import { colors, space, type } from '@/components/theme';
-import { formatBpm } from '@/components/TempoLabel';
+import { formatBpm, tenth } from '@/shared/format';
 import { nextMarkDown, nextMarkUp } from '@/audio/practice/metronome';
 import type { Song } from '@/shared/schemas';
 
-const tenth = (x: number) => Math.round(x * 10) / 10;
 
 export function TempoControl({ bpm, originalBpm, song, onChange }: { bpm: number; originalBpm: number; song: Song | undefined; onChange: (bpm: number) => void }) {
   const [typed, setTyped] = useState('');

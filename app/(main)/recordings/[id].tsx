@@ -8,13 +8,10 @@ import { Waveform } from '@/components/Waveform';
 import { ProgressBar } from '@/components/ProgressBar';
 import { TempoCorrection } from '@/components/TempoCorrection';
 import { AuditionPanel } from '@/components/AuditionPanel';
-import { apiBase, apiFetch } from '@/client/api';
-import { formatBpm } from '@/components/TempoLabel';
-import { formatDuration } from '@/components/RecordingRow';
+import { apiBase } from '@/client/api';
+import { formatBpm, formatDuration, plural, tenth } from '@/shared/format';
 import { colors, space, type } from '@/components/theme';
-import { correctRecording, useMe, usePeaks, useRecording, useSong } from '@/client/hooks';
-
-import { mutate } from 'swr';
+import { correctRecording, retryAnalysis, useMe, usePeaks, useRecording, useSong } from '@/client/hooks';
 
 export default function RecordingScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
@@ -48,10 +45,7 @@ export default function RecordingScreen() {
       {r.status === 'failed' ? (
         <Card>
           <Notice tone="error">{r.error ?? 'The analysis failed.'}</Notice>
-          <Button label="Try the analysis again" onPress={async () => {
-            await apiFetch(`/api/recordings/${r.id}/retry`, { method: 'POST', body: {} });
-            await mutate(`/api/recordings/${r.id}`);
-          }} />
+          <Button label="Try the analysis again" onPress={() => retryAnalysis(r.id)} />
         </Card>
       ) : null}
 
@@ -60,11 +54,11 @@ export default function RecordingScreen() {
           <Card testID="tempo-result">
             <Small>{r.correctedBpm !== null ? 'Tempo (your correction)' : 'Detected tempo'}</Small>
             <Text style={[type.tempo, { color: colors.amber }]} testID="detected-bpm">
-              {bpm === null ? 'No steady beat' : `${formatBpm(Math.round(bpm * 10) / 10)}`}
+              {bpm === null ? 'No steady beat' : formatBpm(tenth(bpm))}
               {bpm === null ? null : <Text style={[type.h3, { color: colors.muted }]}> BPM</Text>}
             </Text>
             <Small>
-              Confidence {Math.round(a.confidence * 100)} % · {a.meter ?? 'meter unclear'} · {a.beatCount} beats
+              Confidence {Math.round(a.confidence * 100)} % · {a.meter ?? 'meter unclear'} · {plural(a.beatCount, 'beat')}
               {a.startBpm !== null && a.endBpm !== null ? ` · starts ${formatBpm(Math.round(a.startBpm))}, ends ${formatBpm(Math.round(a.endBpm))}` : ''}
             </Small>
             {a.confidence < 0.4 ? <Notice tone="caution">Tactus is not sure about this one: check it by tapping along.</Notice> : null}

@@ -26,7 +26,8 @@ class StretchProcessor extends AudioWorkletProcessor {
   process(_inputs: Float32Array[][], outputs: Float32Array[][]): boolean {
     const out = outputs[0]!;
     this.host.render(out[0]!, out[1] ?? out[0]!, currentTime);
-    return true;
+    // Keep running until the player unloads (the page's audio context outlives every player on it).
+    return !this.host.unloaded;
   }
 }
 

@@ -1,0 +1,102 @@
+// The audition player's life on the recording screen: an AuditionPlayer (client/player.ts) made and loaded for
+// the recording, disposed with the screen, and the state the screen shows of it: loaded or failed, playing,
+// tempo, loop, count-in, click and levels. Every change goes to the player and to that state together.
+import { useCallback, useEffect, useRef, useState } from 'react';
+import { Platform } from 'react-native';
+import { AuditionPlayer, MAX_SPEED, MIN_SPEED, type PlayerGrid } from '@/client/player';
+import { DEFAULT_CLICK_GAIN } from '@/client/click-sound';
+import { skipBar, type Grid, type Passage } from '@/audio/practice/passage';
+import { tenth } from '@/shared/format';
+
+export type AuditionPlayerState = ReturnType<typeof useAuditionPlayer>;
+
+export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
+  const { originalBpm } = grid;
+  const player = useRef<AuditionPlayer | null>(null);
+  /** Called at each pass through the loop (the step-up run listens here). */
+  const onLoopPassRef = useRef<(() => void) | null>(null);
+  const [ready, setReady] = useState(false);
+  const [failure, setFailure] = useState<string | null>(null);
+  const [playing, setPlaying] = useState(false);
+  const [bpm, setBpmState] = useState(tenth(originalBpm));
+  const [loop, setLoopState] = useState<Passage | null>(null);
+  const [countInOn, setCountInState] = useState(false);
+  const [clickOn, setClickOnState] = useState(true);
+  const [clickLevel, setClickLevelState] = useState(DEFAULT_CLICK_GAIN);
+  const [musicLevel, setMusicLevelState] = useState(1);
+
+  // Web Audio exists only in the browser, and only after the first render (static rendering has no window).
+  useEffect(() => {
+    if (Platform.OS !== 'web') return;
+    const p = new AuditionPlayer(audioUrl, { beats: grid.beats, downbeats: grid.downbeats, originalBpm, meter: grid.meter });
+    player.current = p;
+    p.load().then(() => setReady(true), (e: Error) => setFailure(e.message));
+    p.onEnded = () => setPlaying(false);
+    p.onLoopPass = () => onLoopPassRef.current?.();
+    // The player benchmark (fixtures/bench-player.ts) reads the player's figures from here.
+    (window as unknown as { tactusAudition?: AuditionPlayer }).tactusAudition = p;
+    return () => p.dispose();
+    // The grid is read when the player is made; a correction reloads it with the new tempo.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [audioUrl, originalBpm]);
+
+  const getPosition = useCallback(() => player.current?.position() ?? 0, []);
+
+  /** Playback tempo in BPM, within the player's range, to a tenth. */
+  const setBpm = useCallback((next: number) => {
+    const v = tenth(Math.max(originalBpm * MIN_SPEED, Math.min(originalBpm * MAX_SPEED, next)));
+    setBpmState(v);
+    player.current?.setBpm(v);
+  }, [originalBpm]);
+
+  const play = useCallback(() => {
+    const p = player.current;
+    if (!p || p.playing) return;
+    void p.play();
+    setPlaying(true);
+  }, []);
+  const pause = useCallback(() => {
+    player.current?.pause();
+    setPlaying(false);
+  }, []);
+  const togglePlay = useCallback(() => {
+    const p = player.current;
+    if (!p || !ready) return;
+    if (p.playing) pause();
+    else play();
+  }, [ready, play, pause]);
+
+  // Seeking outside the loop ends it (the player drops it; the screen follows).
+  const seek = useCallback((sec: number) => {
+    player.current?.seek(sec);
+    if (player.current && !player.current.loopRegion) setLoopState(null);
+  }, []);
+  const skip = (dir: 1 | -1) => seek(skipBar(getPosition(), grid, dir));
+
+  const setLoop = useCallback((p: Passage | null) => {
+    setLoopState(p);
+    player.current?.setLoop(p);
+  }, []);
+
+  const setCountIn = (on: boolean) => {
+    if (player.current) player.current.countInOn = on;
+    setCountInState(on);
+  };
+  const setClickOn = (on: boolean) => {
+    if (player.current) player.current.clickOn = on;
+    setClickOnState(on);
+  };
+  const setClickLevel = (v: number) => {
+    player.current?.setClickVolume(v);
+    setClickLevelState(v);
+  };
+  const setMusicLevel = (v: number) => {
+    player.current?.setMusicVolume(v);
+    setMusicLevelState(v);
+  };
+
+  return {
+    player, onLoopPassRef, ready, failure, setFailure, playing, play, pause, togglePlay, getPosition, seek, skip,
+    bpm, setBpm, loop, setLoop, countInOn, setCountIn, clickOn, setClickOn, clickLevel, setClickLevel, musicLevel, setMusicLevel,
+  };
+}

@@ -1,0 +1,24 @@
+// How numbers read on screen, in one place for the client and the server alike: tempos, clock times, counts.
+
+/** Rounded to one decimal place: tempos are set and shown to a tenth of a BPM, no finer. */
+export const tenth = (x: number) => Math.round(x * 10) / 10;
+
+/** Whole tempos without decimals, others to one decimal place ("124", "92.5"). */
+export const formatBpm = (bpm: number) => (Number.isInteger(bpm) ? String(bpm) : bpm.toFixed(1));
+
+/** A length in whole seconds as m:ss ("3:07"), as a recording's duration is listed. */
+export function formatDuration(sec: number): string {
+  // Rounded before splitting, so 59.6 s reads 1:00 rather than 0:60.
+  const whole = Math.round(sec);
+  return `${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, '0')}`;
+}
+
+/** A place in a recording to a tenth of a second as m:ss.s ("1:02.5"), as the playhead and passages read. */
+export function formatClock(sec: number): string {
+  // Rounded before splitting, so 59.96 s reads 1:00.0 rather than 0:60.0.
+  const tenths = Math.round(sec * 10);
+  return `${Math.floor(tenths / 600)}:${((tenths % 600) / 10).toFixed(1).padStart(4, '0')}`;
+}
+
+/** A count with its noun: "1 repetition", "3 repetitions" (`many` for nouns whose plural is not noun + s). */
+export const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;

@@ -1,0 +1,68 @@
+// How numbers read on screen. Worked examples by hand; the notations are common practice: durations as
+// minutes:seconds (m:ss, as players and track lists show them), tempos in BPM to a tenth at most, and English
+// count nouns singular for exactly one ("1 repetition"), plural otherwise, zero included ("0 repetitions").
+import { formatBpm, formatClock, formatDuration, plural, tenth } from '@/shared/format';
+
+describe('tenth', () => {
+  test('rounds to one decimal place', () => {
+    // 124 × 0.75 = 93 exactly; 123.456 → 123.5; 0.7 × 131 = 91.7 (91.69999… in binary floating point).
+    expect(tenth(124 * 0.75)).toBe(93);
+    expect(tenth(123.456)).toBe(123.5);
+    expect(tenth(0.7 * 131)).toBe(91.7);
+    expect(tenth(99.94)).toBe(99.9);
+  });
+});
+
+describe('formatBpm', () => {
+  test('whole tempos without decimals, others to one decimal place', () => {
+    expect(formatBpm(124)).toBe('124');
+    expect(formatBpm(92.5)).toBe('92.5');
+    expect(formatBpm(tenth(123.456))).toBe('123.5');
+  });
+});
+
+describe('formatDuration', () => {
+  test('whole seconds as m:ss', () => {
+    expect(formatDuration(0)).toBe('0:00');
+    expect(formatDuration(7)).toBe('0:07');
+    // 187 s = 3 × 60 + 7.
+    expect(formatDuration(187)).toBe('3:07');
+    // 12.4 s rounds to 12; 12.5 rounds up to 13.
+    expect(formatDuration(12.4)).toBe('0:12');
+    expect(formatDuration(12.5)).toBe('0:13');
+  });
+  test('a length just short of a minute reads as the next minute, never as 0:60', () => {
+    expect(formatDuration(59.6)).toBe('1:00');
+    // 1199.7 s rounds to 1200 s = 20:00 (the longest upload allowed is 20 minutes).
+    expect(formatDuration(1199.7)).toBe('20:00');
+  });
+});
+
+describe('formatClock', () => {
+  test('a place to a tenth of a second as m:ss.s', () => {
+    expect(formatClock(0)).toBe('0:00.0');
+    expect(formatClock(2.5)).toBe('0:02.5');
+    // 62.5 s = 1 × 60 + 2.5.
+    expect(formatClock(62.5)).toBe('1:02.5');
+    expect(formatClock(3.04)).toBe('0:03.0');
+    expect(formatClock(3.06)).toBe('0:03.1');
+  });
+  test('just short of a minute reads as the next minute, never as 0:60.0', () => {
+    expect(formatClock(59.96)).toBe('1:00.0');
+    expect(formatClock(59.94)).toBe('0:59.9');
+  });
+});
+
+describe('plural', () => {
+  test('singular for exactly one, plural otherwise', () => {
+    expect(plural(1, 'repetition')).toBe('1 repetition');
+    expect(plural(3, 'repetition')).toBe('3 repetitions');
+    expect(plural(0, 'repetition')).toBe('0 repetitions');
+    expect(plural(1, 'beat')).toBe('1 beat');
+    expect(plural(2, 'take')).toBe('2 takes');
+  });
+  test('an irregular plural is given', () => {
+    expect(plural(2, 'child', 'children')).toBe('2 children');
+    expect(plural(1, 'child', 'children')).toBe('1 child');
+  });
+});
