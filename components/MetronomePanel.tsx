@@ -21,10 +21,12 @@ export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { ini
   const [meter, setMeter] = useState(initialMeter);
   const [running, setRunning] = useState(false);
   const [level, setLevel] = useState(DEFAULT_CLICK_GAIN);
+  // The metronome is made once; later changes of tempo and meter go to it through set().
+  const initial = useRef({ bpm: initialBpm, meter: initialMeter });
   useEffect(() => {
     if (Platform.OS !== 'web') return;
     const m = new Metronome();
-    m.set(initialBpm, initialMeter);
+    m.set(initial.current.bpm, initial.current.meter);
     clock.current = m;
     // The browser test counts the clicks from here.
     (window as unknown as { tactusMetronome?: Metronome }).tactusMetronome = m;
@@ -83,7 +85,7 @@ export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { ini
 
 /** One light per beat of the bar; the sounding beat is lit, the downbeat in amber. */
 function BeatLights({ clock, perBar }: { clock: React.RefObject<Metronome | null>; perBar: number }) {
-  const now = usePolled(React.useCallback(() => clock.current?.beatNow() ?? null, [clock]), 30);
+  const now = usePolled(() => clock.current?.beatNow() ?? null, 30);
   return (
     <View style={{ flexDirection: 'row', gap: space.sm }} accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
       {Array.from({ length: perBar }, (_, i) => (

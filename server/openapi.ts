@@ -45,7 +45,6 @@ import {
   UserSummarySchema,
 } from '@/shared/schemas';
 
-// eslint-disable-next-line @typescript-eslint/no-require-imports
 const { version } = require('../package.json') as { version: string };
 
 /** better-auth's cookie (its default prefix; `__Secure-` is put in front of it when the site is served over https). */

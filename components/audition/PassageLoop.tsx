@@ -127,7 +127,7 @@ export function PassageLoop({
         </View>
       ) : null}
       {lastLogged ? <Notice tone="success">{lastLogged}</Notice> : null}
-      {!canLog && stepUp ? <Small>Only the song's owner can write to its practice log; this run is not saved.</Small> : null}
+      {!canLog && stepUp ? <Small>Only the song’s owner can write to its practice log; this run is not saved.</Small> : null}
     </View>
   );
 }

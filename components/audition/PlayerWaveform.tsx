@@ -89,12 +89,17 @@ export function PlayerWaveform({
   );
 }
 
+/** A value read from outside React (the audio clock) every `everyMs`; the latest `read` is always used. */
 export function usePolled<T>(read: () => T, everyMs = 50): T {
   const [value, setValue] = useState(read);
+  const latest = useRef(read);
   useEffect(() => {
-    const id = setInterval(() => setValue(read()), everyMs);
+    latest.current = read;
+  });
+  useEffect(() => {
+    const id = setInterval(() => setValue(latest.current()), everyMs);
     return () => clearInterval(id);
-  }, [read, everyMs]);
+  }, [everyMs]);
   return value;
 }
 
