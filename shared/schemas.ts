@@ -141,6 +141,10 @@ export const CaughtMailListSchema = z.object({ mails: z.array(CaughtMailSchema) 
 
 // ── Recordings and their analysis ────────────────────────────────────────────────────────────────────
 
+/** The metrical level a player hears as the beat, against the one the engine found. */
+export const BeatLevelSchema = z.enum(['half', 'as-found', 'double']);
+export type BeatLevel = z.infer<typeof BeatLevelSchema>;
+
 export const RecordingKindSchema = z.enum(['reference', 'take'], { message: 'choose reference (someone else’s recording) or take (your own)' });
 export type RecordingKind = z.infer<typeof RecordingKindSchema>;
 
@@ -155,6 +159,10 @@ export const RecordingPatchSchema = z
     label: z.string().trim().max(200).nullable().optional(),
     correctedBpm: BpmSchema.nullable().optional(),
     beatOffsetSec: z.number().min(0, 'must not be negative').max(3600).nullable().optional(),
+    beatLevel: BeatLevelSchema.optional(),
+    barOneSec: z.number().min(0, 'must not be negative').max(24 * 3600).nullable().optional(),
+    /** Half a second either way is far more than any grid is off by; more is a mistake. */
+    nudgeMs: z.number().int('enter whole milliseconds').min(-500, 'must be at least −500 ms').max(500, 'must be at most 500 ms').optional(),
   })
   .strict();
 export type RecordingPatch = z.infer<typeof RecordingPatchSchema>;
@@ -177,6 +185,9 @@ export const RecordingSchema = z.object({
   originalBpm: z.number().nullable(),
   correctedBpm: z.number().nullable(),
   beatOffsetSec: z.number().nullable(),
+  beatLevel: BeatLevelSchema,
+  barOneSec: z.number().nullable(),
+  nudgeMs: z.number(),
   analysis: AnalysisSchema.nullable(),
   createdAt: z.string(),
 });

@@ -1,5 +1,6 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
 import { sequelize } from '@/server/db';
+import type { BeatLevel } from '@/shared/schemas';
 import { decimalBpm } from './decimal';
 
 export type RecordingKind = 'reference' | 'take';
@@ -24,6 +25,12 @@ export class Recording extends Model<InferAttributes<Recording>, InferCreationAt
   declare error: CreationOptional<string | null>;
   declare correctedBpm: CreationOptional<number | null>;
   declare beatOffsetSec: CreationOptional<number | null>;
+  /** The metrical level the player feels: half or double the tempo the engine found, the grid moving with it. */
+  declare beatLevel: CreationOptional<BeatLevel>;
+  /** A beat the player called "one": bars are counted from it. Null: the engine's downbeats. */
+  declare barOneSec: CreationOptional<number | null>;
+  /** The whole grid moved earlier (negative) or later, in milliseconds. */
+  declare nudgeMs: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -45,6 +52,9 @@ Recording.init(
     error: { type: DataTypes.TEXT, allowNull: true },
     correctedBpm: decimalBpm('correctedBpm'),
     beatOffsetSec: { type: DataTypes.DOUBLE, allowNull: true },
+    beatLevel: { type: DataTypes.ENUM('half', 'as-found', 'double'), allowNull: false, defaultValue: 'as-found' },
+    barOneSec: { type: DataTypes.DOUBLE, allowNull: true },
+    nudgeMs: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),
   },

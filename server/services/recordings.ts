@@ -118,6 +118,9 @@ export async function toRecordingDto(r: Recording, analysis?: Analysis | null): 
     originalBpm: r.correctedBpm ?? result?.bpm ?? null,
     correctedBpm: r.correctedBpm,
     beatOffsetSec: r.beatOffsetSec,
+    beatLevel: r.beatLevel,
+    barOneSec: r.barOneSec,
+    nudgeMs: r.nudgeMs,
     analysis: result,
     createdAt: r.createdAt.toISOString(),
   };
@@ -153,6 +156,9 @@ export async function patchRecording(user: Me, id: string, patch: RecordingPatch
   const r = await recordingFor(user, 'write', id);
   if (patch.beatOffsetSec != null && patch.beatOffsetSec > r.durationSec) {
     throw new HttpError(400, 'invalid_body', 'beatOffsetSec: must lie within the recording', 'beatOffsetSec');
+  }
+  if (patch.barOneSec != null && patch.barOneSec > r.durationSec) {
+    throw new HttpError(400, 'invalid_body', 'barOneSec: must lie within the recording', 'barOneSec');
   }
   return toRecordingDto(await r.update(patch as Partial<Recording>));
 }

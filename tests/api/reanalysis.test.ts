@@ -33,8 +33,9 @@ test('each stored analysis records the engine version that made it', async () =>
 });
 
 test('an analysis made by an older engine is re-analysed in the background and the corrections survive', async () => {
-  // The player's corrections: a tempo and where the first beat falls.
-  await player.agent.patch(`/api/recordings/${recordingId}`).send({ correctedBpm: 75, beatOffsetSec: 0.12 }).expect(200);
+  // The player's corrections: a tempo, where the first beat falls, the level they feel, which beat is one, a nudge.
+  const corrections = { correctedBpm: 75, beatOffsetSec: 0.12, beatLevel: 'half', barOneSec: 0.52, nudgeMs: -12 };
+  await player.agent.patch(`/api/recordings/${recordingId}`).send(corrections).expect(200);
   // Pretend an older engine made the stored result, marked so that its replacement can be seen.
   const [stored] = await query<{ result: string }>('tactus_test', 'SELECT result FROM analyses WHERE recordingId = ?', [recordingId]);
   const old = { ...JSON.parse(stored!.result), confidence: 0.001, analysisMs: -1 };
@@ -58,6 +59,7 @@ test('an analysis made by an older engine is re-analysed in the background and t
   expect(r.correctedBpm).toBe(75);
   expect(r.originalBpm).toBe(75);
   expect(r.beatOffsetSec).toBeCloseTo(0.12, 6);
+  expect(r).toMatchObject({ beatLevel: 'half', barOneSec: 0.52, nudgeMs: -12 });
   const [row] = await query<{ engineVersion: number }>('tactus_test', 'SELECT engineVersion FROM analyses WHERE recordingId = ?', [recordingId]);
   expect(row!.engineVersion).toBe(ENGINE_VERSION);
 });
