@@ -14,8 +14,17 @@ async function call(path: string, body: unknown) {
   }
 }
 
-export const signUp = (name: string, email: string, password: string) =>
-  call('/sign-up/email', { name, email, password, callbackURL: '/sign-in?confirmed=1' });
+/** Only a path of this app (never another site) is followed after signing in. */
+export const safeNext = (next: string | undefined | null) => (next && next.startsWith('/') && !next.startsWith('//') ? next : null);
+
+/** `next`: where to go after the e-mail is confirmed and the person signs in (an invitation, say). */
+export const signUp = (name: string, email: string, password: string, next?: string | null) =>
+  call('/sign-up/email', {
+    name,
+    email,
+    password,
+    callbackURL: `/sign-in?confirmed=1${safeNext(next) ? `&next=${encodeURIComponent(next!)}` : ''}`,
+  });
 export const signIn = (email: string, password: string) =>
   call('/sign-in/email', { email, password, callbackURL: '/sign-in?confirmed=1' });
 export const signOut = () => call('/sign-out', {});

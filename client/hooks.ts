@@ -1,7 +1,7 @@
 // SWR hooks: how screens read server data. Mutations revalidate the keys they change.
 import useSWR, { mutate } from 'swr';
 import { ApiRequestError, apiFetch, fetcher } from './api';
-import type { Candidate, Me, PeaksDto, PracticeEntryDto, PracticeInput, Recording, RecordingPatch, Song, SongInput, Student, UserSummary, Role } from '@/shared/schemas';
+import type { Candidate, Invitation, Me, PeaksDto, PracticeEntryDto, PracticeInput, ReceivedInvitation, Recording, RecordingPatch, Role, Song, SongInput, Student, Teacher, UserSummary } from '@/shared/schemas';
 
 export function useMe() {
   const { data, error, isLoading } = useSWR<Me>('/api/me', fetcher, { shouldRetryOnError: false });
@@ -25,9 +25,54 @@ export function useStudents(enabled: boolean) {
   return { students: data?.students, error, isLoading };
 }
 
-export async function addStudent(email: string) {
-  await apiFetch('/api/students', { body: { email } });
+/** A teacher ends the link with a student. */
+export async function removeStudent(studentId: string) {
+  await apiFetch(`/api/students/${studentId}`, { method: 'DELETE' });
   await mutate('/api/students');
+}
+
+// ── Invitations and teachers ─────────────────────────────────────────────────────────────────────────
+
+export function useSentInvitations(enabled: boolean) {
+  const { data } = useSWR<{ invitations: Invitation[] }>(enabled ? '/api/invitations' : null, fetcher);
+  return { invitations: data?.invitations };
+}
+
+export async function inviteStudent(email: string) {
+  await apiFetch('/api/invitations', { body: { email } });
+  await mutate('/api/invitations');
+}
+
+export async function withdrawInvitation(id: string) {
+  await apiFetch(`/api/invitations/${id}`, { method: 'DELETE' });
+  await mutate('/api/invitations');
+}
+
+export function useReceivedInvitations() {
+  const { data } = useSWR<{ invitations: ReceivedInvitation[] }>('/api/invitations/received', fetcher);
+  return { invitations: data?.invitations };
+}
+
+/** The invitation a mailed link points at; works signed in or not. */
+export function useInvitationByToken(token: string | undefined) {
+  const { data, error, isLoading } = useSWR<ReceivedInvitation>(token ? `/api/invitations/token/${token}` : null, fetcher, { shouldRetryOnError: false });
+  return { invitation: data, error, isLoading };
+}
+
+export async function answerInvitation(id: string, answer: 'accept' | 'decline', token?: string) {
+  await apiFetch(`/api/invitations/${id}/${answer}`, { method: 'POST', body: {} });
+  await Promise.all([mutate('/api/invitations/received'), mutate('/api/teachers'), token ? mutate(`/api/invitations/token/${token}`) : null]);
+}
+
+export function useTeachers() {
+  const { data } = useSWR<{ teachers: Teacher[] }>('/api/teachers', fetcher);
+  return { teachers: data?.teachers };
+}
+
+/** A student ends the link with a teacher: the teacher loses access at once. */
+export async function leaveTeacher(teacherId: string) {
+  await apiFetch(`/api/teachers/${teacherId}`, { method: 'DELETE' });
+  await mutate('/api/teachers');
 }
 
 export function useUsers(enabled: boolean) {

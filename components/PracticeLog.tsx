@@ -3,7 +3,7 @@ import React from 'react';
 import { Text, View } from 'react-native';
 import { Small } from './ui';
 import { colors, space, type } from './theme';
-import { formatBpm, plural } from '@/shared/format';
+import { formatBpm, formatDate, plural } from '@/shared/format';
 import { usePractice } from '@/client/hooks';
 
 export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: number }) {
@@ -18,7 +18,7 @@ export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: num
             {e.passage ?? 'Whole piece'}: {formatBpm(e.startBpm)} → {formatBpm(e.reachedBpm)} BPM
           </Text>
           <Small>
-            {plural(e.repetitions, 'repetition')} · {e.minutes} min{e.clean ? ' · reached the goal' : ''} · {new Date(e.createdAt).toLocaleDateString()}
+            {plural(e.repetitions, 'repetition')} · {e.minutes} min{e.clean ? ' · reached the goal' : ''} · {formatDate(e.createdAt)}
           </Small>
         </View>
       ))}

@@ -22,3 +22,11 @@ export function formatClock(sec: number): string {
 
 /** A count with its noun: "1 repetition", "3 repetitions" (`many` for nouns whose plural is not noun + s). */
 export const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
+
+/** A date in the reader's own locale, month in words so it is never ambiguous ("2 Dec 2026", "Dec 2, 2026"). */
+export const formatDate = (iso: string | Date, locale?: string) =>
+  new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(iso));
+
+/** A date and time in the reader's own locale. */
+export const formatDateTime = (iso: string | Date, locale?: string) =>
+  new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric', hour: 'numeric', minute: '2-digit' }).format(new Date(iso));

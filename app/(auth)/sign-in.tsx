@@ -1,22 +1,24 @@
 import React, { useState } from 'react';
-import { Link, useLocalSearchParams, useRouter } from 'expo-router';
+import { Link, useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { View } from 'react-native';
 import { Body, Button, Card, Field, Heading, Notice } from '@/components/ui';
 import { space } from '@/components/theme';
-import { signIn } from '@/client/auth';
+import { safeNext, signIn } from '@/client/auth';
 import { clearCache } from '@/client/hooks';
 import { useAction } from '@/client/useAction';
 import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function SignIn() {
   const router = useRouter();
-  const params = useLocalSearchParams<{ confirmed?: string; reset?: string; error?: string }>();
+  const params = useLocalSearchParams<{ confirmed?: string; reset?: string; error?: string; next?: string }>();
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
   const { run: submit, busy, error } = useAction(async () => {
     await signIn(email.trim(), password);
     await clearCache();
-    router.replace('/');
+    const next = safeNext(params.next);
+    if (next) router.replace(next as Href);
+    else router.replace('/');
   });
 
   return (
@@ -33,7 +35,7 @@ export default function SignIn() {
         <Button label="Sign in" onPress={submit} busy={busy} testID="sign-in" />
       </View>
       <Body muted>
-        New here? <Link href="/sign-up">Create an account</Link> · <Link href="/forgot-password">Forgot your password?</Link>
+        New here? <Link href={{ pathname: '/sign-up', params: params.next ? { next: params.next } : {} }}>Create an account</Link> · <Link href="/forgot-password">Forgot your password?</Link>
       </Body>
     </Card>
   );

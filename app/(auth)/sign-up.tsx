@@ -1,5 +1,5 @@
 import React, { useState } from 'react';
-import { Link, useRouter } from 'expo-router';
+import { Link, useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { Body, Button, Card, Field, Heading, Notice } from '@/components/ui';
 import { space } from '@/components/theme';
@@ -9,13 +9,14 @@ import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function SignUp() {
   const router = useRouter();
+  const { next } = useLocalSearchParams<{ next?: string }>();
   const [name, setName] = useState('');
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
   const { run: submit, busy, error } = useAction(async () => {
     if (!name.trim()) throw new Error('Tell us the name your teacher and bandmates know you by.');
     if (password.length < 8) throw new Error('Use at least 8 characters for your password.');
-    await signUp(name.trim(), email.trim(), password);
+    await signUp(name.trim(), email.trim(), password, next);
     router.replace({ pathname: '/check-email', params: { email: email.trim() } });
   });
 
@@ -40,7 +41,7 @@ export default function SignUp() {
         <Button label="Create account" onPress={submit} busy={busy} testID="sign-up" />
       </View>
       <Body muted>
-        Already have one? <Link href="/sign-in">Sign in</Link>
+        Already have one? <Link href={{ pathname: '/sign-in', params: next ? { next } : {} }}>Sign in</Link>
       </Body>
     </Card>
   );

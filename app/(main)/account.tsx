@@ -4,6 +4,7 @@ import { useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { Body, Button, Card, Heading, Screen, Small } from '@/components/ui';
 import { RoleEditor } from '@/components/RoleEditor';
+import { TeachersCard } from '@/components/TeachersCard';
 import { space } from '@/components/theme';
 import { signOut } from '@/client/auth';
 import { clearCache, useMe } from '@/client/hooks';
@@ -35,6 +36,7 @@ export default function Account() {
           />
         </View>
       </Card>
+      <TeachersCard />
       {me.role === 'admin' ? <RoleEditor selfId={me.id} /> : null}
     </Screen>
   );

@@ -1,20 +1,25 @@
-// Students: a teacher's studio. Only teachers (and admins) see this screen; the server enforces it too.
+// Students: a teacher's studio. A student is linked only after accepting the teacher's invitation; either side
+// can end the link. Only teachers (and admins) see this screen; the server enforces it too.
 import React, { useState } from 'react';
 import { View } from 'react-native';
-import { plural } from '@/shared/format';
-import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Screen, Small } from '@/components/ui';
+import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Row, Screen, Small } from '@/components/ui';
 import { space } from '@/components/theme';
-import { addStudent, useMe, useStudents } from '@/client/hooks';
+import { inviteStudent, removeStudent, useMe, useSentInvitations, useStudents, withdrawInvitation } from '@/client/hooks';
 import { useAction } from '@/client/useAction';
 import { ScreenTitle } from '@/components/ScreenTitle';
+import { formatDate, plural } from '@/shared/format';
+import type { Student } from '@/shared/schemas';
 
 export default function Students() {
   const { me } = useMe();
   const allowed = me?.role === 'teacher' || me?.role === 'admin';
   const { students, isLoading } = useStudents(allowed);
+  const { invitations } = useSentInvitations(allowed);
   const [email, setEmail] = useState('');
+  const [sentTo, setSentTo] = useState<string | null>(null);
   const { run: submit, busy, error } = useAction(async () => {
-    await addStudent(email.trim());
+    await inviteStudent(email.trim());
+    setSentTo(email.trim());
     setEmail('');
   });
 
@@ -33,24 +38,57 @@ export default function Students() {
       {isLoading ? <Loading /> : null}
       {students && students.length === 0 ? (
         <EmptyState title="No students yet">
-          Add a student by the e-mail address they signed up with. You will then see their songs and takes, and can set tempos for
-          them.
+          Invite a student by e-mail. Once they accept, you see their songs, takes and practice log here.
         </EmptyState>
       ) : null}
-      {students?.map((s) => (
-        <Card key={s.id}>
-          <Body style={{ fontWeight: '700' }}>{s.name}</Body>
-          <Small>
-            {s.email} · {plural(s.songCount, 'song')}
-          </Small>
-        </Card>
-      ))}
-      <Card>
+      {students?.map((s) => <StudentCard key={s.id} student={s} />)}
+      <Card testID="invite-student">
+        <Heading level={3}>Invite a student</Heading>
+        <Small>
+          They get an e-mail with a link that works for 7 days. Nothing of theirs is shared with you unless they accept, and
+          either of you can end it at any time.
+        </Small>
         <View style={{ gap: space.md }}>
-          <Field label="Add a student by e-mail" value={email} onChangeText={setEmail} inputMode="email" autoCapitalize="none" error={error} />
-          <Button label="Add student" onPress={submit} busy={busy} disabled={!email.trim()} />
+          <Field label="Their e-mail address" value={email} onChangeText={setEmail} inputMode="email" autoCapitalize="none" error={error} testID="invite-email" />
+          <Button label="Send invitation" onPress={submit} busy={busy} disabled={!email.trim()} testID="send-invitation" />
+          {sentTo ? <Notice tone="success">Invitation sent to {sentTo}.</Notice> : null}
         </View>
       </Card>
+      {invitations && invitations.length > 0 ? (
+        <Card testID="pending-invitations">
+          <Heading level={3}>Waiting for an answer</Heading>
+          {invitations.map((i) => (
+            <Row key={i.id} align="center">
+              <View style={{ flex: 1 }}>
+                <Body>{i.email}</Body>
+                <Small>{i.status === 'expired' ? 'Expired: send a new one' : `Sent ${formatDate(i.createdAt)} · works until ${formatDate(i.expiresAt)}`}</Small>
+              </View>
+              <Button label="Withdraw" kind="quiet" onPress={() => withdrawInvitation(i.id)} />
+            </Row>
+          ))}
+        </Card>
+      ) : null}
     </Screen>
+  );
+}
+
+function StudentCard({ student: s }: { student: Student }) {
+  const [confirming, setConfirming] = useState(false);
+  return (
+    <Card testID={`student-${s.id}`}>
+      <Body style={{ fontWeight: '700' }}>{s.name}</Body>
+      <Small>
+        {s.email} · {plural(s.songCount, 'song')}
+      </Small>
+      {confirming ? (
+        <Row>
+          <Small muted={false}>Stop teaching {s.name} in Tactus? You lose access to their songs at once.</Small>
+          <Button label="End the link" kind="secondary" onPress={() => removeStudent(s.id)} />
+          <Button label="Keep" kind="quiet" onPress={() => setConfirming(false)} />
+        </Row>
+      ) : (
+        <Button label="End the link…" kind="quiet" onPress={() => setConfirming(true)} />
+      )}
+    </Card>
   );
 }

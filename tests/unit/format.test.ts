@@ -1,7 +1,7 @@
 // How numbers read on screen. Worked examples by hand; the notations are common practice: durations as
 // minutes:seconds (m:ss, as players and track lists show them), tempos in BPM to a tenth at most, and English
 // count nouns singular for exactly one ("1 repetition"), plural otherwise, zero included ("0 repetitions").
-import { formatBpm, formatClock, formatDuration, plural, tenth } from '@/shared/format';
+import { formatBpm, formatClock, formatDate, formatDuration, plural, tenth } from '@/shared/format';
 
 describe('tenth', () => {
   test('rounds to one decimal place', () => {
@@ -65,4 +65,11 @@ describe('plural', () => {
     expect(plural(2, 'child', 'children')).toBe('2 children');
     expect(plural(1, 'child', 'children')).toBe('1 child');
   });
+});
+
+test('dates read in the reader’s locale with the month in words (Unicode CLDR patterns, as Intl gives them)', () => {
+  const day = '2026-12-02T12:00:00Z'; // midday UTC: the same calendar day in every time zone from −11 to +11 hours
+  expect(formatDate(day, 'en-GB')).toBe('2 Dec 2026');
+  expect(formatDate(day, 'en-US')).toBe('Dec 2, 2026');
+  expect(formatDate(day, 'de-DE')).toBe('2. Dez. 2026');
 });

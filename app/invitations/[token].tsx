@@ -1,0 +1,90 @@
+// Where an invitation mail leads: who invites, to which address, and the answer — signed in with that address.
+// Signed out, it offers to sign in or create the account first and comes back here afterwards.
+import React, { useState } from 'react';
+import { ScrollView, View } from 'react-native';
+import { useLocalSearchParams, useRouter } from 'expo-router';
+import { Body, Button, Card, Heading, Loading, Notice, Row, Small } from '@/components/ui';
+import { Wordmark } from '@/components/NavShell';
+import { ScreenTitle } from '@/components/ScreenTitle';
+import { colors, space } from '@/components/theme';
+import { answerInvitation, useInvitationByToken, useMe } from '@/client/hooks';
+import { formatDate } from '@/shared/format';
+
+const answered: Record<string, string> = {
+  accepted: 'This invitation has been accepted.',
+  declined: 'This invitation was declined.',
+  withdrawn: 'The teacher withdrew this invitation.',
+  expired: 'This invitation has expired. Ask your teacher to send a new one.',
+};
+
+export default function InvitationScreen() {
+  const { token } = useLocalSearchParams<{ token: string }>();
+  const router = useRouter();
+  const { me, signedOut } = useMe();
+  const { invitation: inv, error, isLoading } = useInvitationByToken(token);
+  const [done, setDone] = useState<'accept' | 'decline' | null>(null);
+  const [problem, setProblem] = useState<string | null>(null);
+  const here = `/invitations/${token}`;
+
+  const answer = async (a: 'accept' | 'decline') => {
+    try {
+      await answerInvitation(inv!.id, a, token);
+      setDone(a);
+    } catch (e) {
+      setProblem((e as Error).message);
+    }
+  };
+
+  let body: React.ReactNode;
+  if (isLoading) body = <Loading />;
+  else if (error || !inv) body = <Notice tone="error">This invitation link is not valid. Check that the whole link was copied.</Notice>;
+  else if (done === 'accept')
+    body = (
+      <>
+        <Notice tone="success">You are now {inv.teacherName}’s student. You can end this at any time on your Account page.</Notice>
+        <Button label="Go to your library" onPress={() => router.replace('/')} testID="to-library" />
+      </>
+    );
+  else if (done === 'decline') body = <Notice>You declined. {inv.teacherName} sees nothing of yours.</Notice>;
+  else if (inv.status !== 'pending') body = <Notice>{answered[inv.status]}</Notice>;
+  else
+    body = (
+      <>
+        <Body>
+          <Body style={{ fontWeight: '700' }}>{inv.teacherName}</Body> invites <Body style={{ fontWeight: '700' }}>{inv.email}</Body> to be
+          their student on Tactus. Your teacher would see your songs, takes and practice log, leave notes on your takes and set
+          working and goal tempos for you. Nothing is shared unless you accept, and you can end it at any time.
+        </Body>
+        <Small>This invitation works until {formatDate(inv.expiresAt)}.</Small>
+        {signedOut ? (
+          <Row>
+            <Button label="Sign in to answer" onPress={() => router.push({ pathname: '/sign-in', params: { next: here } })} testID="invitation-sign-in" />
+            <Button label="Create an account" kind="secondary" onPress={() => router.push({ pathname: '/sign-up', params: { next: here } })} testID="invitation-sign-up" />
+          </Row>
+        ) : inv.forYou === false ? (
+          <Notice tone="caution">
+            You are signed in as {me?.email}. This invitation is for {inv.email}: sign out and sign in with that address to answer it.
+          </Notice>
+        ) : (
+          <Row>
+            <Button label={`Accept ${inv.teacherName} as my teacher`} onPress={() => answer('accept')} testID="accept-invitation" />
+            <Button label="Decline" kind="quiet" onPress={() => answer('decline')} testID="decline-invitation" />
+          </Row>
+        )}
+        {problem ? <Notice tone="error">{problem}</Notice> : null}
+      </>
+    );
+
+  return (
+    <ScrollView style={{ flex: 1, backgroundColor: colors.paper }} contentContainerStyle={{ padding: space.lg, paddingTop: space.xxl }}>
+      <ScreenTitle title="An invitation" />
+      <View style={{ width: '100%', maxWidth: 520, alignSelf: 'center', gap: space.lg }}>
+        <Wordmark />
+        <Card testID="invitation">
+          <Heading>An invitation from a teacher</Heading>
+          {body}
+        </Card>
+      </View>
+    </ScrollView>
+  );
+}
