@@ -19,6 +19,7 @@ import { recordingsRouter, songRecordingsRouter } from '@/server/routes/recordin
 import { candidatesRouter, songTemposRouter } from '@/server/routes/tempos';
 import { songPracticeRouter } from '@/server/routes/practice';
 import { passagesRouter, songPassagesRouter } from '@/server/routes/passages';
+import { notesRouter, recordingNotesRouter } from '@/server/routes/notes';
 import type { Health } from '@/shared/schemas';
 
 const { version } = require('../package.json') as { version: string };
@@ -52,6 +53,8 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.use('/api/songs/:songId', songTemposRouter);
   app.use('/api/candidates', candidatesRouter);
   app.use('/api/songs', songsRouter);
+  app.use('/api/recordings/:recordingId/notes', recordingNotesRouter);
+  app.use('/api/notes', notesRouter);
   app.use('/api/recordings', recordingsRouter);
   app.use('/api/students', studentsRouter);
   app.use('/api/teachers', teachersRouter);

@@ -46,6 +46,14 @@ export const config = {
     staleAfterMs: Number(process.env.TACTUS_JOB_STALE_MS ?? 15_000),
     maxAttempts: 3,
   },
+  digests: {
+    /** Notes written within this of each other go out in one mail (the first waits this long). */
+    gatherMs: Number(process.env.TACTUS_DIGEST_GATHER_MS ?? 2 * 60_000),
+    /** At most one digest per player in this time (the teachers issue: 15 minutes). */
+    minGapMs: Number(process.env.TACTUS_DIGEST_GAP_MS ?? 15 * 60_000),
+    /** How often each process looks for digests that are due. */
+    pollMs: Number(process.env.TACTUS_DIGEST_POLL_MS ?? 60_000),
+  },
   mail: {
     host: '127.0.0.1',
     port: Number(process.env.TACTUS_SMTP_PORT ?? 2526),

@@ -7,6 +7,7 @@ import { startAnalysisRunner } from '@/server/jobs/runner';
 import { queueReanalyses } from '@/server/jobs/queue';
 import { ENGINE_VERSION } from '@/audio/analysis/version';
 import { cleanSpool } from '@/server/middleware/upload';
+import { startDigests, stopDigests } from '@/server/services/digests';
 
 async function main() {
   const applied = await migrate();
@@ -17,12 +18,16 @@ async function main() {
   if (outdated) console.log(`[tactus] ${outdated} recording(s) analysed by an older engine queued for re-analysis`);
   // Queued jobs, and jobs whose process died mid-way, are picked up again from the table.
   const runner = startAnalysisRunner();
+  startDigests();
   const serveWeb = config.production || process.env.TACTUS_SERVE_WEB === '1';
   const app = createApp({ serveWeb });
   const server = app.listen(config.port, '127.0.0.1', () => {
     console.log(`[tactus] serving ${serveWeb ? 'the app and ' : ''}the API at ${config.publicUrl}`);
   });
-  const stop = () => server.close(() => void runner.stop().then(() => sequelize.close()).then(() => process.exit(0)));
+  const stop = () => {
+    stopDigests();
+    server.close(() => void runner.stop().then(() => sequelize.close()).then(() => process.exit(0)));
+  };
   process.on('SIGTERM', stop);
   process.on('SIGINT', stop);
 }

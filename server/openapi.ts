@@ -18,6 +18,13 @@ import {
   InvitationSchema,
   InviteStudentSchema,
   MeSchema,
+  NoteInputSchema,
+  NoteListSchema,
+  NotePatchSchema,
+  NoteReplySchema,
+  NoteSchema,
+  PreferencesSchema,
+  ReplyInputSchema,
   PassageInputSchema,
   PassageListSchema,
   PassagePatchSchema,
@@ -104,6 +111,15 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
     // ── Who is asking ──
     { method: 'get', path: '/api/me', tag: 'account', access: 'signed-in', summary: 'The signed-in user', ok: { 200: json('The user.', s.Me) } },
 
+    {
+      method: 'get', path: '/api/me/preferences', tag: 'account', access: 'signed-in', summary: 'My settings',
+      ok: { 200: json('My settings.', s.Preferences) },
+    },
+    {
+      method: 'patch', path: '/api/me/preferences', tag: 'account', access: 'signed-in', summary: 'Change my settings (the e-mail digest of new notes)',
+      body: s.Preferences.partial(), ok: { 200: json('My settings as they are now.', s.Preferences) },
+    },
+
     // ── Songs ──
     { method: 'get', path: '/api/songs', tag: 'songs', access: 'signed-in', summary: 'My songs', ok: { 200: json('The songs I own.', s.SongList) } },
     {
@@ -160,6 +176,28 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
     {
       method: 'post', path: '/api/recordings/{id}/retry', tag: 'recordings', access: 'signed-in', summary: 'Analyse a failed recording again (owner only)',
       ok: { 202: json('Queued again.', s.Recording) }, errors: [409],
+    },
+
+    // ── Notes ──
+    {
+      method: 'get', path: '/api/recordings/{recordingId}/notes', tag: 'notes', access: 'signed-in', summary: 'The notes on a recording',
+      ok: { 200: json('In time order, each with its replies.', s.NoteList) },
+    },
+    {
+      method: 'post', path: '/api/recordings/{recordingId}/notes', tag: 'notes', access: 'signed-in', summary: 'Write a note at a moment or on a passage (owner or linked teacher)',
+      body: s.NoteInput, ok: { 201: json('The new note.', s.Note) },
+    },
+    {
+      method: 'post', path: '/api/notes/{id}/replies', tag: 'notes', access: 'signed-in', summary: 'Reply to a note (owner or linked teacher)',
+      body: s.ReplyInput, ok: { 201: json('The reply.', s.NoteReply) },
+    },
+    {
+      method: 'patch', path: '/api/notes/{id}', tag: 'notes', access: 'signed-in', summary: 'Resolve or reopen a note (either side); change its words (its author only)',
+      body: s.NotePatch, ok: { 200: json('The note as it is now.', s.NoteReply.extend({ resolved: z.boolean() })) }, errors: [403],
+    },
+    {
+      method: 'delete', path: '/api/notes/{id}', tag: 'notes', access: 'signed-in', summary: 'Delete a note with its replies, or a reply (its author only)',
+      ok: { 204: noContent('Deleted.') }, errors: [403],
     },
 
     // ── Tempos and practice ──
@@ -288,6 +326,13 @@ function namedSchemas() {
     ApiError: r('ApiError', ApiErrorSchema),
     Health: r('Health', HealthSchema),
     Me: r('Me', MeSchema),
+    Preferences: r('Preferences', PreferencesSchema),
+    Note: r('Note', NoteSchema),
+    NoteReply: r('NoteReply', NoteReplySchema),
+    NoteInput: r('NoteInput', NoteInputSchema),
+    NotePatch: r('NotePatch', NotePatchSchema),
+    ReplyInput: r('ReplyInput', ReplyInputSchema),
+    NoteList: r('NoteList', NoteListSchema),
     Song: r('Song', SongSchema),
     SongInput: r('SongInput', SongInputSchema),
     SongPatch: r('SongPatch', SongPatchSchema),

@@ -311,3 +311,54 @@ export const PracticeEntrySchema = z.object({
 });
 export type PracticeEntryDto = z.infer<typeof PracticeEntrySchema>;
 export const PracticeEntryListSchema = z.object({ entries: z.array(PracticeEntrySchema) });
+
+// ── Notes on a recording ────────────────────────────────────────────────────────────────────────────
+
+const NoteTextSchema = z.string().trim().min(1, 'write something first').max(2000, 'use at most 2000 characters');
+/** A note at a moment (atSec) or on a passage (startSec–endSec, with its bars). */
+export const NoteInputSchema = z
+  .object({
+    text: NoteTextSchema,
+    atSec: SecondsSchema.nullish(),
+    startSec: SecondsSchema.nullish(),
+    endSec: SecondsSchema.nullish(),
+    startBar: BarSchema.nullish(),
+    endBar: BarSchema.nullish(),
+  })
+  .strict()
+  .refine((n) => (n.atSec != null) !== (n.startSec != null && n.endSec != null), {
+    message: 'a note is either at a moment (atSec) or on a passage (startSec and endSec)',
+    path: ['atSec'],
+  })
+  .refine((n) => n.startSec == null || n.endSec == null || n.endSec > n.startSec, { message: 'the passage must end after it starts', path: ['endSec'] });
+export type NoteInput = z.infer<typeof NoteInputSchema>;
+export const ReplyInputSchema = z.object({ text: NoteTextSchema }).strict();
+export const NotePatchSchema = z.object({ text: NoteTextSchema, resolved: z.boolean() }).partial().strict();
+export type NotePatch = z.infer<typeof NotePatchSchema>;
+export const NoteAuthorSchema = z.object({ id: z.string(), name: z.string() });
+export const NoteReplySchema = z.object({
+  id: z.string(),
+  author: NoteAuthorSchema,
+  text: z.string(),
+  /** Written by the person asking: only they edit or delete it. */
+  mine: z.boolean(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export const NoteSchema = NoteReplySchema.extend({
+  recordingId: z.string(),
+  atSec: z.number().nullable(),
+  startSec: z.number().nullable(),
+  endSec: z.number().nullable(),
+  startBar: z.number().nullable(),
+  endBar: z.number().nullable(),
+  resolved: z.boolean(),
+  replies: z.array(NoteReplySchema),
+});
+export type Note = z.infer<typeof NoteSchema>;
+export type NoteReply = z.infer<typeof NoteReplySchema>;
+export const NoteListSchema = z.object({ notes: z.array(NoteSchema) });
+
+export const PreferencesSchema = z.object({ noteDigests: z.boolean() }).strict();
+export type Preferences = z.infer<typeof PreferencesSchema>;
+

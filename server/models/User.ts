@@ -1,4 +1,4 @@
-import { DataTypes, Model, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
 import { sequelize } from '@/server/db';
 import type { Role } from '@/shared/schemas';
 
@@ -10,6 +10,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare emailVerified: boolean;
   declare image: string | null;
   declare role: Role;
+  /** Wants the e-mail digest of new notes on their recordings (on unless turned off in Account). */
+  declare noteDigests: CreationOptional<boolean>;
+  declare lastDigestAt: CreationOptional<Date | null>;
   declare createdAt: Date;
   declare updatedAt: Date;
 }
@@ -21,6 +24,8 @@ User.init(
     emailVerified: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     image: { type: DataTypes.TEXT, allowNull: true },
     role: { type: DataTypes.ENUM('player', 'teacher', 'admin'), allowNull: false, defaultValue: 'player' },
+    noteDigests: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+    lastDigestAt: { type: DataTypes.DATE(3), allowNull: true },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),
   },

@@ -12,6 +12,7 @@ import { CandidateTempo } from './CandidateTempo';
 import { PracticeEntry } from './PracticeEntry';
 import { Passage } from './Passage';
 import { StudioInvitation } from './StudioInvitation';
+import { RecordingNote } from './RecordingNote';
 
 User.hasMany(Song, { foreignKey: 'ownerId', as: 'songs', onDelete: 'CASCADE' });
 Song.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
@@ -23,10 +24,11 @@ Recording.hasOne(Analysis, { foreignKey: 'recordingId', as: 'analysis', onDelete
 Recording.hasOne(AnalysisJob, { foreignKey: 'recordingId', as: 'job', onDelete: 'CASCADE' });
 Song.hasMany(CandidateTempo, { foreignKey: 'songId', as: 'candidates', onDelete: 'CASCADE' });
 Song.hasMany(PracticeEntry, { foreignKey: 'songId', as: 'practice', onDelete: 'CASCADE' });
+RecordingNote.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 Song.hasMany(Passage, { foreignKey: 'songId', as: 'passages', onDelete: 'CASCADE' });
 Passage.belongsTo(Recording, { foreignKey: 'recordingId', as: 'recording' });
 
 /** better-auth's model names (after our modelName mapping) → the Sequelize model that stores them. */
 export const authModels = { users: User, sessions: Session, accounts: Account, verifications: Verification } as const;
 
-export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry, Passage, StudioInvitation };
+export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry, Passage, StudioInvitation, RecordingNote };

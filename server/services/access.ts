@@ -2,12 +2,12 @@
 // here; no route or other service repeats it. Someone who may not read a thing is told it does not exist
 // (404), so ids reveal nothing; someone who may read but not write gets the same answer for a write.
 import { StudioLink } from '@/server/models';
-import { notFound } from '@/server/http';
+import { HttpError, notFound } from '@/server/http';
 import type { Me } from '@/shared/schemas';
 
 /** How the person asking stands to the owner of the thing. */
 export type Relation = 'owner' | 'linked-teacher' | 'admin' | 'other-user' | 'anonymous';
-export type ThingKind = 'song' | 'recording' | 'candidate' | 'practice-entry' | 'passage';
+export type ThingKind = 'song' | 'recording' | 'candidate' | 'practice-entry' | 'passage' | 'note';
 export type Action = 'read' | 'write';
 
 /**
@@ -21,6 +21,9 @@ export const ACCESS: Record<ThingKind, Record<Action, readonly Relation[]>> = {
   candidate: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
   'practice-entry': { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
   passage: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
+  // Notes are how a teacher and a student talk about a take: both write (and reply, and resolve). Changing or
+  // deleting the words of a note is for its author alone (see assertAuthor).
+  note: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner', 'linked-teacher'] },
 };
 
 const NAMES: Record<ThingKind, string> = {
@@ -29,6 +32,7 @@ const NAMES: Record<ThingKind, string> = {
   candidate: 'candidate tempo',
   'practice-entry': 'practice entry',
   passage: 'passage',
+  note: 'note',
 };
 
 export async function relationTo(user: Me | null | undefined, ownerId: string): Promise<Relation> {
@@ -50,3 +54,8 @@ export async function assertMay(user: Me, action: Action, kind: ThingKind, owner
 
 /** The not-found error for a thing that does not exist at all (the same words as a refused one). */
 export const missing = (kind: ThingKind) => notFound(NAMES[kind]);
+
+/** Words are their author's: only the author changes or deletes what they wrote. */
+export function assertAuthor(user: Me, authorId: string): void {
+  if (user.id !== authorId) throw new HttpError(403, 'not_author', 'only the person who wrote this can change or delete it');
+}

@@ -1,7 +1,7 @@
 // Accounts as an admin sees them.
 import { User } from '@/server/models';
 import { notFound } from '@/server/http';
-import type { Role, UserSummary } from '@/shared/schemas';
+import type { Me, Preferences, Role, UserSummary } from '@/shared/schemas';
 
 export const toUserSummary = (u: User): UserSummary => ({
   id: u.id,
@@ -21,4 +21,15 @@ export async function setRole(userId: string, role: Role): Promise<UserSummary> 
   if (!user) throw notFound('user');
   await user.update({ role });
   return toUserSummary(user);
+}
+
+/** A person's own settings: for now, whether new notes on their recordings reach them by e-mail. */
+export async function getPreferences(me: Me): Promise<Preferences> {
+  const user = await User.findByPk(me.id, { attributes: ['noteDigests'] });
+  return { noteDigests: user?.noteDigests ?? true };
+}
+
+export async function setPreferences(me: Me, patch: Partial<Preferences>): Promise<Preferences> {
+  await User.update(patch, { where: { id: me.id } });
+  return getPreferences(me);
 }

@@ -47,6 +47,9 @@ module.exports = async function globalSetup() {
     TACTUS_SERVE_WEB: '1',
     // Small limits so the oversize test sends megabytes, not hundreds of them.
     TACTUS_MAX_UPLOAD_BYTES: String(8 * 1024 * 1024),
+    // Digests gather notes for 1.5 s instead of 2 minutes (the 15-minute gap between two digests stays).
+    TACTUS_DIGEST_GATHER_MS: '1500',
+    TACTUS_DIGEST_POLL_MS: '1000',
     TACTUS_STORAGE: 'disk',
     TACTUS_STORAGE_DIR: path.join(disk, 'recordings'),
     TACTUS_SPOOL_DIR: path.join(disk, 'spool'),
