@@ -34,7 +34,8 @@ export function tempoByBar(grid: Grid): BarTempo[] {
     const isLast = i === downbeats.length - 1;
     if (!isLast) {
       const duration = bounds[i + 1]! - start;
-      if (inBar.length > 0 && duration > 0) out.push({ bar: i + 1, start, beats: inBar.length, bpm: (inBar.length * 60) / duration });
+      if (inBar.length > 0 && duration > 0)
+        out.push({ bar: i + 1, start, beats: inBar.length, bpm: (inBar.length * 60) / duration });
     } else if (inBar.length >= 2) {
       const span = inBar[inBar.length - 1]! - inBar[0]!;
       if (span > 0) out.push({ bar: i + 1, start, beats: inBar.length, bpm: ((inBar.length - 1) * 60) / span });

@@ -52,6 +52,9 @@ export interface LineChartProps {
   yDomain?: [number, number];
   /** Only whole-number x ticks (bars, days). */
   integerX?: boolean;
+  /** Allowed x tick steps, smallest first, counted from `xTickOrigin` (see TickOptions). */
+  xTickSteps?: number[];
+  xTickOrigin?: number;
   formatX?: (x: number) => string;
   formatY?: (y: number) => string;
   /** Axis names, e.g. "bar" and "BPM". */
@@ -79,33 +82,59 @@ const PX_PER_POINT = 2;
 
 export const textWidth = (text: string, fontSize = FONT_SIZE) => text.length * fontSize * CHAR_WIDTH_EM;
 
-/**
- * Ticks for a scale whose labels fit: ask d3 for as many as the measured length allows at the widest label's
- * size, then drop any whose label would come closer than LABEL_GAP to the last one kept.
- */
+const extent = (xs: number[]): [number, number] => [Math.min(...xs), Math.max(...xs)];
+
 /** What fitTicks needs of a d3 linear scale. */
 interface TickScale {
   (value: number): number;
   ticks(count: number): number[];
+  domain(): number[];
 }
 
+export interface TickOptions {
+  /** Only whole numbers (bars, days). */
+  integer?: boolean;
+  /** Allowed steps, smallest first, counted from `origin` (bars by phrase: 1, 2, 4, 8 … from bar 1). */
+  steps?: number[];
+  origin?: number;
+}
+
+/**
+ * Ticks for a scale whose labels never touch: each label's centre at least half of both labels' measured widths
+ * plus LABEL_GAP from the next. With `steps`, the smallest step that fits; otherwise d3's nice ticks for as many
+ * as the length allows at the widest label's size, then every second, third … tick until they fit, so the
+ * spacing stays even.
+ */
 export function fitTicks(
   scale: TickScale,
   length: number,
   labelSize: (v: number) => number,
-  integer = false,
+  options: TickOptions = {},
 ): number[] {
-  const probe = scale.ticks(10).filter((t) => !integer || Number.isInteger(t));
-  const widest = Math.max(FONT_SIZE, ...probe.map(labelSize));
-  const count = Math.max(2, Math.floor(length / (widest + LABEL_GAP)));
-  const candidates = scale.ticks(count).filter((t) => !integer || Number.isInteger(t));
-  const kept: number[] = [];
-  for (const t of candidates) {
-    const prev = kept[kept.length - 1];
-    if (prev === undefined || Math.abs(scale(t) - scale(prev)) >= (labelSize(t) + labelSize(prev)) / 2 + LABEL_GAP)
-      kept.push(t);
+  const fits = (ticks: number[]) =>
+    ticks.every(
+      (t, i) =>
+        i === 0 ||
+        Math.abs(scale(t) - scale(ticks[i - 1]!)) >= (labelSize(t) + labelSize(ticks[i - 1]!)) / 2 + LABEL_GAP,
+    );
+  const [lo, hi] = extent(scale.domain());
+  if (options.steps?.length) {
+    const origin = options.origin ?? 0;
+    const at = (step: number) => {
+      const out: number[] = [];
+      for (let t = origin + Math.ceil((lo - origin) / step - 1e-9) * step; t <= hi + 1e-9; t += step) out.push(t);
+      return out;
+    };
+    return options.steps.map(at).find(fits) ?? at(options.steps[options.steps.length - 1]!).slice(0, 1);
   }
-  return kept;
+  const whole = (ticks: number[]) => ticks.filter((t) => !options.integer || Number.isInteger(t));
+  const widest = Math.max(FONT_SIZE, ...whole(scale.ticks(10)).map(labelSize));
+  const candidates = whole(scale.ticks(Math.max(2, Math.floor(length / (widest + LABEL_GAP)))));
+  for (let every = 1; every <= candidates.length; every++) {
+    const kept = candidates.filter((_, i) => i % every === 0);
+    if (fits(kept)) return kept;
+  }
+  return candidates.slice(0, 1);
 }
 
 /** Positions for labels wanted at `ys` (pixels) that keep them at least `gap` apart inside [top, bottom]. */
@@ -148,8 +177,6 @@ export function thinPoints(points: Point[], toPx: (x: number) => number, width: 
   return out;
 }
 
-const extent = (xs: number[]): [number, number] => [Math.min(...xs), Math.max(...xs)];
-
 export function LineChart({
   series,
   referenceLines = [],
@@ -157,6 +184,8 @@ export function LineChart({
   xDomain,
   yDomain,
   integerX,
+  xTickSteps,
+  xTickOrigin,
   formatX = String,
   formatY = String,
   xLabel,
@@ -199,9 +228,13 @@ export function LineChart({
       .domain(xs)
       .range([left, left + plotW]);
     y.range([top + plotH, top]);
-    const xTicks = fitTicks(x, plotW, (t) => textWidth(formatX(t)), integerX);
+    const xTicks = fitTicks(x, plotW, (t) => textWidth(formatX(t)), {
+      integer: integerX,
+      steps: xTickSteps,
+      origin: xTickOrigin,
+    });
     // Vertically a label needs its own line height, whatever its width.
-    const yTicks = fitTicks(y, plotH, () => FONT_SIZE, false);
+    const yTicks = fitTicks(y, plotH, () => FONT_SIZE);
 
     const path = line<Point>()
       .x((p) => Math.round(x(p.x) * 10) / 10)
@@ -222,7 +255,22 @@ export function LineChart({
       top + plotH - FONT_SIZE / 2,
     );
     return { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs };
-  }, [series, referenceLines, ranges, xDomain, yDomain, integerX, formatX, formatY, xLabel, yLabel, width, height]);
+  }, [
+    series,
+    referenceLines,
+    ranges,
+    xDomain,
+    yDomain,
+    integerX,
+    xTickSteps,
+    xTickOrigin,
+    formatX,
+    formatY,
+    xLabel,
+    yLabel,
+    width,
+    height,
+  ]);
 
   const { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs } = chart;
   const label = { fontFamily: fonts.body, fontSize: FONT_SIZE };

@@ -20,6 +20,11 @@ const MIN_PAD_BPM = 3;
 /** Room above and below as a share of the span, so the extremes do not sit on the frame. */
 const PAD_SHARE = 0.1;
 
+/** Bar numbers are labelled by phrase, from bar 1: every bar, 2, 4, 8 … bars, the smallest that fits (music is
+ * mostly phrased in 4 and 8 bars, common practice, so 1, 5, 9, 13 reads as the phrase starts). */
+const BAR_TICK_STEPS = [1, 2, 4, 8, 16, 32, 64, 128, 256, 512];
+const wholeBpm = (v: number) => formatBpm(Math.round(v));
+
 /** Each tempo line keeps its own colour and dash; equal tempos share one line with both names. */
 const LINE_STYLES = {
   chosen: { color: colors.amber, dash: undefined },
@@ -91,8 +96,9 @@ export function TempoCurveChart({
         referenceLines={refs}
         xDomain={bars.length > 1 ? [bars[0]!.bar, bars[bars.length - 1]!.bar] : undefined}
         yDomain={yDomain}
-        integerX
-        formatY={(v) => formatBpm(Math.round(v))}
+        xTickSteps={BAR_TICK_STEPS}
+        xTickOrigin={1}
+        formatY={wholeBpm}
         xLabel="bar"
         yLabel="BPM"
         height={height}

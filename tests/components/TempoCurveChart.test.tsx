@@ -75,7 +75,7 @@ test('without beats, without an analysis, or with a single bar it says so instea
   expect(screen.getByText('goal 130')).toBeTruthy();
 });
 
-test('a ten-minute take keeps bar numbers apart and the path no heavier than the chart is wide', () => {
+test('a ten-minute take keeps bar numbers apart and evenly spaced and the path no heavier than the chart is wide', () => {
   // 300 bars of 4/4 at 120 BPM (2 s a bar) with a slow wobble, as a long live take might have.
   const beats: number[] = [];
   let t = 0.5;
@@ -99,4 +99,10 @@ test('a ten-minute take keeps bar numbers apart and the path no heavier than the
   expect(xLabels.length).toBeGreaterThanOrEqual(2);
   const xs = xLabels.map((el) => Number(el.getAttribute('x')));
   for (let i = 1; i < xs.length; i++) expect(xs[i]! - xs[i - 1]!).toBeGreaterThan(3 * 12 * 0.6);
+  // Evenly spaced, counted from bar 1 by a power of two (phrases of 4 and 8 bars, common practice): 1, 65, 129 …
+  const bars = xLabels.map((el) => Number(el.textContent));
+  const step = bars[1]! - bars[0]!;
+  expect(bars[0]).toBe(1);
+  expect(Math.log2(step) % 1).toBe(0);
+  bars.forEach((b, i) => expect(b).toBe(1 + i * step));
 });
