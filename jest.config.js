@@ -24,6 +24,8 @@ module.exports = {
       displayName: 'components',
       preset: 'jest-expo/web',
       moduleNameMapper: alias,
+      // d3-array (under d3-scale) points its entry at an .mjs file, which jest-expo's transform (.js/.ts only) skips.
+      transform: { '\\.mjs$': 'babel-jest' },
       // jest-expo's own list (its web preset) plus d3's packages, which are published as ES modules only.
       transformIgnorePatterns: [
         '/node_modules/(?!(.pnpm|react-native|@react-native|@react-native-community|expo|@expo|@expo-google-fonts|react-navigation|@react-navigation|@sentry/react-native|native-base|standard-navigation|d3-|internmap))',

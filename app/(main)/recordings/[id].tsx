@@ -8,6 +8,7 @@ import { Waveform } from '@/components/Waveform';
 import { ProgressBar } from '@/components/ProgressBar';
 import { TempoCorrection } from '@/components/TempoCorrection';
 import { AuditionPanel } from '@/components/AuditionPanel';
+import { TempoCurveChart } from '@/components/charts/TempoCurveChart';
 import { apiBase } from '@/client/api';
 import { formatBpm, formatDuration, plural, tenth } from '@/shared/format';
 import { colors, space, type } from '@/components/theme';
@@ -70,6 +71,10 @@ export default function RecordingScreen() {
               <Waveform minMax={peaks.minMax} durationSec={peaks.durationSec} beats={a.beats} downbeats={a.downbeats} testID="waveform" />
             </Card>
           ) : null}
+          <Card testID="tempo-curve-card">
+            <Heading level={3}>Tempo across the recording</Heading>
+            <TempoCurveChart analysis={a} song={song} />
+          </Card>
           {bpm !== null ? (
             <Card>
               <Heading level={3}>Correct the tempo</Heading>
