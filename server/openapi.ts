@@ -45,6 +45,7 @@ import {
   SongListSchema,
   SongPatchSchema,
   SongSchema,
+  SongTemposSchema,
   StudentListSchema,
   TeacherListSchema,
   TeacherSchema,
@@ -133,6 +134,10 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
     {
       method: 'patch', path: '/api/songs/{id}', tag: 'songs', access: 'signed-in', summary: 'Change a song (owner only)', body: s.SongPatch,
       ok: { 200: json('The song as it is now.', s.Song) },
+    },
+    {
+      method: 'patch', path: '/api/songs/{id}/tempos', tag: 'songs', access: 'signed-in', summary: 'Set the working and goal tempo (owner or linked teacher)',
+      description: 'The song records who set each tempo and when.', body: s.SongTempos, ok: { 200: json('The song as it is now.', s.Song) },
     },
     {
       method: 'delete', path: '/api/songs/{id}', tag: 'songs', access: 'signed-in', summary: 'Delete a song with its recordings (owner only)',
@@ -233,6 +238,10 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
     {
       method: 'patch', path: '/api/passages/{id}', tag: 'passages', access: 'signed-in', summary: 'Rename, move or retime a passage (owner only)',
       body: s.PassagePatch, ok: { 200: json('The passage as it is now.', s.Passage) },
+    },
+    {
+      method: 'patch', path: '/api/passages/{id}/tempos', tag: 'passages', access: 'signed-in', summary: 'Set a passage’s working and goal tempo (owner or linked teacher)',
+      body: s.SongTempos, ok: { 200: json('The passage as it is now.', s.Passage) },
     },
     {
       method: 'delete', path: '/api/passages/{id}', tag: 'passages', access: 'signed-in', summary: 'Delete a passage (its practice entries keep what was played)',
@@ -337,6 +346,7 @@ function namedSchemas() {
     SongInput: r('SongInput', SongInputSchema),
     SongPatch: r('SongPatch', SongPatchSchema),
     SongList: r('SongList', SongListSchema),
+    SongTempos: r('SongTempos', SongTemposSchema),
     Recording: r('Recording', RecordingSchema),
     RecordingList: r('RecordingList', RecordingListSchema),
     RecordingPatch: r('RecordingPatch', RecordingPatchSchema),

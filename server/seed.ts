@@ -24,7 +24,8 @@ export async function seedDemo(): Promise<{ created: boolean }> {
     const user = await User.create({ id, name: person.name, email: person.email, emailVerified: true, image: null, role: person.role, createdAt: now, updatedAt: now });
     await Account.create({ id: crypto.randomBytes(16).toString('hex'), userId: id, accountId: id, providerId: 'credential', password: hash, createdAt: now, updatedAt: now });
     for (const { recordings = [], ...input } of person.songs) {
-      const song = await createSong(user.id, input);
+      const me = { id: user.id, name: user.name, email: user.email, emailVerified: true, role: user.role };
+      const song = await createSong(me, input);
       for (const r of recordings) await addDemoRecording(song, user.id, r);
     }
   }
@@ -40,7 +41,7 @@ export async function seedDemo(): Promise<{ created: boolean }> {
 async function addDemoRecording(song: Awaited<ReturnType<typeof createSong>>, ownerId: string, r: DemoRecording) {
   const file = path.join(DEMO_AUDIO, r.file);
   const audio = await checkAudio(file, config.uploads.maxDurationSec);
-  await storeRecording({ song, ownerId, kind: r.kind, label: r.label, originalName: r.file, spoolFile: file, sizeBytes: fs.statSync(file).size, audio });
+  await storeRecording({ songId: song.id, ownerId, uploadedBy: null, kind: r.kind, label: r.label, originalName: r.file, spoolFile: file, sizeBytes: fs.statSync(file).size, audio });
 }
 
 export function demoSignInTable(): string {

@@ -47,8 +47,19 @@ export type SongInput = z.infer<typeof SongInputSchema>;
 export const SongPatchSchema = SongInputSchema.partial();
 export type SongPatch = z.infer<typeof SongPatchSchema>;
 
+/** A person named on something they did (set a tempo, uploaded a reference). */
+export const PersonRefSchema = z.object({ id: z.string(), name: z.string() });
+/** Who set a working or goal tempo, and when (null: never set, or set before this was recorded). */
+const SetBySchema = { workingSetBy: PersonRefSchema.nullable(), workingSetAt: z.string().nullable(), goalSetBy: PersonRefSchema.nullable(), goalSetAt: z.string().nullable() };
+
+/** What the person asking may do with a song; the screens show only these controls. */
+export const SongPermissionsSchema = z.object({ edit: z.boolean(), setTempos: z.boolean(), addReference: z.boolean(), addTake: z.boolean() });
+export type SongPermissions = z.infer<typeof SongPermissionsSchema>;
+
 export const SongSchema = z.object({
   id: z.string(),
+  ...SetBySchema,
+  permissions: SongPermissionsSchema,
   ownerId: z.string(),
   title: z.string(),
   composer: z.string().nullable(),
@@ -62,6 +73,9 @@ export const SongSchema = z.object({
   updatedAt: z.string(),
 });
 export type Song = z.infer<typeof SongSchema>;
+/** Working and goal tempo: the player's own, or set for them by their teacher. */
+export const SongTemposSchema = z.object({ workingBpm: BpmSchema.nullable(), goalBpm: BpmSchema.nullable() }).partial().strict();
+export type SongTempos = z.infer<typeof SongTemposSchema>;
 export const SongListSchema = z.object({ songs: z.array(SongSchema) });
 
 export const UserSummarySchema = z.object({
@@ -188,6 +202,10 @@ export const RecordingSchema = z.object({
   beatLevel: BeatLevelSchema,
   barOneSec: z.number().nullable(),
   nudgeMs: z.number(),
+  /** Who uploaded it when not its owner (a teacher's reference); null when the owner did. */
+  uploadedBy: PersonRefSchema.nullable(),
+  /** What the person asking may do: change and correct it (the owner), write notes on it (owner and teacher). */
+  permissions: z.object({ edit: z.boolean(), note: z.boolean() }),
   analysis: AnalysisSchema.nullable(),
   createdAt: z.string(),
 });
@@ -255,6 +273,7 @@ export const PassagePatchSchema = z
 export type PassagePatch = z.infer<typeof PassagePatchSchema>;
 export const PassageSchema = z.object({
   id: z.string(),
+  ...SetBySchema,
   songId: z.string(),
   recordingId: z.string(),
   name: z.string(),

@@ -15,6 +15,11 @@ export class Passage extends Model<InferAttributes<Passage>, InferCreationAttrib
   declare endBar: number | null;
   declare workingBpm: number | null;
   declare goalBpm: number | null;
+  /** Who last set the working and goal tempo (the player or their teacher), and when. */
+  declare workingSetBy: CreationOptional<string | null>;
+  declare workingSetAt: CreationOptional<Date | null>;
+  declare goalSetBy: CreationOptional<string | null>;
+  declare goalSetAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -30,6 +35,10 @@ Passage.init(
     endBar: { type: DataTypes.INTEGER, allowNull: true },
     workingBpm: decimalBpm('workingBpm'),
     goalBpm: decimalBpm('goalBpm'),
+    workingSetBy: { type: DataTypes.STRING(64), allowNull: true },
+    workingSetAt: { type: DataTypes.DATE(3), allowNull: true },
+    goalSetBy: { type: DataTypes.STRING(64), allowNull: true },
+    goalSetAt: { type: DataTypes.DATE(3), allowNull: true },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),
   },

@@ -31,6 +31,8 @@ export class Recording extends Model<InferAttributes<Recording>, InferCreationAt
   declare barOneSec: CreationOptional<number | null>;
   /** The whole grid moved earlier (negative) or later, in milliseconds. */
   declare nudgeMs: CreationOptional<number>;
+  /** Who uploaded it when that was not its owner: a teacher adding a reference to a student's song. */
+  declare uploadedBy: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -55,6 +57,7 @@ Recording.init(
     beatLevel: { type: DataTypes.ENUM('half', 'as-found', 'double'), allowNull: false, defaultValue: 'as-found' },
     barOneSec: { type: DataTypes.DOUBLE, allowNull: true },
     nudgeMs: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    uploadedBy: { type: DataTypes.STRING(64), allowNull: true },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),
   },

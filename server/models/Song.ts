@@ -15,6 +15,11 @@ export class Song extends Model<InferAttributes<Song>, InferCreationAttributes<S
   declare chosenBpm: number | null;
   declare notes: string | null;
   declare chosenNote: CreationOptional<string | null>;
+  /** Who last set the working and goal tempo (the player or their teacher), and when. */
+  declare workingSetBy: CreationOptional<string | null>;
+  declare workingSetAt: CreationOptional<Date | null>;
+  declare goalSetBy: CreationOptional<string | null>;
+  declare goalSetAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -30,6 +35,10 @@ Song.init(
     chosenBpm: bpmColumn('chosenBpm'),
     notes: { type: DataTypes.TEXT, allowNull: true },
     chosenNote: { type: DataTypes.TEXT, allowNull: true },
+    workingSetBy: { type: DataTypes.STRING(64), allowNull: true },
+    workingSetAt: { type: DataTypes.DATE(3), allowNull: true },
+    goalSetBy: { type: DataTypes.STRING(64), allowNull: true },
+    goalSetAt: { type: DataTypes.DATE(3), allowNull: true },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),
   },

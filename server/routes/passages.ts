@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { handler, parseBody } from '@/server/http';
 import { currentUser, requireUser } from '@/server/middleware/session';
-import { PassageInputSchema, PassagePatchSchema } from '@/shared/schemas';
-import { addPassage, deletePassage, listPassages, updatePassage } from '@/server/services/passages';
+import { PassageInputSchema, PassagePatchSchema, SongTemposSchema } from '@/shared/schemas';
+import { addPassage, deletePassage, listPassages, setPassageTempos, updatePassage } from '@/server/services/passages';
 
 /** Mounted at /api/songs/:songId/passages: the passages of one song's recordings. */
 export const songPassagesRouter = Router({ mergeParams: true });
@@ -30,3 +30,10 @@ passagesRouter.delete('/:id', handler(async (req, res) => {
   await deletePassage(currentUser(req), String(req.params.id));
   res.status(204).end();
 }));
+
+/** Working and goal tempo of a passage: the player's, or set for them by their linked teacher. */
+passagesRouter.patch('/:id/tempos', handler(async (req, res) => {
+  const tempos = parseBody(SongTemposSchema, req.body);
+  res.json(await setPassageTempos(currentUser(req), String(req.params.id), tempos));
+}));
+

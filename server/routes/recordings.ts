@@ -6,6 +6,7 @@ import { receiveUpload, removeSpooled, spooledFile } from '@/server/middleware/u
 import { songFor } from '@/server/services/songs';
 import {
   addRecording,
+  assertMayUploadTo,
   deleteRecording,
   getRecording,
   listRecordings,
@@ -29,7 +30,7 @@ songRecordingsRouter.post(
   '/',
   // Whether this person may add to the song is settled before a byte of the file is accepted.
   (req, _res, next) => {
-    songFor(currentUser(req), 'write', String(req.params.songId)).then(() => next(), next);
+    assertMayUploadTo(currentUser(req), String(req.params.songId)).then(() => next(), next);
   },
   receiveUpload,
   handler(async (req, res) => {
@@ -37,9 +38,8 @@ songRecordingsRouter.post(
       const fields = parseBody(RecordingUploadFieldsSchema, req.body);
       const file = spooledFile(req);
       if (!file) throw new HttpError(400, 'invalid_body', 'file: attach the recording in the field "file"', 'file');
-      const song = await songFor(currentUser(req), 'write', String(req.params.songId));
       const upload = { kind: fields.kind, label: fields.label || null, fileName: req.file?.originalname, spoolFile: file.path, sizeBytes: file.size };
-      res.status(201).json(await addRecording(currentUser(req), song, upload));
+      res.status(201).json(await addRecording(currentUser(req), String(req.params.songId), upload));
     } finally {
       removeSpooled(req);
     }

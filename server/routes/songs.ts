@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { handler, parseBody } from '@/server/http';
 import { currentUser, requireUser } from '@/server/middleware/session';
-import { SongInputSchema, SongPatchSchema } from '@/shared/schemas';
-import { createSong, deleteSong, listSongs, songFor, toSongDto, updateSong } from '@/server/services/songs';
+import { SongInputSchema, SongPatchSchema, SongTemposSchema } from '@/shared/schemas';
+import { createSong, deleteSong, getSong, listSongs, setSongTempos, updateSong } from '@/server/services/songs';
 
 export const songsRouter = Router();
 songsRouter.use(requireUser);
@@ -13,11 +13,11 @@ songsRouter.get('/', handler(async (req, res) => {
 
 songsRouter.post('/', handler(async (req, res) => {
   const input = parseBody(SongInputSchema, req.body);
-  res.status(201).json(toSongDto(await createSong(currentUser(req).id, input)));
+  res.status(201).json(await createSong(currentUser(req), input));
 }));
 
 songsRouter.get('/:id', handler(async (req, res) => {
-  res.json(toSongDto(await songFor(currentUser(req), 'read', String(req.params.id))));
+  res.json(await getSong(currentUser(req), String(req.params.id)));
 }));
 
 songsRouter.patch('/:id', handler(async (req, res) => {
@@ -28,4 +28,10 @@ songsRouter.patch('/:id', handler(async (req, res) => {
 songsRouter.delete('/:id', handler(async (req, res) => {
   await deleteSong(currentUser(req), String(req.params.id));
   res.status(204).end();
+}));
+
+/** Working and goal tempo: the player's, or set for them by their linked teacher. */
+songsRouter.patch('/:id/tempos', handler(async (req, res) => {
+  const tempos = parseBody(SongTemposSchema, req.body);
+  res.json(await setSongTempos(currentUser(req), String(req.params.id), tempos));
 }));

@@ -7,7 +7,7 @@ import type { Me } from '@/shared/schemas';
 
 /** How the person asking stands to the owner of the thing. */
 export type Relation = 'owner' | 'linked-teacher' | 'admin' | 'other-user' | 'anonymous';
-export type ThingKind = 'song' | 'recording' | 'candidate' | 'practice-entry' | 'passage' | 'note';
+export type ThingKind = 'song' | 'song-tempos' | 'reference' | 'take' | 'recording' | 'candidate' | 'practice-entry' | 'passage' | 'note';
 export type Action = 'read' | 'write';
 
 /**
@@ -17,6 +17,11 @@ export type Action = 'read' | 'write';
  */
 export const ACCESS: Record<ThingKind, Record<Action, readonly Relation[]>> = {
   song: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
+  // A teacher sets a student's working and goal tempo (the student sees who set them) …
+  'song-tempos': { read: ['owner', 'linked-teacher', 'admin'], write: ['owner', 'linked-teacher'] },
+  // … and may add a reference recording to a student's song; takes are the player's own.
+  reference: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner', 'linked-teacher'] },
+  take: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
   recording: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
   candidate: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
   'practice-entry': { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
@@ -28,6 +33,9 @@ export const ACCESS: Record<ThingKind, Record<Action, readonly Relation[]>> = {
 
 const NAMES: Record<ThingKind, string> = {
   song: 'song',
+  'song-tempos': 'song',
+  reference: 'song',
+  take: 'song',
   recording: 'recording',
   candidate: 'candidate tempo',
   'practice-entry': 'practice entry',
@@ -43,8 +51,11 @@ export async function relationTo(user: Me | null | undefined, ownerId: string): 
   return 'other-user';
 }
 
+/** The table's answer for a relation already known (to ask several questions about one owner with one lookup). */
+export const allows = (relation: Relation, action: Action, kind: ThingKind) => ACCESS[kind][action].includes(relation);
+
 export async function may(user: Me | null | undefined, action: Action, kind: ThingKind, ownerId: string): Promise<boolean> {
-  return ACCESS[kind][action].includes(await relationTo(user, ownerId));
+  return allows(await relationTo(user, ownerId), action, kind);
 }
 
 /** Passes when `user` may do `action` to a `kind` owned by `ownerId`; otherwise "not found". */

@@ -1,11 +1,18 @@
 // Passages: named regions of a song's recordings, each with its own working and goal tempo.
 import { Passage, Recording, Song } from '@/server/models';
 import { HttpError } from '@/server/http';
-import type { Me, Passage as PassageDto, PassageInput, PassagePatch } from '@/shared/schemas';
+import type { Me, Passage as PassageDto, PassageInput, PassagePatch, SongTempos } from '@/shared/schemas';
 import { assertMay, missing, type Action } from './access';
 import { songFor } from './songs';
+import { namesOf, setByColumns, setByView } from './users';
 
-export const toPassageDto = (p: Passage): PassageDto => ({
+/** Passages as the API shows them, with who set their tempos. */
+export async function passageViews(passages: Passage[]): Promise<PassageDto[]> {
+  const names = await namesOf(passages.flatMap((p) => [p.workingSetBy, p.goalSetBy]));
+  return passages.map((p) => toPassageDto(p, names));
+}
+
+const toPassageDto = (p: Passage, names: Map<string, string>): PassageDto => ({
   id: p.id,
   songId: p.songId,
   recordingId: p.recordingId,
@@ -16,6 +23,7 @@ export const toPassageDto = (p: Passage): PassageDto => ({
   endBar: p.endBar,
   workingBpm: p.workingBpm,
   goalBpm: p.goalBpm,
+  ...setByView(p, names),
   createdAt: p.createdAt.toISOString(),
   updatedAt: p.updatedAt.toISOString(),
 });
@@ -36,7 +44,7 @@ async function checkRegion(songId: string, recordingId: string, region: { startS
 export async function listPassages(user: Me, songId: string): Promise<PassageDto[]> {
   const song = await songFor(user, 'read', songId);
   await assertMay(user, 'read', 'passage', song.ownerId);
-  return (await Passage.findAll({ where: { songId: song.id }, order: [['recordingId', 'ASC'], ['startSec', 'ASC']] })).map(toPassageDto);
+  return passageViews(await Passage.findAll({ where: { songId: song.id }, order: [['recordingId', 'ASC'], ['startSec', 'ASC']] }));
 }
 
 export async function addPassage(user: Me, songId: string, input: PassageInput): Promise<PassageDto> {
@@ -53,8 +61,9 @@ export async function addPassage(user: Me, songId: string, input: PassageInput):
     endBar: input.endBar ?? null,
     workingBpm: input.workingBpm ?? null,
     goalBpm: input.goalBpm ?? null,
+    ...setByColumns(user.id, { workingBpm: input.workingBpm ?? undefined, goalBpm: input.goalBpm ?? undefined }),
   });
-  return toPassageDto(p);
+  return (await passageViews([p]))[0]!;
 }
 
 /** The passage, when `user` may do `action` to it: passages belong to their song's owner. */
@@ -70,9 +79,18 @@ export async function updatePassage(user: Me, id: string, patch: PassagePatch): 
   const p = await passageFor(user, 'write', id);
   const next = { startSec: patch.startSec ?? p.startSec, endSec: patch.endSec ?? p.endSec, startBar: patch.startBar === undefined ? p.startBar : patch.startBar, endBar: patch.endBar === undefined ? p.endBar : patch.endBar };
   await checkRegion(p.songId, p.recordingId, next);
-  return toPassageDto(await p.update(patch as Partial<Passage>));
+  return (await passageViews([await p.update({ ...(patch as Partial<Passage>), ...setByColumns(user.id, patch) })]))[0]!;
 }
 
 export async function deletePassage(user: Me, id: string): Promise<void> {
   await (await passageFor(user, 'write', id)).destroy();
 }
+
+/** A passage's working and goal tempo, by the player or their linked teacher (who set them is kept). */
+export async function setPassageTempos(user: Me, id: string, tempos: SongTempos): Promise<PassageDto> {
+  const p = await passageFor(user, 'read', id);
+  const song = await Song.findByPk(p.songId, { attributes: ['ownerId'] });
+  await assertMay(user, 'write', 'song-tempos', song?.ownerId);
+  return (await passageViews([await p.update({ ...tempos, ...setByColumns(user.id, tempos) })]))[0]!;
+}
+

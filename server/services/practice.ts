@@ -6,6 +6,7 @@ import type { Me, PracticeEntryDto, PracticeInput } from '@/shared/schemas';
 import { assertMay } from './access';
 import { passageFor } from './passages';
 import { songFor } from './songs';
+import { setByColumns } from './users';
 
 export const toPracticeDto = (p: PracticeEntry): PracticeEntryDto => ({
   id: p.id,
@@ -73,8 +74,9 @@ export async function logPractice(user: Me, songId: string, input: PracticeInput
   if (input.clean) {
     const wholePiece = !where.passage && !where.region.recordingId && !where.label;
     const faster = (working: number | null) => working === null || input.reachedBpm > working;
-    if (where.passage && faster(where.passage.workingBpm)) await where.passage.update({ workingBpm: input.reachedBpm });
-    if (wholePiece && faster(song.workingBpm)) await song.update({ workingBpm: input.reachedBpm });
+    const raised = { workingBpm: input.reachedBpm, ...setByColumns(user.id, { workingBpm: input.reachedBpm }) };
+    if (where.passage && faster(where.passage.workingBpm)) await where.passage.update(raised);
+    if (wholePiece && faster(song.workingBpm)) await song.update(raised);
   }
   return toPracticeDto(entry);
 }

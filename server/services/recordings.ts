@@ -5,14 +5,15 @@ import fs from 'node:fs';
 import type { Readable } from 'node:stream';
 import { sequelize } from '@/server/db';
 import { config } from '@/server/config';
-import { Analysis, Recording, type Song } from '@/server/models';
+import { Analysis, Recording, Song } from '@/server/models';
 import { HttpError } from '@/server/http';
 import { objectStore, type ByteRange } from '@/server/storage';
 import { enqueue, retry } from '@/server/jobs/queue';
 import { analysisRunner } from '@/server/jobs/runner';
 import { checkAudio, type CheckedAudio } from '@/server/analysis/audio-check';
 import { AnalysisSchema, type Analysis as AnalysisDto, type Me, type Recording as RecordingDto, type RecordingKind, type RecordingPatch } from '@/shared/schemas';
-import { assertMay, missing, type Action } from './access';
+import { allows, assertMay, may, missing, relationTo, type Action } from './access';
+import { namesOf, personRef } from './users';
 
 /**
  * The uploaded file name, kept only to show it back. Browsers send a bare name; one with folders or control
@@ -26,8 +27,10 @@ export function checkFileName(name: string | undefined): string | null {
 }
 
 export async function storeRecording(opts: {
-  song: Song;
+  songId: string;
   ownerId: string;
+  /** Who uploaded it when not the owner (a teacher's reference). */
+  uploadedBy: string | null;
   kind: RecordingKind;
   label: string | null;
   originalName: string | null;
@@ -43,8 +46,9 @@ export async function storeRecording(opts: {
     return await sequelize.transaction(async (t) => {
       const recording = await Recording.create(
         {
-          songId: opts.song.id,
+          songId: opts.songId,
           ownerId: opts.ownerId,
+          uploadedBy: opts.uploadedBy,
           kind: opts.kind,
           label: opts.label,
           originalName: opts.originalName,
@@ -65,18 +69,37 @@ export async function storeRecording(opts: {
   }
 }
 
-/** An upload that multer has spooled: judged by its content, stored, and queued for analysis. */
+/**
+ * Whether `user` may add a recording to the song at all (a take: its owner; a reference: also their linked
+ * teacher). Asked before a byte of an upload is accepted.
+ */
+export async function assertMayUploadTo(user: Me, songId: string): Promise<Song> {
+  const song = await Song.findByPk(songId);
+  if (!song) throw missing('song');
+  await assertMay(user, 'read', 'song', song.ownerId);
+  await assertMay(user, 'write', 'reference', song.ownerId);
+  return song;
+}
+
+/**
+ * An upload that multer has spooled: judged by its content, stored, and queued for analysis. It belongs to
+ * the song's owner; a teacher's reference records the teacher as its uploader.
+ */
 export async function addRecording(
   user: Me,
-  song: Song,
+  songId: string,
   upload: { kind: RecordingKind; label: string | null; fileName: string | undefined; spoolFile: string; sizeBytes: number },
 ): Promise<RecordingDto> {
-  await assertMay(user, 'write', 'song', song.ownerId);
+  const song = await assertMayUploadTo(user, songId);
+  if (upload.kind === 'take' && !(await may(user, 'write', 'take', song.ownerId))) {
+    throw new HttpError(403, 'forbidden', 'kind: a take is the player’s own; add this as a reference', 'kind');
+  }
   const originalName = checkFileName(upload.fileName);
   const audio = await checkAudio(upload.spoolFile, config.uploads.maxDurationSec);
-  const recording = await storeRecording({ song, ownerId: user.id, kind: upload.kind, label: upload.label, originalName, spoolFile: upload.spoolFile, sizeBytes: upload.sizeBytes, audio });
+  const uploadedBy = user.id === song.ownerId ? null : user.id;
+  const recording = await storeRecording({ songId: song.id, ownerId: song.ownerId, uploadedBy, kind: upload.kind, label: upload.label, originalName, spoolFile: upload.spoolFile, sizeBytes: upload.sizeBytes, audio });
   analysisRunner()?.poke();
-  return toRecordingDto(recording, null);
+  return toRecordingDto(user, recording, null);
 }
 
 /** The recording, when `user` may do `action` to it (see access.ts); otherwise "recording not found". */
@@ -100,8 +123,11 @@ export function readStoredAnalysis(a: Analysis | null): AnalysisDto | null {
   return null;
 }
 
-export async function toRecordingDto(r: Recording, analysis?: Analysis | null): Promise<RecordingDto> {
+/** The recording as `user` sees it: its analysis (checked), who uploaded it, and what `user` may do with it. */
+export async function toRecordingDto(user: Me, r: Recording, analysis?: Analysis | null): Promise<RecordingDto> {
   const result = readStoredAnalysis(analysis === undefined ? await Analysis.findByPk(r.id) : analysis);
+  const relation = await relationTo(user, r.ownerId);
+  const names = await namesOf([r.uploadedBy]);
   return {
     id: r.id,
     songId: r.songId,
@@ -121,13 +147,15 @@ export async function toRecordingDto(r: Recording, analysis?: Analysis | null): 
     beatLevel: r.beatLevel,
     barOneSec: r.barOneSec,
     nudgeMs: r.nudgeMs,
+    uploadedBy: personRef(r.uploadedBy, names),
+    permissions: { edit: allows(relation, 'write', 'recording'), note: allows(relation, 'write', 'note') },
     analysis: result,
     createdAt: r.createdAt.toISOString(),
   };
 }
 
 export async function getRecording(user: Me, id: string): Promise<RecordingDto> {
-  return toRecordingDto(await recordingFor(user, 'read', id));
+  return toRecordingDto(user, await recordingFor(user, 'read', id));
 }
 
 /** A song's recordings, newest first, with all their analyses read in one query rather than one each. */
@@ -135,7 +163,7 @@ export async function listRecordings(user: Me, song: Song): Promise<RecordingDto
   await assertMay(user, 'read', 'recording', song.ownerId);
   const rows = await Recording.findAll({ where: { songId: song.id }, order: [['createdAt', 'DESC']] });
   const analyses = new Map((await Analysis.findAll({ where: { recordingId: rows.map((r) => r.id) } })).map((a) => [a.recordingId, a]));
-  return Promise.all(rows.map((r) => toRecordingDto(r, analyses.get(r.id) ?? null)));
+  return Promise.all(rows.map((r) => toRecordingDto(user, r, analyses.get(r.id) ?? null)));
 }
 
 /** The waveform peaks as stored (JSON text), once the analysis has made them. */
@@ -160,7 +188,7 @@ export async function patchRecording(user: Me, id: string, patch: RecordingPatch
   if (patch.barOneSec != null && patch.barOneSec > r.durationSec) {
     throw new HttpError(400, 'invalid_body', 'barOneSec: must lie within the recording', 'barOneSec');
   }
-  return toRecordingDto(await r.update(patch as Partial<Recording>));
+  return toRecordingDto(user, await r.update(patch as Partial<Recording>));
 }
 
 /** A failed analysis goes back in the queue. */
@@ -168,7 +196,7 @@ export async function retryRecording(user: Me, id: string): Promise<RecordingDto
   const r = await recordingFor(user, 'write', id);
   if (!(await retry(r.id))) throw new HttpError(409, 'not_failed', 'only a failed analysis can be retried');
   analysisRunner()?.poke();
-  return toRecordingDto(await r.reload());
+  return toRecordingDto(user, await r.reload());
 }
 
 /** Rows first (one transaction), then the file: a failed delete leaves everything in place. */

@@ -2,7 +2,7 @@
 import { CandidateTempo, Song } from '@/server/models';
 import type { Candidate, CandidateInput, CandidatePatch, Me, Song as SongDto } from '@/shared/schemas';
 import { assertMay, missing, type Action } from './access';
-import { songFor, toSongDto } from './songs';
+import { songFor, songView } from './songs';
 
 export const toCandidateDto = (c: CandidateTempo): Candidate => ({
   id: c.id,
@@ -45,5 +45,5 @@ export async function deleteCandidate(user: Me, id: string): Promise<void> {
 export async function chooseTempo(user: Me, songId: string, bpm: number, note: string | null): Promise<SongDto> {
   const song = await songFor(user, 'write', songId);
   if (!(await CandidateTempo.findOne({ where: { songId: song.id, bpm } }))) await CandidateTempo.create({ songId: song.id, bpm, rating: null, note: null });
-  return toSongDto(await song.update({ chosenBpm: bpm, chosenNote: note }));
+  return songView(user, await song.update({ chosenBpm: bpm, chosenNote: note }));
 }

@@ -33,3 +33,33 @@ export async function setPreferences(me: Me, patch: Partial<Preferences>): Promi
   await User.update(patch, { where: { id: me.id } });
   return getPreferences(me);
 }
+
+/** Names of people by id, in one query (for "set by Marta Quist", "uploaded by …"). */
+export async function namesOf(ids: (string | null | undefined)[]): Promise<Map<string, string>> {
+  const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
+  if (!wanted.length) return new Map();
+  return new Map((await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+}
+
+/** { id, name } for a person id, or null. */
+export const personRef = (id: string | null | undefined, names: Map<string, string>) => (id ? { id, name: names.get(id) ?? 'Someone' } : null);
+
+/** The who-and-when of working and goal tempos, as the API shows them. */
+export function setByView(t: { workingSetBy: string | null; workingSetAt: Date | null; goalSetBy: string | null; goalSetAt: Date | null }, names: Map<string, string>) {
+  return {
+    workingSetBy: personRef(t.workingSetBy, names),
+    workingSetAt: t.workingSetAt?.toISOString() ?? null,
+    goalSetBy: personRef(t.goalSetBy, names),
+    goalSetAt: t.goalSetAt?.toISOString() ?? null,
+  };
+}
+
+/** The columns that record who set the working and goal tempo in `patch` (only those it changes). */
+export function setByColumns(userId: string, patch: { workingBpm?: number | null; goalBpm?: number | null }) {
+  const now = new Date();
+  return {
+    ...(patch.workingBpm !== undefined ? { workingSetBy: userId, workingSetAt: now } : {}),
+    ...(patch.goalBpm !== undefined ? { goalSetBy: userId, goalSetAt: now } : {}),
+  };
+}
+
