@@ -3,10 +3,11 @@
 import type { Analysis } from '@/shared/analysis';
 import { onsetEnvelope } from './onset';
 import { bpmToLag, globalPeriodicity, localPulse, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
-import { estimateTempo, relationTo, round1, round3 } from './tempo';
+import { estimateTempo, relationTo } from './tempo';
+import { round } from './numbers';
 import { trackBeats } from './beats';
 import { estimateMeter } from './meter';
-import { regressionBpm, summarise, tempoCurve, round, interBeatTempi, median } from './curve';
+import { regressionBpm, summarise, tempoCurve, interBeatTempi, median } from './curve';
 import { ANALYSIS_RATE, resample } from './resample';
 
 const TEMPO_PATH_RANGE = 1.32;
@@ -80,11 +81,11 @@ export function analyse(samples: Float32Array, sampleRate: number): Analysis {
   const bpm = fromBeats && Math.abs(fromBeats / tempo.bpm - 1) < 0.5 ? fromBeats : tempo.bpm;
 
   const candidates = tempo.candidates.map((c, i) =>
-    i === 0 ? { ...c, bpm: round1(bpm) } : { ...c, relation: relationTo(c.bpm, bpm) },
+    i === 0 ? { ...c, bpm: round(bpm, 1) } : { ...c, relation: relationTo(c.bpm, bpm) },
   );
   return finish({
     bpm: round(bpm, 2),
-    confidence: round3(confidenceFrom(tempo.strength, summary?.stabilityCv ?? 1)),
+    confidence: round(confidenceFrom(tempo.strength, summary?.stabilityCv ?? 1), 3),
     candidates,
     beats,
     downbeats,
