@@ -1,7 +1,8 @@
 // Written by `npm run train:level` (fixtures/train-level.ts): the metrical-level model fitted on the 70
 // GTZAN clips of ../shared/reference-data/real-recordings (10 styles, published tempi from the
 // GTZAN-Rhythm annotations, Marchand & Peeters 2015), all of them. Cross-validated figures (leave one style
-// out): `npm run eval:tempo -- --real`. Features, in order: logTempo, logTempoSquared, comb, pulse, bassPulse, subdivision, beatsPerOnset, beatsPerOnsetSquared.
+// out): `npm run eval:tempo -- --real`. Features, in order:
+// logTempo, logTempoSquared, comb, pulse, bassPulse, subdivision, beatsPerOnset, beatsPerOnsetSquared.
 import type { LevelModel } from './level';
 
 export const LEVEL_MODEL: LevelModel = {
