@@ -34,6 +34,12 @@ export const CurvePointSchema = z.object({
 });
 export type CurvePoint = z.infer<typeof CurvePointSchema>;
 
+export const MetricalLevelSchema = z.object({
+  bpm: z.number(),
+  strength: z.number(),
+});
+export type MetricalLevel = z.infer<typeof MetricalLevelSchema>;
+
 export const AnalysisSchema = z.object({
   /** Global tempo; null when no beat could be found (silence, a single sound). */
   bpm: z.number().nullable(),
@@ -52,6 +58,16 @@ export const AnalysisSchema = z.object({
   /** Coefficient of variation of beat-to-beat tempo (0 = perfectly steady). */
   stabilityCv: z.number().nullable(),
   beatCount: z.number(),
+  /**
+   * True when the beat could as well be heard at the half or double tempo: the two metrical levels are
+   * close, and the product should offer both (see `levels`). Absent in analyses by engine version 1.
+   */
+  levelAmbiguous: z.boolean().default(false),
+  /**
+   * The chosen metrical level first, then its rival at the half or double tempo when there is one; strength
+   * is the level model's probability for each (0…1).
+   */
+  levels: z.array(MetricalLevelSchema).default([]),
   durationSec: z.number(),
   analysisMs: z.number(),
 });

@@ -1,13 +1,16 @@
 // The tempo engine: samples in, analysis out. Each stage is one function in its own file, called here in
-// the order the signal flows: onset → periodicity → tempo → beats → meter → curve → summary.
+// the order the signal flows: onset → periodicity → tempo → metrical level → beats → meter → curve → summary.
 import type { Analysis } from '@/shared/analysis';
 import { onsetEnvelope } from './onset';
 import { bpmToLag, globalPeriodicity, localPulse, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
-import { estimateTempo, relationTo, round1, round3 } from './tempo';
+import { estimateTempo, relationTo } from './tempo';
+import { round } from './numbers';
 import { trackBeats } from './beats';
 import { estimateMeter } from './meter';
-import { regressionBpm, summarise, tempoCurve, round, interBeatTempi, median } from './curve';
+import { regressionBpm, summarise, tempoCurve, interBeatTempi, median } from './curve';
 import { ANALYSIS_RATE, resample } from './resample';
+import { chooseLevel, levelCandidates, type LevelCandidate, type LevelModel } from './level';
+import { LEVEL_MODEL } from './level-weights';
 
 const TEMPO_PATH_RANGE = 1.32;
 /** Beat-to-beat tempo varying less than this (coefficient of variation) counts as a steady piece. */
@@ -18,7 +21,12 @@ const STEADY_CV = 0.03;
  */
 const ONSET_LATENCY_SEC = -0.013;
 
-export function analyse(samples: Float32Array, sampleRate: number): Analysis {
+export interface AnalyseOptions {
+  /** The metrical-level model; the shipped one (level-weights.ts) unless given (cross-validation). */
+  levelModel?: LevelModel;
+}
+
+export function analyse(samples: Float32Array, sampleRate: number, options: AnalyseOptions = {}): Analysis {
   const started = performance.now();
   const audio = sampleRate === ANALYSIS_RATE ? samples : resample(samples, sampleRate, ANALYSIS_RATE);
   const durationSec = samples.length / sampleRate;
@@ -37,6 +45,8 @@ export function analyse(samples: Float32Array, sampleRate: number): Analysis {
     driftPct: null,
     stabilityCv: null,
     beatCount: 0,
+    levelAmbiguous: false,
+    levels: [],
     durationSec: round(durationSec, 3),
     analysisMs: 0,
   };
@@ -50,10 +60,12 @@ export function analyse(samples: Float32Array, sampleRate: number): Analysis {
   const periodicity = globalPeriodicity(env.strength, fr);
   const tempo = estimateTempo(periodicity, (b) => localPulse(env.strength, fr, b));
   if (!tempo) return finish(empty);
+  const level = chooseLevel(levelCandidates(periodicity, env.strength, env.low, tempo.bpm), options.levelModel ?? LEVEL_MODEL);
+  const globalBpm = level?.bpm ?? tempo.bpm;
 
   // Follow the tempo over time within ±35 % of the global period (a ritardando of a quarter, a ramp from 90 to
   // 130), which keeps the grid on its metrical level: ×4/3 and ×3/2 pulses lie outside it.
-  const lag0 = bpmToLag(tempo.bpm, fr);
+  const lag0 = bpmToLag(globalBpm, fr);
   const minLag = Math.max(2, Math.floor(Math.max(bpmToLag(MAX_BPM, fr), lag0 / TEMPO_PATH_RANGE)));
   const maxLag = Math.ceil(Math.min(bpmToLag(MIN_BPM, fr), lag0 * TEMPO_PATH_RANGE));
   const tg = localTempogram(env.strength, fr, minLag, maxLag);
@@ -77,14 +89,17 @@ export function analyse(samples: Float32Array, sampleRate: number): Analysis {
   // Steady pieces: the regression through all beats gives sub-BPM precision; otherwise the median beat tempo.
   const steady = summary !== null && summary.stabilityCv < STEADY_CV && Math.abs(summary.driftPct) < 3;
   const fromBeats = steady ? regressionBpm(beats) : beats.length > 2 ? median(interBeatTempi(beats).map((x) => x.bpm)) : null;
-  const bpm = fromBeats && Math.abs(fromBeats / tempo.bpm - 1) < 0.5 ? fromBeats : tempo.bpm;
+  const bpm = fromBeats && Math.abs(fromBeats / globalBpm - 1) < 0.5 ? fromBeats : globalBpm;
 
-  const candidates = tempo.candidates.map((c, i) =>
-    i === 0 ? { ...c, bpm: round1(bpm) } : { ...c, relation: relationTo(c.bpm, bpm) },
-  );
+  // The chosen tempo first, then the other periodicity peaks named by their relation to it.
+  const chosenScore = tempo.candidates.find((c) => Math.abs(c.bpm / globalBpm - 1) <= 0.04)?.score ?? 0;
+  const candidates = [
+    { bpm: round(bpm, 1), score: chosenScore, relation: 'primary' as const },
+    ...tempo.candidates.filter((c) => Math.abs(c.bpm / globalBpm - 1) > 0.04).map((c) => ({ ...c, relation: relationTo(c.bpm, bpm) })),
+  ];
   return finish({
     bpm: round(bpm, 2),
-    confidence: round3(confidenceFrom(tempo.strength, summary?.stabilityCv ?? 1)),
+    confidence: round(confidenceFrom(tempo.strength, summary?.stabilityCv ?? 1), 3),
     candidates,
     beats,
     downbeats,
@@ -95,9 +110,21 @@ export function analyse(samples: Float32Array, sampleRate: number): Analysis {
     driftPct: summary?.driftPct ?? null,
     stabilityCv: summary?.stabilityCv ?? null,
     beatCount: beats.length,
+    levelAmbiguous: level?.ambiguous ?? false,
+    levels: level?.levels ?? [],
     durationSec: round(durationSec, 3),
     analysisMs: 0,
   });
+}
+
+/** The metrical-level candidates of a recording with their features, for fitting the level model. */
+export function levelCandidatesOf(samples: Float32Array, sampleRate: number): LevelCandidate[] {
+  const audio = sampleRate === ANALYSIS_RATE ? samples : resample(samples, sampleRate, ANALYSIS_RATE);
+  const env = onsetEnvelope(audio, ANALYSIS_RATE);
+  if (env.strength.length < bpmToLag(MIN_BPM, env.frameRate) * 2) return [];
+  const periodicity = globalPeriodicity(env.strength, env.frameRate);
+  const tempo = estimateTempo(periodicity, (b) => localPulse(env.strength, env.frameRate, b));
+  return tempo ? levelCandidates(periodicity, env.strength, env.low, tempo.bpm) : [];
 }
 
 /** Periodicity strength, discounted when the beats wander: both must hold for a confident answer. */

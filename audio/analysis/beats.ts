@@ -2,6 +2,8 @@
 // 36(1)), with the target period taken frame by frame from the tracked tempo path so the grid follows
 // tempo changes. Beat positions are then refined to the sub-frame peak of the onset envelope.
 
+import { parabolicOffset } from './numbers';
+
 export interface BeatTrackOptions {
   /** How strongly beat-to-beat intervals are held to the local period (Ellis's α; librosa's 100). */
   tightness?: number;
@@ -96,9 +98,5 @@ function refinePeak(onset: Float32Array, f: number): number {
     if (j > 0 && j < onset.length - 1 && onset[j]! > onset[best]!) best = j;
   }
   if (best <= 0 || best >= onset.length - 1 || onset[best]! <= 0) return f;
-  const a = onset[best - 1]!;
-  const b = onset[best]!;
-  const c = onset[best + 1]!;
-  const d = a - 2 * b + c;
-  return d < 0 ? best + Math.max(-0.5, Math.min(0.5, (0.5 * (a - c)) / d)) : best;
+  return best + parabolicOffset(onset, best);
 }

@@ -1,6 +1,7 @@
 // Stage 6 — the tempo curve and its summary, from the beat times: beat-to-beat tempo, lightly smoothed,
 // sampled once a second; start and end tempo, drift and stability (coefficient of variation).
 import type { CurvePoint } from '@/shared/analysis';
+import { round } from './numbers';
 
 /** Tempo of each beat-to-beat interval, placed at the interval's midpoint. */
 export function interBeatTempi(beats: number[]): { t: number; bpm: number }[] {
@@ -89,7 +90,3 @@ export function regressionBpm(beats: number[]): number | null {
 }
 
 export { median };
-export const round = (x: number, digits: number) => {
-  const p = 10 ** digits;
-  return Math.round(x * p) / p;
-};

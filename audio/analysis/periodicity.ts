@@ -1,6 +1,7 @@
 // Stage 2 — periodicity: how strongly the onset envelope repeats at each tempo, over the whole recording
 // (autocorrelation with a comb over the first multiples of the period) and window by window (a local
 // autocorrelation tempogram, Grosche & Müller 2011), from which a tempo path is tracked.
+import { parabolicOffset } from './numbers';
 import { autocorrelation } from './spectrum';
 
 export const MIN_BPM = 30;
@@ -160,19 +161,8 @@ export function trackPeriod(tg: Tempogram, centreLag: number, changePenalty = 30
   for (let j = 1; j < states; j++) if (cost[j]! < cost[state]!) state = j;
   const path = new Array<number>(W);
   for (let w = W - 1; w >= 0; w--) {
-    path[w] = refineLag(tg.values[w]!, state) + tg.minLag;
+    path[w] = state + parabolicOffset(tg.values[w]!, state) + tg.minLag;
     if (w > 0) state = back[w - 1]![state]!;
   }
   return path;
-}
-
-/** Parabolic interpolation around a peak index. */
-export function refineLag(row: ArrayLike<number>, i: number): number {
-  if (i <= 0 || i >= row.length - 1) return i;
-  const a = row[i - 1]!;
-  const b = row[i]!;
-  const c = row[i + 1]!;
-  const d = a - 2 * b + c;
-  if (d >= 0) return i;
-  return i + Math.max(-0.5, Math.min(0.5, (0.5 * (a - c)) / d));
 }

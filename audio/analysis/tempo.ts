@@ -2,6 +2,7 @@
 // as in Ellis 2007 and librosa's beat tracker), with the other strong peaks ranked and named by their
 // relation to it (half, double, dotted …).
 import type { TempoCandidate, TempoRelation } from '@/shared/analysis';
+import { parabolicOffset, round } from './numbers';
 import type { PeriodicityCurve } from './periodicity';
 
 const PRIOR_CENTRE_BPM = 120;
@@ -73,21 +74,13 @@ export function estimateTempo(curve: PeriodicityCurve, pulseAt: (bpm: number) =>
   return {
     bpm: primary,
     strength: best.s,
-    candidates: chosen.map((c) => ({ bpm: round1(c.bpm), score: round3(c.s / top), relation: relationTo(c.bpm, primary) })),
+    candidates: chosen.map((c) => ({ bpm: round(c.bpm, 1), score: round(c.s / top, 3), relation: relationTo(c.bpm, primary) })),
   };
 }
 
 function refinePeakBpm(bpm: Float32Array, score: Float32Array, i: number): number {
   if (i <= 0 || i >= score.length - 1) return bpm[i]!;
-  const a = score[i - 1]!;
-  const b = score[i]!;
-  const c = score[i + 1]!;
-  const d = a - 2 * b + c;
-  const off = d < 0 ? Math.max(-0.5, Math.min(0.5, (0.5 * (a - c)) / d)) : 0;
   // The grid is log-spaced: interpolate in log-tempo.
   const step = Math.log(bpm[i + 1]! / bpm[i]!);
-  return bpm[i]! * Math.exp(off * step);
+  return bpm[i]! * Math.exp(parabolicOffset(score, i) * step);
 }
-
-export const round1 = (x: number) => Math.round(x * 10) / 10;
-export const round3 = (x: number) => Math.round(x * 1000) / 1000;

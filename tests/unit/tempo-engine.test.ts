@@ -106,3 +106,30 @@ test('audio at 44.1 kHz is resampled to the analysis rate and reads the same tem
   const a = analyse(clickTrack(truth, 20, 44100), 44100);
   expect(Math.abs(a.bpm! - 140)).toBeLessThanOrEqual(0.5);
 });
+
+describe('metrical level', () => {
+  // Two pulses an octave apart: clicks at 70 BPM and, between them, clicks at one fifth of the amplitude,
+  // so the 140 BPM pulse has every other beat accented. Heard either way (a slow beat with off-beats, or a
+  // fast one accented on one and three), so the engine must say so and offer both tempos.
+  const fast = steadyBeats(140, 30);
+  const strong = clickTrack(fast.filter((_, i) => i % 2 === 0), 30);
+  const soft = clickTrack(fast.filter((_, i) => i % 2 === 1), 30);
+  const both = strong.map((v, i) => v + 0.2 * soft[i]!);
+
+  test('pulses at 70 and 140 BPM of about equal weight: flagged ambiguous, both tempos with their strengths', () => {
+    const a = analyse(both, RATE);
+    expect(a.levelAmbiguous).toBe(true);
+    const tempos = a.levels.map((l) => l.bpm).sort((x, y) => x - y);
+    expect(tempos).toHaveLength(2);
+    // Within 4 % (Accuracy1's tolerance, Gouyon et al. 2006) of 70 and of 140.
+    expect(Math.abs(tempos[0]! / 70 - 1)).toBeLessThanOrEqual(0.04);
+    expect(Math.abs(tempos[1]! / 140 - 1)).toBeLessThanOrEqual(0.04);
+    for (const l of a.levels) expect(l.strength).toBeGreaterThan(0.25);
+  });
+
+  test.each([120, 60, 177])('a plain %p BPM click track is not ambiguous', (bpm) => {
+    const a = analyse(clickTrack(steadyBeats(bpm, 30), 30), RATE);
+    expect(a.levelAmbiguous).toBe(false);
+    expect(Math.abs(a.levels[0]!.bpm / bpm - 1)).toBeLessThanOrEqual(0.04);
+  });
+});
