@@ -1,7 +1,7 @@
 // SWR hooks: how screens read server data. Mutations revalidate the keys they change.
 import useSWR, { mutate } from 'swr';
 import { ApiRequestError, apiFetch, fetcher } from './api';
-import type { Candidate, Invitation, Me, PeaksDto, PracticeEntryDto, PracticeInput, ReceivedInvitation, Recording, RecordingPatch, Role, Song, SongInput, Student, Teacher, UserSummary } from '@/shared/schemas';
+import type { Candidate, Invitation, Me, Note, NoteInput, NotePatch, PeaksDto, PracticeEntryDto, PracticeInput, Preferences, ReceivedInvitation, Recording, RecordingPatch, Role, Song, SongInput, SongPatch, SongTempos, Student, Teacher, UserSummary } from '@/shared/schemas';
 
 export function useMe() {
   const { data, error, isLoading } = useSWR<Me>('/api/me', fetcher, { shouldRetryOnError: false });
@@ -173,4 +173,72 @@ export async function logPractice(songId: string, input: PracticeInput) {
   await mutate(`/api/songs/${songId}`);
   await mutate('/api/songs');
   return entry;
+}
+
+// ── Notes on a recording ─────────────────────────────────────────────────────────────────────────────
+
+const notesKey = (recordingId: string) => `/api/recordings/${recordingId}/notes`;
+
+export function useNotes(recordingId: string) {
+  const { data, error } = useSWR<{ notes: Note[] }>(notesKey(recordingId), fetcher, { refreshInterval: 30_000 });
+  return { notes: data?.notes, error };
+}
+
+export async function addNote(recordingId: string, input: NoteInput) {
+  await apiFetch(notesKey(recordingId), { body: input });
+  await mutate(notesKey(recordingId));
+}
+
+export async function replyToNote(recordingId: string, noteId: string, text: string) {
+  await apiFetch(`/api/notes/${noteId}/replies`, { body: { text } });
+  await mutate(notesKey(recordingId));
+}
+
+export async function changeNote(recordingId: string, noteId: string, patch: NotePatch) {
+  await apiFetch(`/api/notes/${noteId}`, { method: 'PATCH', body: patch });
+  await mutate(notesKey(recordingId));
+}
+
+export async function deleteNote(recordingId: string, noteId: string) {
+  await apiFetch(`/api/notes/${noteId}`, { method: 'DELETE' });
+  await mutate(notesKey(recordingId));
+}
+
+// ── Settings ─────────────────────────────────────────────────────────────────────────────────────────
+
+export function usePreferences() {
+  const { data } = useSWR<Preferences>('/api/me/preferences', fetcher);
+  return { preferences: data };
+}
+
+export async function setPreferences(patch: Partial<Preferences>) {
+  await apiFetch('/api/me/preferences', { method: 'PATCH', body: patch });
+  await mutate('/api/me/preferences');
+}
+
+/** Working and goal tempo of a song, by its player or their teacher. */
+export async function setSongTempos(songId: string, tempos: SongTempos) {
+  await apiFetch(`/api/songs/${songId}/tempos`, { method: 'PATCH', body: tempos });
+  await mutate(`/api/songs/${songId}`);
+}
+
+export async function changeSong(id: string, patch: SongPatch) {
+  await apiFetch(`/api/songs/${id}`, { method: 'PATCH', body: patch });
+  await Promise.all([mutate(`/api/songs/${id}`), mutate('/api/songs')]);
+}
+
+/** Deletes the song with its recordings, passages, candidates and log. */
+export async function deleteSong(id: string) {
+  await apiFetch(`/api/songs/${id}`, { method: 'DELETE' });
+  await mutate('/api/songs');
+}
+
+export async function renameRecording(r: Recording, label: string | null) {
+  await apiFetch(`/api/recordings/${r.id}`, { method: 'PATCH', body: { label } });
+  await Promise.all([mutate(`/api/recordings/${r.id}`), mutate(`/api/songs/${r.songId}/recordings`)]);
+}
+
+export async function deleteRecording(r: Recording) {
+  await apiFetch(`/api/recordings/${r.id}`, { method: 'DELETE' });
+  await mutate(`/api/songs/${r.songId}/recordings`);
 }

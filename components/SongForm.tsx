@@ -7,13 +7,17 @@ import { fieldProblems } from '@/shared/messages';
 
 const optionalNumber = (s: string) => (s.trim() === '' ? null : Number(s.replace(',', '.')));
 
-/** New song: title, composer, meter, goal and working tempo. Validated with the same schema as the server. */
-export function SongForm({ onSubmit, onCancel }: { onSubmit: (input: SongInput) => Promise<void>; onCancel: () => void }) {
-  const [title, setTitle] = useState('');
-  const [composer, setComposer] = useState('');
-  const [meter, setMeter] = useState('4/4');
-  const [goal, setGoal] = useState('');
-  const [working, setWorking] = useState('');
+/**
+ * A song's title, composer, meter, goal and working tempo, new or changed (`initial`). Validated with the same
+ * schema as the server.
+ */
+export function SongForm({ onSubmit, onCancel, initial }: { onSubmit: (input: SongInput) => Promise<void>; onCancel: () => void; initial?: SongInput }) {
+  const text = (n: number | null | undefined) => (n == null ? '' : String(n));
+  const [title, setTitle] = useState(initial?.title ?? '');
+  const [composer, setComposer] = useState(initial?.composer ?? '');
+  const [meter, setMeter] = useState(initial?.meter ?? '4/4');
+  const [goal, setGoal] = useState(text(initial?.goalBpm));
+  const [working, setWorking] = useState(text(initial?.workingBpm));
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [failure, setFailure] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -43,7 +47,7 @@ export function SongForm({ onSubmit, onCancel }: { onSubmit: (input: SongInput) 
 
   return (
     <Card testID="song-form">
-      <Heading level={3}>New song</Heading>
+      <Heading level={3}>{initial ? 'Change the song' : 'New song'}</Heading>
       <View style={{ gap: space.md }}>
         <Field label="Title" value={title} onChangeText={setTitle} error={errors.title} testID="song-title" />
         <Field label="Composer or artist" value={composer} onChangeText={setComposer} error={errors.composer} />

@@ -15,9 +15,9 @@ const kinds: { value: RecordingKind; label: string; hint: string }[] = [
   { value: 'reference', label: 'Reference', hint: 'Someone else’s recording you learn from.' },
 ];
 
-export function UploadPanel({ songId, onUploaded }: { songId: string; onUploaded: (r: Recording) => void }) {
+export function UploadPanel({ songId, onUploaded, takes = true }: { songId: string; onUploaded: (r: Recording) => void; /** False for a teacher: references only. */ takes?: boolean }) {
   const [file, setFile] = useState<File | null>(null);
-  const [kind, setKind] = useState<RecordingKind>('take');
+  const [kind, setKind] = useState<RecordingKind>(takes ? 'take' : 'reference');
   const [label, setLabel] = useState('');
   const [progress, setProgress] = useState<number | null>(null);
   const [error, setError] = useState<string | null>(null);
@@ -44,7 +44,7 @@ export function UploadPanel({ songId, onUploaded }: { songId: string; onUploaded
       <Heading level={3}>Add a recording</Heading>
       <FilePicker onPick={setFile} fileName={file?.name} testID="file-input" />
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }} role="radiogroup" aria-label="Whose recording">
-        {kinds.map((k) => (
+        {kinds.filter((k) => takes || k.value === 'reference').map((k) => (
           <Pressable
             key={k.value}
             role="radio"

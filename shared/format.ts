@@ -30,3 +30,23 @@ export const formatDate = (iso: string | Date, locale?: string) =>
 /** A date and time in the reader's own locale. */
 export const formatDateTime = (iso: string | Date, locale?: string) =>
   new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric', hour: 'numeric', minute: '2-digit' }).format(new Date(iso));
+
+/**
+ * Whose something is, as a label: "Your take" for one's own, "Ilya’s take" for someone else's (first name, an
+ * apostrophe and s: common practice in English, names ending in s included).
+ */
+export function whose(thing: string, owner: { id: string; name: string }, meId: string | undefined): string {
+  if (owner.id === meId) return `Your ${thing}`;
+  const first = owner.name.trim().split(/\s+/)[0] || 'Someone';
+  return `${first}’s ${thing}`;
+}
+
+
+/** "0:42", "1:05.5" or "42" (seconds) → seconds; null for anything else. */
+export function parseClock(text: string): number | null {
+  const m = /^\s*(?:(\d+):)?(\d+(?:[.,]\d+)?)\s*$/.exec(text);
+  if (!m) return null;
+  const seconds = Number(m[2]!.replace(',', '.'));
+  if (m[1] !== undefined && seconds >= 60) return null;
+  return Number(m[1] ?? 0) * 60 + seconds;
+}

@@ -58,6 +58,8 @@ export type SongPermissions = z.infer<typeof SongPermissionsSchema>;
 
 export const SongSchema = z.object({
   id: z.string(),
+  /** The owner's name, for a teacher's view ("Ilya's song"). */
+  ownerName: z.string(),
   ...SetBySchema,
   permissions: SongPermissionsSchema,
   ownerId: z.string(),
@@ -90,11 +92,22 @@ export type UserSummary = z.infer<typeof UserSummarySchema>;
 export const UserListSchema = z.object({ users: z.array(UserSummarySchema) });
 export const RoleChangeSchema = z.object({ role: RoleSchema });
 
+/** One song of a student as their teacher's overview shows it: tempos toward the goal, practice, recent takes. */
+export const StudentSongSchema = z.object({
+  id: z.string(),
+  title: z.string(),
+  goalBpm: z.number().nullable(),
+  workingBpm: z.number().nullable(),
+  chosenBpm: z.number().nullable(),
+  lastPracticedAt: z.string().nullable(),
+  recentTakes: z.array(z.object({ id: z.string(), label: z.string().nullable(), createdAt: z.string() })),
+});
 export const StudentSchema = z.object({
   id: z.string(),
   name: z.string(),
   email: z.string(),
   songCount: z.number().int(),
+  songs: z.array(StudentSongSchema),
 });
 export type Student = z.infer<typeof StudentSchema>;
 export const StudentListSchema = z.object({ students: z.array(StudentSchema) });
@@ -202,6 +215,8 @@ export const RecordingSchema = z.object({
   beatLevel: BeatLevelSchema,
   barOneSec: z.number().nullable(),
   nudgeMs: z.number(),
+  /** The owner's name, for a teacher's view ("Ilya's take"). */
+  ownerName: z.string(),
   /** Who uploaded it when not its owner (a teacher's reference); null when the owner did. */
   uploadedBy: PersonRefSchema.nullable(),
   /** What the person asking may do: change and correct it (the owner), write notes on it (owner and teacher). */

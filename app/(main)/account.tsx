@@ -5,6 +5,7 @@ import { View } from 'react-native';
 import { Body, Button, Card, Heading, Screen, Small } from '@/components/ui';
 import { RoleEditor } from '@/components/RoleEditor';
 import { TeachersCard } from '@/components/TeachersCard';
+import { MailSettings } from '@/components/MailSettings';
 import { space } from '@/components/theme';
 import { signOut } from '@/client/auth';
 import { clearCache, useMe } from '@/client/hooks';
@@ -37,6 +38,7 @@ export default function Account() {
         </View>
       </Card>
       <TeachersCard />
+      <MailSettings />
       {me.role === 'admin' ? <RoleEditor selfId={me.id} /> : null}
     </Screen>
   );

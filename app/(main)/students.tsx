@@ -1,9 +1,11 @@
 // Students: a teacher's studio. A student is linked only after accepting the teacher's invitation; either side
 // can end the link. Only teachers (and admins) see this screen; the server enforces it too.
 import React, { useState } from 'react';
-import { View } from 'react-native';
-import { Body, Button, Card, EmptyState, Field, Heading, Loading, Notice, Row, Screen, Small } from '@/components/ui';
-import { space } from '@/components/theme';
+import { Pressable, View } from 'react-native';
+import { useRouter } from 'expo-router';
+import { Body, Button, Card, Chip, EmptyState, Field, Heading, Loading, Notice, Row, Screen, Small } from '@/components/ui';
+import { ProgressToGoal } from '@/components/TempoProgress';
+import { colors, space } from '@/components/theme';
 import { inviteStudent, removeStudent, useMe, useSentInvitations, useStudents, withdrawInvitation } from '@/client/hooks';
 import { useAction } from '@/client/useAction';
 import { ScreenTitle } from '@/components/ScreenTitle';
@@ -74,12 +76,29 @@ export default function Students() {
 
 function StudentCard({ student: s }: { student: Student }) {
   const [confirming, setConfirming] = useState(false);
+  const router = useRouter();
   return (
     <Card testID={`student-${s.id}`}>
       <Body style={{ fontWeight: '700' }}>{s.name}</Body>
       <Small>
         {s.email} · {plural(s.songCount, 'song')}
       </Small>
+      {s.songs.map((song) => (
+        <View key={song.id} style={{ gap: space.xs, paddingVertical: space.xs }} testID="student-song">
+          <Pressable role="link" onPress={() => router.navigate(`/songs/${song.id}`)} accessibilityLabel={`Open ${song.title}`}>
+            <Body style={{ fontWeight: '700', color: colors.teal }}>{song.title}</Body>
+          </Pressable>
+          {song.goalBpm ? <ProgressToGoal working={song.workingBpm} goal={song.goalBpm} /> : <Small>No goal tempo yet</Small>}
+          <Small>{song.lastPracticedAt ? `Last practised ${formatDate(song.lastPracticedAt)}` : 'Not practised in Tactus yet'}</Small>
+          {song.recentTakes.length ? (
+            <Row>
+              {song.recentTakes.map((t) => (
+                <Chip key={t.id} compact label={`${t.label ?? 'Take'} · ${formatDate(t.createdAt)}`} onPress={() => router.navigate(`/recordings/${t.id}`)} />
+              ))}
+            </Row>
+          ) : null}
+        </View>
+      ))}
       {confirming ? (
         <Row>
           <Small muted={false}>Stop teaching {s.name} in Tactus? You lose access to their songs at once.</Small>

@@ -142,3 +142,15 @@ export function beatsBetween(grid: Pick<Grid, 'beats' | 'downbeats'>, loop: Pass
   }
   return out;
 }
+
+/**
+ * The region of bars `first`–`last` (1-based, as the player counts them from the first downbeat): from the
+ * downbeat of the first to the downbeat after the last (the end of the recording after the last bar). Null
+ * when the grid has no such bars.
+ */
+export function barsToRegion(first: number, last: number, downbeats: number[], durationSec: number): { start: number; end: number } | null {
+  if (first < 1 || last < first || first > downbeats.length) return null;
+  const start = downbeats[first - 1]!;
+  const end = last < downbeats.length ? downbeats[last]! : durationSec;
+  return end > start ? { start, end } : null;
+}

@@ -127,11 +127,12 @@ export function readStoredAnalysis(a: Analysis | null): AnalysisDto | null {
 export async function toRecordingDto(user: Me, r: Recording, analysis?: Analysis | null): Promise<RecordingDto> {
   const result = readStoredAnalysis(analysis === undefined ? await Analysis.findByPk(r.id) : analysis);
   const relation = await relationTo(user, r.ownerId);
-  const names = await namesOf([r.uploadedBy]);
+  const names = await namesOf([r.uploadedBy, r.ownerId]);
   return {
     id: r.id,
     songId: r.songId,
     ownerId: r.ownerId,
+    ownerName: names.get(r.ownerId) ?? '',
     kind: r.kind,
     label: r.label,
     originalName: r.originalName,

@@ -8,7 +8,7 @@ import { namesOf, setByColumns, setByView } from './users';
 
 /** Songs as `user` sees them: with who set their tempos and what `user` may do with each. */
 export async function songViews(user: Me, songs: Song[]): Promise<SongDto[]> {
-  const names = await namesOf(songs.flatMap((s) => [s.workingSetBy, s.goalSetBy]));
+  const names = await namesOf(songs.flatMap((s) => [s.ownerId, s.workingSetBy, s.goalSetBy]));
   const relations = new Map<string, Awaited<ReturnType<typeof relationTo>>>();
   for (const ownerId of new Set(songs.map((s) => s.ownerId))) relations.set(ownerId, await relationTo(user, ownerId));
   return songs.map((song) => {
@@ -16,6 +16,7 @@ export async function songViews(user: Me, songs: Song[]): Promise<SongDto[]> {
     return {
       id: song.id,
       ownerId: song.ownerId,
+      ownerName: names.get(song.ownerId) ?? '',
       title: song.title,
       composer: song.composer,
       meter: song.meter,

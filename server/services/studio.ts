@@ -3,7 +3,7 @@
 // access module looks the link up on every request).
 import crypto from 'node:crypto';
 import { fn, col, Op } from 'sequelize';
-import { Song, StudioInvitation, StudioLink, User } from '@/server/models';
+import { PracticeEntry, Recording, Song, StudioInvitation, StudioLink, User } from '@/server/models';
 import { config } from '@/server/config';
 import { HttpError, notFound } from '@/server/http';
 import { linkMail, sendMail } from '@/server/mail/mailer';
@@ -116,6 +116,7 @@ export async function declineInvitation(user: Me, id: string): Promise<void> {
   await i.update({ status: 'declined', answeredBy: user.id, answeredAt: new Date() });
 }
 
+/** A teacher's students with their songs: tempos toward the goal, when each was last practised, recent takes. */
 export async function listStudents(teacherId: string): Promise<Student[]> {
   const links = await StudioLink.findAll({
     where: { teacherId },
@@ -123,18 +124,37 @@ export async function listStudents(teacherId: string): Promise<Student[]> {
     order: [['createdAt', 'ASC']],
   });
   const ids = links.map((l) => l.studentId);
-  const counts = ids.length
-    ? ((await Song.findAll({
-        attributes: ['ownerId', [fn('COUNT', col('id')), 'n']],
-        where: { ownerId: ids },
-        group: ['ownerId'],
-        raw: true,
-      })) as unknown as { ownerId: string; n: number }[])
+  if (!ids.length) return [];
+  const songs = await Song.findAll({ where: { ownerId: ids }, order: [['updatedAt', 'DESC']] });
+  const songIds = songs.map((s) => s.id);
+  const practised = songIds.length
+    ? ((await PracticeEntry.findAll({ attributes: ['songId', [fn('MAX', col('createdAt')), 'last']], where: { songId: songIds }, group: ['songId'], raw: true })) as unknown as { songId: string; last: Date }[])
     : [];
-  const byOwner = new Map(counts.map((c) => [c.ownerId, Number(c.n)]));
+  const lastBySong = new Map(practised.map((p) => [p.songId, new Date(p.last).toISOString()]));
+  const takes = songIds.length
+    ? await Recording.findAll({ where: { songId: songIds, kind: 'take' }, attributes: ['id', 'songId', 'label', 'originalName', 'createdAt'], order: [['createdAt', 'DESC']] })
+    : [];
+  const takesBySong = new Map<string, Recording[]>();
+  for (const t of takes) takesBySong.set(t.songId, [...(takesBySong.get(t.songId) ?? []), t]);
   return links.map((l) => {
     const s = (l as StudioLink & { student: User }).student;
-    return { id: s.id, name: s.name, email: s.email, songCount: byOwner.get(s.id) ?? 0 };
+    const own = songs.filter((song) => song.ownerId === s.id);
+    return {
+      id: s.id,
+      name: s.name,
+      email: s.email,
+      songCount: own.length,
+      songs: own.map((song) => ({
+        id: song.id,
+        title: song.title,
+        goalBpm: song.goalBpm,
+        workingBpm: song.workingBpm,
+        chosenBpm: song.chosenBpm,
+        lastPracticedAt: lastBySong.get(song.id) ?? null,
+        // The three newest takes are what a teacher looks at before a lesson.
+        recentTakes: (takesBySong.get(song.id) ?? []).slice(0, 3).map((t) => ({ id: t.id, label: t.label ?? t.originalName, createdAt: t.createdAt.toISOString() })),
+      })),
+    };
   });
 }
 

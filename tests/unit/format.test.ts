@@ -1,7 +1,7 @@
 // How numbers read on screen. Worked examples by hand; the notations are common practice: durations as
 // minutes:seconds (m:ss, as players and track lists show them), tempos in BPM to a tenth at most, and English
 // count nouns singular for exactly one ("1 repetition"), plural otherwise, zero included ("0 repetitions").
-import { formatBpm, formatClock, formatDate, formatDuration, plural, tenth } from '@/shared/format';
+import { formatBpm, formatClock, formatDate, formatDuration, plural, parseClock, tenth, whose } from '@/shared/format';
 
 describe('tenth', () => {
   test('rounds to one decimal place', () => {
@@ -72,4 +72,20 @@ test('dates read in the reader’s locale with the month in words (Unicode CLDR 
   expect(formatDate(day, 'en-GB')).toBe('2 Dec 2026');
   expect(formatDate(day, 'en-US')).toBe('Dec 2, 2026');
   expect(formatDate(day, 'de-DE')).toBe('2. Dez. 2026');
+});
+
+test('whose: one’s own things are "your", someone else’s carry their first name', () => {
+  const ilya = { id: 'u1', name: 'Ilya Brandt' };
+  expect(whose('take', ilya, 'u1')).toBe('Your take');
+  expect(whose('take', ilya, 'u2')).toBe('Ilya’s take');
+  expect(whose('song', { id: 'u3', name: 'Tomás Reyes' }, 'u2')).toBe('Tomás’s song');
+});
+
+test('a moment typed as m:ss, m:ss.s or plain seconds (worked examples by hand)', () => {
+  expect(parseClock('0:42')).toBe(42);
+  expect(parseClock('1:05.5')).toBe(65.5);
+  expect(parseClock('42')).toBe(42);
+  expect(parseClock('3:30,0')).toBe(210);
+  expect(parseClock('1:75')).toBeNull();
+  expect(parseClock('soon')).toBeNull();
 });

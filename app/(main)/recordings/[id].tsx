@@ -10,9 +10,11 @@ import { TempoCorrection } from '@/components/TempoCorrection';
 import { AuditionPanel } from '@/components/AuditionPanel';
 import { TempoCurveChart } from '@/components/charts/TempoCurveChart';
 import { apiBase } from '@/client/api';
-import { formatBpm, formatDuration, plural, tenth } from '@/shared/format';
+import { formatBpm, formatDuration, plural, tenth, whose } from '@/shared/format';
 import { colors, space, type } from '@/components/theme';
 import { correctRecording, retryAnalysis, useMe, usePeaks, useRecording, useSong } from '@/client/hooks';
+import { NotesPanel } from '@/components/NotesPanel';
+import { ScreenTitle } from '@/components/ScreenTitle';
 
 export default function RecordingScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
@@ -28,11 +30,13 @@ export default function RecordingScreen() {
 
   return (
     <Screen testID="recording" wide>
+      <ScreenTitle title={[r.label || r.originalName || "Recording", song?.title].filter(Boolean).join(" · ")} />
       <Button label="‹ Song" kind="quiet" onPress={() => router.navigate(`/songs/${r.songId}`)} />
       <View style={{ gap: space.xs }}>
         <Heading>{r.label || r.originalName || 'Recording'}</Heading>
         <Small>
-          {r.kind === 'take' ? 'Your take' : 'Reference'} · {r.format.toUpperCase()} · {formatDuration(r.durationSec)}
+          {whose(r.kind === 'take' ? 'take' : 'reference', { id: r.ownerId, name: r.ownerName }, me?.id)}
+          {r.uploadedBy ? ` (added by ${r.uploadedBy.name})` : ''} · {r.format.toUpperCase()} · {formatDuration(r.durationSec)}
         </Small>
       </View>
 
@@ -46,7 +50,7 @@ export default function RecordingScreen() {
       {r.status === 'failed' ? (
         <Card>
           <Notice tone="error">{r.error ?? 'The analysis failed.'}</Notice>
-          <Button label="Try the analysis again" onPress={() => retryAnalysis(r.id)} />
+          {r.permissions.edit ? <Button label="Try the analysis again" onPress={() => retryAnalysis(r.id)} /> : null}
         </Card>
       ) : null}
 
@@ -65,7 +69,7 @@ export default function RecordingScreen() {
             {a.confidence < 0.4 ? <Notice tone="caution">Tactus is not sure about this one: check it by tapping along.</Notice> : null}
           </Card>
           {bpm !== null ? (
-            <AuditionPanel key={`${r.id}-${bpm}`} recording={r} song={song} peaks={peaks} canEdit={!!me && r.ownerId === me.id} audioUrl={`${apiBase}/api/recordings/${r.id}/audio`} />
+            <AuditionPanel key={`${r.id}-${bpm}`} recording={r} song={song} peaks={peaks} canEdit={r.permissions.edit} audioUrl={`${apiBase}/api/recordings/${r.id}/audio`} />
           ) : peaks ? (
             <Card>
               <Waveform minMax={peaks.minMax} durationSec={peaks.durationSec} beats={a.beats} downbeats={a.downbeats} testID="waveform" />
@@ -75,7 +79,8 @@ export default function RecordingScreen() {
             <Heading level={3}>Tempo across the recording</Heading>
             <TempoCurveChart analysis={a} song={song} />
           </Card>
-          {bpm !== null ? (
+          <NotesPanel recording={r} />
+          {bpm !== null && r.permissions.edit ? (
             <Card>
               <Heading level={3}>Correct the tempo</Heading>
               <TempoCorrection analysis={a} current={bpm} onChoose={(value) => correctRecording(r.id, { correctedBpm: value })} />

@@ -8,13 +8,16 @@ import { UploadPanel } from '@/components/UploadPanel';
 import { RecordingRow } from '@/components/RecordingRow';
 import { space } from '@/components/theme';
 import { ScreenTitle } from '@/components/ScreenTitle';
-import { useRecordings, useSong } from '@/client/hooks';
+import { useMe, useRecordings, useSong } from '@/client/hooks';
+import { EditOrDeleteSong, RecordingActions, SetTempos, TemposSetBy } from '@/components/SongManagement';
+import { whose } from '@/shared/format';
 
 export default function SongScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const router = useRouter();
   const { song, error } = useSong(id);
   const { recordings } = useRecordings(id);
+  const { me } = useMe();
   if (error) return <Screen><Notice tone="error">This song could not be opened: {error.message}</Notice></Screen>;
   if (!song) return <Loading />;
   return (
@@ -23,9 +26,12 @@ export default function SongScreen() {
       <Button label="‹ Library" kind="quiet" onPress={() => router.navigate('/')} />
       <View style={{ gap: space.xs }}>
         <Heading>{song.title}</Heading>
-        <Small>{[song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
+        <Small>{[song.ownerId === me?.id ? null : whose('song', { id: song.ownerId, name: song.ownerName }, me?.id), song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
       </View>
       <SongTempos working={song.workingBpm} goal={song.goalBpm} chosen={song.chosenBpm} />
+      <TemposSetBy song={song} meId={me?.id} />
+      {song.permissions.setTempos ? <SetTempos key={`${song.workingBpm}-${song.goalBpm}`} song={song} /> : null}
+      {song.permissions.edit ? <EditOrDeleteSong song={song} recordingCount={recordings?.length ?? 0} onDeleted={() => router.replace('/')} /> : null}
       <Heading level={2}>Recordings</Heading>
       {recordings && recordings.length === 0 ? (
         <EmptyState title="No recordings yet">
@@ -33,8 +39,15 @@ export default function SongScreen() {
           other tempos with a click.
         </EmptyState>
       ) : null}
-      {recordings?.map((r) => <RecordingRow key={r.id} recording={r} onOpen={() => router.navigate(`/recordings/${r.id}`)} />)}
-      <UploadPanel songId={song.id} onUploaded={(r) => router.navigate(`/recordings/${r.id}`)} />
+      {recordings?.map((r) => (
+        <View key={r.id} style={{ gap: space.xs }}>
+          <RecordingRow recording={r} onOpen={() => router.navigate(`/recordings/${r.id}`)} />
+          {r.permissions.edit ? <RecordingActions recording={r} /> : null}
+        </View>
+      ))}
+      {song.permissions.addReference ? (
+        <UploadPanel songId={song.id} takes={song.permissions.addTake} onUploaded={(r) => router.navigate(`/recordings/${r.id}`)} />
+      ) : null}
       {song.notes ? <Body muted>{song.notes}</Body> : null}
     </Screen>
   );
