@@ -16,8 +16,11 @@ interface Props {
   onLoop?: (start: number, end: number) => void;
 }
 
+/** A moment as a player says it: "0:42", or "0:42.5" when it falls between seconds. */
+const moment = (sec: number) => formatClock(sec).replace(/\.0$/, '');
+
 export const noteWhere = (n: Pick<Note, 'atSec' | 'startSec' | 'endSec' | 'startBar' | 'endBar'>) =>
-  n.atSec != null ? `at ${formatClock(n.atSec)}` : n.startBar != null ? (n.endBar === n.startBar ? `bar ${n.startBar}` : `bars ${n.startBar}–${n.endBar}`) : `${formatClock(n.startSec ?? 0)}–${formatClock(n.endSec ?? 0)}`;
+  n.atSec != null ? `at ${moment(n.atSec)}` : n.startBar != null ? (n.endBar === n.startBar ? `bar ${n.startBar}` : `bars ${n.startBar}–${n.endBar}`) : `${moment(n.startSec ?? 0)}–${moment(n.endSec ?? 0)}`;
 
 export function NotesPanel({ recording: r, onSeek, onLoop }: Props) {
   const { notes } = useNotes(r.id);
@@ -42,6 +45,7 @@ export function NotesPanel({ recording: r, onSeek, onLoop }: Props) {
 
 function NoteThread({ note: n, recordingId, onSeek, onLoop }: { note: Note; recordingId: string } & Pick<Props, 'onSeek' | 'onLoop'>) {
   const [reply, setReply] = useState('');
+  const [replying, setReplying] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
   const act = (f: () => Promise<void>) => f().catch((e: Error) => setProblem(e.message));
   const go = () => (n.atSec != null ? onSeek?.(n.atSec) : n.startSec != null && n.endSec != null ? onLoop?.(n.startSec, n.endSec) : undefined);
@@ -63,11 +67,23 @@ function NoteThread({ note: n, recordingId, onSeek, onLoop }: { note: Note; reco
           <Body>{rep.text}</Body>
         </View>
       ))}
+      {replying ? (
+        <View style={{ gap: space.sm }}>
+          <Field label="Your reply" value={reply} onChangeText={setReply} multiline testID="note-reply-text" />
+          <Row>
+            <Button
+              label="Send the reply"
+              kind="secondary"
+              disabled={!reply.trim()}
+              onPress={() => act(async () => { await replyToNote(recordingId, n.id, reply.trim()); setReply(''); setReplying(false); })}
+              testID="note-reply-send"
+            />
+            <Button label="Cancel" kind="quiet" onPress={() => setReplying(false)} />
+          </Row>
+        </View>
+      ) : null}
       <Row>
-        <Field label="Reply" value={reply} onChangeText={setReply} testID="note-reply-text" />
-        <Button label="Send" kind="secondary" disabled={!reply.trim()} onPress={() => act(async () => { await replyToNote(recordingId, n.id, reply.trim()); setReply(''); })} testID="note-reply-send" />
-      </Row>
-      <Row>
+        {!replying ? <Button label="Reply" kind="quiet" onPress={() => setReplying(true)} testID="note-reply" /> : null}
         <Button label={n.resolved ? 'Reopen' : 'Mark resolved'} kind="quiet" onPress={() => act(() => changeNote(recordingId, n.id, { resolved: !n.resolved }))} />
         {n.mine ? <Button label="Delete" kind="quiet" onPress={() => act(() => deleteNote(recordingId, n.id))} /> : null}
       </Row>
@@ -110,7 +126,8 @@ function NewNote({ recording: r }: { recording: Recording }) {
     }
   };
   return (
-    <View style={{ gap: space.sm }} testID="new-note">
+    <View style={{ gap: space.sm, marginTop: space.sm }} testID="new-note">
+      <Body style={{ fontWeight: '700' }}>Add a note</Body>
       <Row>
         <Chip label="At a moment" selected={kind === 'moment'} onPress={() => setKind('moment')} testID="note-kind-moment" />
         <Chip label="On bars" selected={kind === 'bars'} onPress={() => setKind('bars')} disabled={!r.analysis?.downbeats.length} testID="note-kind-bars" />

@@ -98,12 +98,12 @@ describe('looping on a straight timeline', () => {
 
 
 describe('bars as a region of the recording', () => {
-  // The grid above: bar 1 starts at 1.0 s and bars are 2 s long (11 downbeats, the last at 21.0 s).
+  // The grid above: bar 1 starts at 1.0 s and bars are 2 s long (10 downbeats, the last at 19.0 s).
   test('bars 2–3 run from the downbeat of bar 2 to that of bar 4', () => {
     expect(barsToRegion(2, 3, downbeats, 21.5)).toEqual({ start: 3, end: 7 });
   });
   test('the last bar ends with the recording; bars outside the grid give nothing', () => {
-    expect(barsToRegion(downbeats.length, downbeats.length, downbeats, 21.5)).toEqual({ start: 21, end: 21.5 });
+    expect(barsToRegion(downbeats.length, downbeats.length, downbeats, 21.5)).toEqual({ start: 19, end: 21.5 });
     expect(barsToRegion(0, 2, downbeats, 21.5)).toBeNull();
     expect(barsToRegion(3, 2, downbeats, 21.5)).toBeNull();
     expect(barsToRegion(40, 41, downbeats, 21.5)).toBeNull();
