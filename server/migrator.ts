@@ -17,12 +17,15 @@ export const migrator = new Umzug({
   logger: undefined,
 });
 
-/** Applies pending migrations; an advisory lock keeps two starting processes from migrating at once. */
-export async function migrate(): Promise<string[]> {
+/**
+ * Applies pending migrations (up to and including `to`, when given); an advisory lock keeps two starting
+ * processes from migrating at once.
+ */
+export async function migrate(to?: string): Promise<string[]> {
   const [[{ got }]] = (await sequelize.query("SELECT GET_LOCK('tactus_migrate', 60) AS got")) as [[{ got: number }], unknown];
   if (got !== 1) throw new Error('could not take the migration lock within 60 s');
   try {
-    const done = await migrator.up();
+    const done = await migrator.up(to ? { to } : undefined);
     return done.map((m) => m.name);
   } finally {
     await sequelize.query("SELECT RELEASE_LOCK('tactus_migrate')");
