@@ -8,15 +8,16 @@ import { answerInvitation, leaveTeacher, useReceivedInvitations, useTeachers } f
 import { formatDate } from '@/shared/format';
 import type { Teacher } from '@/shared/schemas';
 
-export function TeachersCard() {
+/** `invitationsOnly`: just the invitations waiting for an answer (the library shows them too). */
+export function TeachersCard({ invitationsOnly = false }: { invitationsOnly?: boolean }) {
   const { invitations } = useReceivedInvitations();
   const { teachers } = useTeachers();
   const [problem, setProblem] = useState<string | null>(null);
   const answer = (id: string, a: 'accept' | 'decline') => answerInvitation(id, a).catch((e: Error) => setProblem(e.message));
-  if (!invitations?.length && !teachers?.length) return null;
+  if (!invitations?.length && (invitationsOnly || !teachers?.length)) return null;
   return (
     <Card testID="teachers">
-      <Heading level={2}>Teachers</Heading>
+      <Heading level={2}>{invitationsOnly ? 'An invitation' : 'Teachers'}</Heading>
       {invitations?.map((i) => (
         <View key={i.id} style={{ gap: space.sm }} testID="received-invitation">
           <Body>
@@ -30,7 +31,7 @@ export function TeachersCard() {
         </View>
       ))}
       {problem ? <Notice tone="error">{problem}</Notice> : null}
-      {teachers?.map((t) => <TeacherRow key={t.id} teacher={t} />)}
+      {invitationsOnly ? null : teachers?.map((t) => <TeacherRow key={t.id} teacher={t} />)}
     </Card>
   );
 }

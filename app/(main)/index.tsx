@@ -8,6 +8,7 @@ import { SongForm } from '@/components/SongForm';
 import { space } from '@/components/theme';
 import { addSong, useSongs } from '@/client/hooks';
 import { ScreenTitle } from '@/components/ScreenTitle';
+import { TeachersCard } from '@/components/TeachersCard';
 
 export default function Library() {
   const { songs, error, isLoading } = useSongs();
@@ -20,6 +21,7 @@ export default function Library() {
         <Heading>Library</Heading>
         {songs?.length && !adding ? <Button label="Add a song" kind="secondary" onPress={() => setAdding(true)} /> : null}
       </View>
+      <TeachersCard invitationsOnly />
       {error ? <Notice tone="error">Your songs could not be loaded: {error.message}</Notice> : null}
       {isLoading ? <Loading /> : null}
       {adding || (songs && songs.length === 0 && adding) ? (
