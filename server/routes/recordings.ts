@@ -70,10 +70,12 @@ recordingsRouter.get('/:id/audio', handler(async (req, res) => {
     (await audio.open()).pipe(res);
     return;
   }
-  const ranges = rangeParser(size, header, { combine: true });
+  // RFC 9110 §14.1.2: a suffix range longer than the file means the whole file (range-parser calls it unsatisfiable).
+  const suffix = /^bytes=-(\d+)$/.exec(header.trim());
+  const ranges = suffix && Number(suffix[1]) >= size && size > 0 ? Object.assign([{ start: 0, end: size - 1 }], { type: 'bytes' }) : rangeParser(size, header, { combine: true });
   if (ranges === -1 || ranges === -2 || ranges.type !== 'bytes' || ranges.length !== 1) {
     res.setHeader('Content-Range', `bytes */${size}`);
-    throw new HttpError(416, 'bad_range', `the range ${header} cannot be served from ${size} bytes (one bytes range, please)`);
+    throw new HttpError(416, 'bad_range', `that range cannot be served from this file of ${size} bytes (ask for one bytes range)`);
   }
   const { start, end } = ranges[0]!;
   res.status(206);
