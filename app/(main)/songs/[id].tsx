@@ -8,7 +8,8 @@ import { UploadPanel } from '@/components/UploadPanel';
 import { RecordingRow } from '@/components/RecordingRow';
 import { space } from '@/components/theme';
 import { ScreenTitle } from '@/components/ScreenTitle';
-import { useMe, useRecordings, useSong } from '@/client/hooks';
+import { useCandidates, useMe, useRecordings, useSong } from '@/client/hooks';
+import { DurationPlanner } from '@/components/DurationPlanner';
 import { EditOrDeleteSong, RecordingActions, SetTempos, TemposSetBy } from '@/components/SongManagement';
 import { whose } from '@/shared/format';
 
@@ -18,6 +19,7 @@ export default function SongScreen() {
   const { song, error } = useSong(id);
   const { recordings } = useRecordings(id);
   const { me } = useMe();
+  const { candidates } = useCandidates(id);
   if (error) return <Screen><Notice tone="error">This song could not be opened: {error.message}</Notice></Screen>;
   if (!song) return <Loading />;
   return (
@@ -48,6 +50,7 @@ export default function SongScreen() {
       {song.permissions.addReference ? (
         <UploadPanel songId={song.id} takes={song.permissions.addTake} onUploaded={(r) => router.navigate(`/recordings/${r.id}`)} />
       ) : null}
+      <DurationPlanner song={song} recordings={recordings ?? []} candidateBpms={candidates?.map((c) => c.bpm) ?? []} />
       {song.notes ? <Body muted>{song.notes}</Body> : null}
     </Screen>
   );
