@@ -183,7 +183,8 @@ export const RecordingUploadFieldsSchema = z.object({
 
 export const RecordingPatchSchema = z
   .object({
-    label: z.string().trim().max(200).nullable().optional(),
+    /** A name of spaces is no name: stored as none, not as an empty string. */
+    label: z.string().trim().max(200, 'use at most 200 characters').transform((v) => v || null).nullable().optional(),
     correctedBpm: BpmSchema.nullable().optional(),
     beatOffsetSec: z.number().min(0, 'must not be negative').max(3600).nullable().optional(),
     beatLevel: BeatLevelSchema.optional(),

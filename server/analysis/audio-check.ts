@@ -59,6 +59,10 @@ export async function checkAudio(file: string, maxDurationSec: number): Promise<
   }
   if (format === 'wav') await checkWavData(file, size);
   const declared = meta.format.duration ?? 0;
+  // A header that gives no channels or no sample rate yields an infinite or negative length: it is damaged.
+  if (!Number.isFinite(declared) || declared < 0 || meta.format.numberOfChannels === 0) {
+    throw refuse('the file’s header is damaged (it declares no audio channels or no length)', 415);
+  }
   if (declared > maxDurationSec) {
     throw refuse(`the recording is ${Math.round(declared / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`, 413);
   }

@@ -47,6 +47,8 @@ const parser = multer({
   limits: { fileSize: config.uploads.maxBytes, files: 1, fields: 8, fieldSize: 4096 },
   // Keep the name as sent, so one with folders in it can be refused instead of silently shortened.
   preservePath: true,
+  // Browsers send file names as UTF-8 (HTML's form encoding); read them so ("Tomás – café.mp3"), not as Latin-1.
+  defParamCharset: 'utf8',
 }).single('file');
 
 const megabytes = (n: number) => `${Math.round(n / (1024 * 1024))} MB`;

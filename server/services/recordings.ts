@@ -22,6 +22,10 @@ import { namesOf, personRef } from './users';
 export function checkFileName(name: string | undefined): string | null {
   if (!name) return null;
   if (/[\u0000-\u001f\u007f]/.test(name)) throw new HttpError(400, 'invalid_body', 'file: the file name contains control characters', 'file');
+  // Direction controls can make a name display as something else (Unicode TR #36, "bidi spoofing").
+  if (/[\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/.test(name)) {
+    throw new HttpError(400, 'invalid_body', 'file: the file name contains text-direction control characters', 'file');
+  }
   if (/[\\/]/.test(name) || name.split(/[\\/]/).includes('..')) throw new HttpError(400, 'invalid_body', 'file: send the file name without folders', 'file');
   return name.trim().slice(0, 255) || null;
 }

@@ -63,3 +63,48 @@ describe('ranges of a recording’s audio (RFC 9110 §14)', () => {
     expect(res.body.error.message).not.toContain('<script>');
   });
 });
+
+describe('names and headers of uploads', () => {
+  let song: string;
+  const clip = () => fs.readFileSync(path.join(root, 'fixtures/clips/waltz-150.mp3'));
+  beforeAll(async () => {
+    song = (await player.agent.post('/api/songs').send({ title: 'Names' }).expect(201)).body.id;
+  });
+
+  test('a UTF-8 file name is kept as sent', async () => {
+    const res = await player.agent.post(`/api/songs/${song}/recordings`).field('kind', 'take').attach('file', clip(), 'Tomás – café.mp3').expect(201);
+    expect(res.body.originalName).toBe('Tomás – café.mp3');
+  });
+
+  test('a name with a right-to-left override is refused (Unicode TR #36, bidi spoofing)', async () => {
+    const res = await player.agent.post(`/api/songs/${song}/recordings`).field('kind', 'take').attach('file', clip(), 'take\u202Egpm.mp3').expect(400);
+    expect(res.body.error.field).toBe('file');
+  });
+
+  test('a WAV whose header declares no channels is refused as damaged, not "Infinity minutes long"', async () => {
+    // A canonical 44-byte RIFF/WAVE header (fmt chunk: PCM, 0 channels, 44 100 Hz, 16 bits) and a second of zeros.
+    const data = Buffer.alloc(88200);
+    const head = Buffer.alloc(44);
+    head.write('RIFF', 0, 'latin1');
+    head.writeUInt32LE(36 + data.length, 4);
+    head.write('WAVEfmt ', 8, 'latin1');
+    head.writeUInt32LE(16, 16);
+    head.writeUInt16LE(1, 20); // PCM
+    head.writeUInt16LE(0, 22); // channels: none
+    head.writeUInt32LE(44100, 24);
+    head.writeUInt32LE(0, 28); // byte rate follows from the channels
+    head.writeUInt16LE(0, 32);
+    head.writeUInt16LE(16, 34);
+    head.write('data', 36, 'latin1');
+    head.writeUInt32LE(data.length, 40);
+    const res = await player.agent.post(`/api/songs/${song}/recordings`).field('kind', 'take').attach('file', Buffer.concat([head, data]), 'none.wav');
+    expect([400, 413, 415]).toContain(res.status);
+    expect(res.body.error.message).not.toMatch(/Infinity|NaN/);
+  });
+
+  test('a label of spaces is stored as no label', async () => {
+    const id = (await player.agent.post(`/api/songs/${song}/recordings`).field('kind', 'take').attach('file', clip(), 'x.mp3').expect(201)).body.id;
+    const res = await player.agent.patch(`/api/recordings/${id}`).send({ label: '    ' }).expect(200);
+    expect(res.body.label).toBeNull();
+  });
+});
