@@ -20,6 +20,7 @@ import { candidatesRouter, songTemposRouter } from '@/server/routes/tempos';
 import { songPracticeRouter } from '@/server/routes/practice';
 import { passagesRouter, songPassagesRouter } from '@/server/routes/passages';
 import { notesRouter, recordingNotesRouter } from '@/server/routes/notes';
+import { setListsRouter } from '@/server/routes/setlists';
 import type { Health } from '@/shared/schemas';
 
 const { version } = require('../package.json') as { version: string };
@@ -56,6 +57,7 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.use('/api/recordings/:recordingId/notes', recordingNotesRouter);
   app.use('/api/notes', notesRouter);
   app.use('/api/recordings', recordingsRouter);
+  app.use('/api/set-lists', setListsRouter);
   app.use('/api/students', studentsRouter);
   app.use('/api/teachers', teachersRouter);
   app.use('/api/invitations', invitationsRouter);

@@ -44,6 +44,10 @@ import {
   SongInputSchema,
   SongListSchema,
   SongPatchSchema,
+  SetListInputSchema,
+  SetListListSchema,
+  SetListPatchSchema,
+  SetListSchema,
   SongSchema,
   SongTemposSchema,
   StudentListSchema,
@@ -256,6 +260,19 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       ok: { 204: noContent('Deleted.') },
     },
 
+    // ── Set lists ──
+    { method: 'get', path: '/api/set-lists', tag: 'set lists', access: 'signed-in', summary: 'My set lists', ok: { 200: json('Newest first.', s.SetListList) } },
+    {
+      method: 'post', path: '/api/set-lists', tag: 'set lists', access: 'signed-in', summary: 'A new set list of my songs in playing order',
+      body: s.SetListInput, ok: { 201: json('The set list with each song’s click tempo and duration, and the total.', s.SetList) },
+    },
+    { method: 'get', path: '/api/set-lists/{id}', tag: 'set lists', access: 'signed-in', summary: 'One set list', ok: { 200: json('The set list.', s.SetList) } },
+    {
+      method: 'patch', path: '/api/set-lists/{id}', tag: 'set lists', access: 'signed-in', summary: 'Rename it or put its songs in a new order (owner only)',
+      body: s.SetListPatch, ok: { 200: json('The set list as it is now.', s.SetList) },
+    },
+    { method: 'delete', path: '/api/set-lists/{id}', tag: 'set lists', access: 'signed-in', summary: 'Delete a set list (owner only)', ok: { 204: noContent('Deleted; the songs stay.') } },
+
     // ── Teaching ──
     { method: 'get', path: '/api/students', tag: 'studio', access: ['teacher', 'admin'], summary: 'My students', ok: { 200: json('My students.', s.StudentList) } },
     {
@@ -347,6 +364,10 @@ function namedSchemas() {
     SongPatch: r('SongPatch', SongPatchSchema),
     SongList: r('SongList', SongListSchema),
     SongTempos: r('SongTempos', SongTemposSchema),
+    SetList: r('SetList', SetListSchema),
+    SetListInput: r('SetListInput', SetListInputSchema),
+    SetListPatch: r('SetListPatch', SetListPatchSchema),
+    SetListList: r('SetListList', SetListListSchema),
     Recording: r('Recording', RecordingSchema),
     RecordingList: r('RecordingList', RecordingListSchema),
     RecordingPatch: r('RecordingPatch', RecordingPatchSchema),

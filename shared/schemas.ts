@@ -397,3 +397,37 @@ export const NoteListSchema = z.object({ notes: z.array(NoteSchema) });
 export const PreferencesSchema = z.object({ noteDigests: z.boolean() }).strict();
 export type Preferences = z.infer<typeof PreferencesSchema>;
 
+// ── Set lists ───────────────────────────────────────────────────────────────────────────────────────
+
+export const SetListInputSchema = z
+  .object({
+    name: z.string().trim().min(1, 'give the set list a name').max(120, 'use at most 120 characters'),
+    /** The songs in playing order (each once). */
+    songIds: z.array(z.string().min(1)).max(200, 'at most 200 songs').default([]),
+  })
+  .strict();
+export type SetListInput = z.infer<typeof SetListInputSchema>;
+export const SetListPatchSchema = SetListInputSchema.partial().strict();
+export type SetListPatch = z.infer<typeof SetListPatchSchema>;
+export const SetListSongSchema = z.object({
+  songId: z.string(),
+  title: z.string(),
+  meter: z.string(),
+  /** The click tempo for the stage: the song's chosen tempo (null when none is chosen yet). */
+  chosenBpm: z.number().nullable(),
+  /** How long it lasts at the chosen tempo, from a recording's measured beats; null when either is missing. */
+  durationSec: z.number().nullable(),
+});
+export const SetListSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  songs: z.array(SetListSongSchema),
+  /** The sum of the durations that are known. */
+  totalSec: z.number(),
+  /** How many songs have no duration yet (no chosen tempo or no analysed recording). */
+  unknownDurations: z.number(),
+  updatedAt: z.string(),
+});
+export type SetListDto = z.infer<typeof SetListSchema>;
+export const SetListListSchema = z.object({ setLists: z.array(SetListSchema) });
+

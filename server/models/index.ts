@@ -13,6 +13,7 @@ import { PracticeEntry } from './PracticeEntry';
 import { Passage } from './Passage';
 import { StudioInvitation } from './StudioInvitation';
 import { RecordingNote } from './RecordingNote';
+import { SetList, SetListItem } from './SetList';
 
 User.hasMany(Song, { foreignKey: 'ownerId', as: 'songs', onDelete: 'CASCADE' });
 Song.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
@@ -31,4 +32,4 @@ Passage.belongsTo(Recording, { foreignKey: 'recordingId', as: 'recording' });
 /** better-auth's model names (after our modelName mapping) → the Sequelize model that stores them. */
 export const authModels = { users: User, sessions: Session, accounts: Account, verifications: Verification } as const;
 
-export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry, Passage, StudioInvitation, RecordingNote };
+export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry, Passage, StudioInvitation, RecordingNote, SetList, SetListItem };

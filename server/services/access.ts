@@ -7,7 +7,7 @@ import type { Me } from '@/shared/schemas';
 
 /** How the person asking stands to the owner of the thing. */
 export type Relation = 'owner' | 'linked-teacher' | 'admin' | 'other-user' | 'anonymous';
-export type ThingKind = 'song' | 'song-tempos' | 'reference' | 'take' | 'recording' | 'candidate' | 'practice-entry' | 'passage' | 'note';
+export type ThingKind = 'song' | 'song-tempos' | 'reference' | 'take' | 'recording' | 'candidate' | 'practice-entry' | 'passage' | 'note' | 'set-list';
 export type Action = 'read' | 'write';
 
 /**
@@ -29,6 +29,8 @@ export const ACCESS: Record<ThingKind, Record<Action, readonly Relation[]>> = {
   // Notes are how a teacher and a student talk about a take: both write (and reply, and resolve). Changing or
   // deleting the words of a note is for its author alone (see assertAuthor).
   note: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner', 'linked-teacher'] },
+  // A set list is the player's plan for a gig; their teacher may look at it too.
+  'set-list': { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
 };
 
 const NAMES: Record<ThingKind, string> = {
@@ -41,6 +43,7 @@ const NAMES: Record<ThingKind, string> = {
   'practice-entry': 'practice entry',
   passage: 'passage',
   note: 'note',
+  'set-list': 'set list',
 };
 
 export async function relationTo(user: Me | null | undefined, ownerId: string): Promise<Relation> {

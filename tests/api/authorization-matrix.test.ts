@@ -24,6 +24,7 @@ interface World {
   candidateId: string;
   passageId: string;
   noteId: string;
+  setListId: string;
   spareStudent: Person;
   token: string;
 }
@@ -51,6 +52,7 @@ const newCandidate = async () => (await w.people.owner.agent.post(`/api/songs/${
 const newPassage = async () =>
   (await w.people.owner.agent.post(`/api/songs/${w.songId}/passages`).send({ recordingId: w.recordingId, name: 'spare', startSec: 1, endSec: 2 }).expect(201)).body.id;
 const newNote = async () => (await w.people.owner.agent.post(`/api/recordings/${w.recordingId}/notes`).send({ text: 'spare', atSec: 1 }).expect(201)).body.id;
+const newSetList = async () => (await w.people.owner.agent.post('/api/set-lists').send({ name: 'Spare', songIds: [w.songId] }).expect(201)).body.id;
 const newSong = async () => (await w.people.owner.agent.post('/api/songs').send({ title: 'Spare' }).expect(201)).body.id;
 const newRecording = async () => {
   const id = (await w.people.owner.agent.post(`/api/songs/${w.songId}/recordings`).field('kind', 'take').attach('file', clip, 'spare.mp3').expect(201)).body.id;
@@ -127,6 +129,12 @@ const MATRIX: Record<string, Case> = {
     send: (a, id) => a.delete(`/api/notes/${id}`),
   },
 
+  'GET /api/set-lists': { expect: signedIn(200), send: (a) => a.get('/api/set-lists') },
+  'POST /api/set-lists': { expect: signedIn(201), send: (a) => a.post('/api/set-lists').send({ name: 'Their own', songIds: [] }) },
+  'GET /api/set-lists/:id': { expect: read, send: (a) => a.get(`/api/set-lists/${w.setListId}`) },
+  'PATCH /api/set-lists/:id': { expect: ownerOnly(200), send: (a) => a.patch(`/api/set-lists/${w.setListId}`).send({ name: 'Friday' }) },
+  'DELETE /api/set-lists/:id': { expect: ownerOnly(204), prepare: newSetList, send: (a, id) => a.delete(`/api/set-lists/${id}`) },
+
   'GET /api/students': { expect: teachersOnly(200), send: (a) => a.get('/api/students') },
   // The spare student is linked to the linked teacher only: the others have no such link to end.
   'DELETE /api/students/:studentId': {
@@ -169,11 +177,12 @@ beforeAll(async () => {
   const candidateId = (await people.owner.agent.post(`/api/songs/${songId}/candidates`).send({ bpm: 118 }).expect(201)).body.id;
   const passageId = (await people.owner.agent.post(`/api/songs/${songId}/passages`).send({ recordingId, name: 'bars 1–2', startSec: 0, endSec: 1.6 }).expect(201)).body.id;
   const noteId = (await people.owner.agent.post(`/api/recordings/${recordingId}/notes`).send({ text: 'first try', atSec: 0.5 }).expect(201)).body.id;
+  const setListId = (await people.owner.agent.post('/api/set-lists').send({ name: 'Friday', songIds: [songId] }).expect(201)).body.id;
   const since = Date.now();
   const invited = uniqueEmail('matrix-token');
   await people.otherTeacher.agent.post('/api/invitations').send({ email: invited }).expect(202);
   const token = await invitationToken(invited, baseUrl, since);
-  w = { people, songId, recordingId, candidateId, passageId, noteId, spareStudent, token };
+  w = { people, songId, recordingId, candidateId, passageId, noteId, setListId, spareStudent, token };
 }, 120_000);
 
 test('every route the app mounts is in the matrix, and the matrix names no route the app lacks', () => {

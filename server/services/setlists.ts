@@ -1,0 +1,98 @@
+// Set lists: a player's songs in playing order with each song's click tempo (its chosen tempo) and how long it
+// lasts at that tempo, and the whole set's length.
+import { Analysis, Recording, SetList, SetListItem, Song } from '@/server/models';
+import { sequelize } from '@/server/db';
+import { HttpError } from '@/server/http';
+import { secondsFor } from '@/audio/practice/duration';
+import type { Me, SetListDto, SetListInput, SetListPatch } from '@/shared/schemas';
+import { assertMay, missing, type Action } from './access';
+import { readStoredAnalysis } from './recordings';
+
+/** Beats measured in each song's most recent analysed recording. */
+async function measuredBeats(songIds: string[]): Promise<Map<string, number>> {
+  if (!songIds.length) return new Map();
+  const recordings = await Recording.findAll({ where: { songId: songIds, status: 'done' }, attributes: ['id', 'songId'], order: [['createdAt', 'DESC']] });
+  const analyses = new Map((await Analysis.findAll({ where: { recordingId: recordings.map((r) => r.id) } })).map((a) => [a.recordingId, a]));
+  const beats = new Map<string, number>();
+  for (const r of recordings) {
+    if (beats.has(r.songId)) continue;
+    const a = readStoredAnalysis(analyses.get(r.id) ?? null);
+    if (a && a.beatCount > 0) beats.set(r.songId, a.beatCount);
+  }
+  return beats;
+}
+
+async function toSetListDto(list: SetList): Promise<SetListDto> {
+  const items = await SetListItem.findAll({ where: { setListId: list.id }, order: [['position', 'ASC']] });
+  const songs = new Map((await Song.findAll({ where: { id: items.map((i) => i.songId) } })).map((s) => [s.id, s]));
+  const beats = await measuredBeats(items.map((i) => i.songId));
+  const rows = items
+    .map((i) => songs.get(i.songId))
+    .filter((s): s is Song => Boolean(s))
+    .map((s) => {
+      const b = beats.get(s.id);
+      return { songId: s.id, title: s.title, meter: s.meter, chosenBpm: s.chosenBpm, durationSec: b && s.chosenBpm ? secondsFor(b, s.chosenBpm) : null };
+    });
+  const known = rows.filter((r) => r.durationSec !== null);
+  return {
+    id: list.id,
+    name: list.name,
+    songs: rows,
+    totalSec: known.reduce((sum, r) => sum + r.durationSec!, 0),
+    unknownDurations: rows.length - known.length,
+    updatedAt: list.updatedAt.toISOString(),
+  };
+}
+
+async function setListFor(user: Me, action: Action, id: string): Promise<SetList> {
+  const list = await SetList.findByPk(id);
+  if (!list) throw missing('set-list');
+  await assertMay(user, action, 'set-list', list.ownerId);
+  return list;
+}
+
+/** The songs must be the owner's own, each once. */
+async function checkSongs(ownerId: string, songIds: string[]) {
+  if (new Set(songIds).size !== songIds.length) throw new HttpError(400, 'invalid_body', 'songIds: each song once', 'songIds');
+  const own = await Song.count({ where: { id: songIds, ownerId } });
+  if (own !== songIds.length) throw new HttpError(400, 'invalid_body', 'songIds: choose songs from your own library', 'songIds');
+}
+
+async function writeItems(setListId: string, songIds: string[]) {
+  await sequelize.transaction(async (transaction) => {
+    await SetListItem.destroy({ where: { setListId }, transaction });
+    await SetListItem.bulkCreate(songIds.map((songId, position) => ({ setListId, songId, position })), { transaction });
+  });
+}
+
+export async function listSetLists(user: Me): Promise<SetListDto[]> {
+  const lists = await SetList.findAll({ where: { ownerId: user.id }, order: [['updatedAt', 'DESC']] });
+  return Promise.all(lists.map(toSetListDto));
+}
+
+export async function getSetList(user: Me, id: string): Promise<SetListDto> {
+  return toSetListDto(await setListFor(user, 'read', id));
+}
+
+export async function createSetList(user: Me, input: SetListInput): Promise<SetListDto> {
+  await checkSongs(user.id, input.songIds);
+  const list = await SetList.create({ ownerId: user.id, name: input.name });
+  await writeItems(list.id, input.songIds);
+  return toSetListDto(list);
+}
+
+/** Renames the list and/or puts its songs in a new order (the whole order, as the player arranged it). */
+export async function updateSetList(user: Me, id: string, patch: SetListPatch): Promise<SetListDto> {
+  const list = await setListFor(user, 'write', id);
+  if (patch.songIds) {
+    await checkSongs(list.ownerId, patch.songIds);
+    await writeItems(list.id, patch.songIds);
+  }
+  list.changed('updatedAt', true);
+  await list.update({ name: patch.name ?? list.name });
+  return toSetListDto(list);
+}
+
+export async function deleteSetList(user: Me, id: string): Promise<void> {
+  await (await setListFor(user, 'write', id)).destroy();
+}
