@@ -22,3 +22,11 @@ export function formatClock(sec: number): string {
 
 /** A count with its noun: "1 repetition", "3 repetitions" (`many` for nouns whose plural is not noun + s). */
 export const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
+
+/** A date in the reader's locale and time zone ("2 Dec 2026", "12/2/2026"): Intl chooses the order and words. */
+export const formatDate = (iso: string | Date, locale?: string) =>
+  new Intl.DateTimeFormat(locale, { dateStyle: 'medium' }).format(typeof iso === 'string' ? new Date(iso) : iso);
+
+/** A date with its time of day in the reader's locale ("2 Dec 2026, 14:05" or "Dec 2, 2026, 2:05 PM"). */
+export const formatDateTime = (iso: string | Date, locale?: string) =>
+  new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' }).format(typeof iso === 'string' ? new Date(iso) : iso);

@@ -54,13 +54,18 @@ export function downbeatsFrom(beats: number[], one: number, perBar: number): num
 }
 
 /** Every time moved by `ms` milliseconds (positive = later), kept at or after 0. */
-export const nudged = (times: number[], ms: number) => (ms === 0 ? times.slice() : times.map((t) => Math.max(0, t + ms / 1000)));
+export const nudged = (times: number[], ms: number) =>
+  ms === 0 ? times.slice() : times.map((t) => Math.max(0, t + ms / 1000));
 
 /**
  * The grid as the player feels it. With nothing changed it is the engine's grid exactly (its downbeats too,
  * which need not be regular); a level or a beat called one recounts the bars from that beat.
  */
-export function feltGrid(found: { beats: number[]; downbeats: number[]; bpm: number }, choices: FeltChoices, perBar: number): FeltGrid {
+export function feltGrid(
+  found: { beats: number[]; downbeats: number[]; bpm: number },
+  choices: FeltChoices,
+  perBar: number,
+): FeltGrid {
   const bpm = found.bpm * LEVEL_FACTOR[choices.beatLevel];
   const asFound = choices.beatLevel === 'as-found' && choices.barOneSec === null;
   const one = choices.barOneSec ?? found.downbeats[0] ?? found.beats[0] ?? 0;

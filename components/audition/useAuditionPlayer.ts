@@ -41,6 +41,7 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   }, [audioUrl, originalBpm]);
 
   const getPosition = useCallback(() => player.current?.position() ?? 0, []);
+  const getCountInBeat = useCallback(() => player.current?.countInBeat() ?? null, []);
 
   /** Playback tempo in BPM, within the player's range, to a tenth. */
   const setBpm = useCallback((next: number) => {
@@ -96,7 +97,7 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   };
 
   return {
-    player, onLoopPassRef, ready, failure, setFailure, playing, play, pause, togglePlay, getPosition, seek, skip,
+    player, onLoopPassRef, ready, failure, setFailure, playing, play, pause, togglePlay, getPosition, getCountInBeat, seek, skip,
     bpm, setBpm, loop, setLoop, countInOn, setCountIn, clickOn, setClickOn, clickLevel, setClickLevel, musicLevel, setMusicLevel,
   };
 }

@@ -36,7 +36,12 @@ export function peakPyramid(minMax: number[], durationSec: number): PeakLevel[] 
  * Min and max of each of `columns` equal slices of [from, to), read from the coarsest level whose buckets are
  * still no wider than a column (so each column reads one or two buckets, whatever the zoom).
  */
-export function columnsOf(levels: PeakLevel[], from: number, to: number, columns: number): { lo: number; hi: number }[] {
+export function columnsOf(
+  levels: PeakLevel[],
+  from: number,
+  to: number,
+  columns: number,
+): { lo: number; hi: number }[] {
   const colSec = (to - from) / columns;
   let level = levels[0]!;
   for (const l of levels) if (l.bucketSec <= colSec) level = l;
@@ -62,6 +67,8 @@ export function columnsOf(levels: PeakLevel[], from: number, to: number, columns
 export const MIN_BEAT_GAP_PX = 6;
 /** Space between one bar number's end and the next one's start. */
 const LABEL_GAP_PX = 6;
+/** A bar number starts this far right of its line. */
+export const LABEL_OFFSET_PX = 3;
 /** Width of one digit of the bar numbers (10 px medium type). */
 export const DIGIT_PX = 6.5;
 /** Bar numbers go 1, 2, 3… or every 2nd, 4th, 8th… bar: steps that keep four-bar phrases together. */
@@ -81,7 +88,10 @@ export interface GridMarks {
 /** Median gap between neighbours (Infinity for fewer than two). */
 function medianGap(xs: number[]): number {
   if (xs.length < 2) return Infinity;
-  const gaps = xs.slice(1).map((x, i) => x - xs[i]!).sort((a, b) => a - b);
+  const gaps = xs
+    .slice(1)
+    .map((x, i) => x - xs[i]!)
+    .sort((a, b) => a - b);
   return gaps[Math.floor(gaps.length / 2)]!;
 }
 
@@ -95,12 +105,14 @@ export function gridMarks(beats: number[], downbeats: number[], from: number, to
   const x = (t: number) => (t - from) * px;
   const beatGapPx = medianGap(beats) * px;
   const barGapPx = medianGap(downbeats) * px;
-  const widest = String(downbeats.length).length * DIGIT_PX + LABEL_GAP_PX;
+  // A number sits LABEL_OFFSET_PX right of its line and needs LABEL_GAP_PX before the next.
+  const widest = LABEL_OFFSET_PX + String(downbeats.length).length * DIGIT_PX + LABEL_GAP_PX;
   const labelEvery = LABEL_STEPS.find((s) => s * barGapPx >= widest) ?? LABEL_STEPS[LABEL_STEPS.length - 1]!;
   const lineEvery = LABEL_STEPS.find((s) => s * barGapPx >= MIN_BEAT_GAP_PX) ?? labelEvery;
   const downSet = new Set(downbeats.map((d) => Math.round(d * 1000)));
   const out: GridMarks = { beats: [], bars: [], labels: [], labelEvery };
-  if (beatGapPx >= MIN_BEAT_GAP_PX) for (const b of beats) if (b >= from && b <= to && !downSet.has(Math.round(b * 1000))) out.beats.push(x(b));
+  if (beatGapPx >= MIN_BEAT_GAP_PX)
+    for (const b of beats) if (b >= from && b <= to && !downSet.has(Math.round(b * 1000))) out.beats.push(x(b));
   let lastEnd = -Infinity;
   downbeats.forEach((d, i) => {
     const bar = i + 1;
@@ -109,7 +121,7 @@ export function gridMarks(beats: number[], downbeats: number[], from: number, to
     const w = String(bar).length * DIGIT_PX;
     if ((bar - 1) % labelEvery === 0 && x(d) >= lastEnd + LABEL_GAP_PX) {
       out.labels.push({ x: x(d), bar });
-      lastEnd = x(d) + 3 + w;
+      lastEnd = x(d) + LABEL_OFFSET_PX + w;
     }
   });
   return out;

@@ -1,7 +1,7 @@
 // How numbers read on screen. Worked examples by hand; the notations are common practice: durations as
 // minutes:seconds (m:ss, as players and track lists show them), tempos in BPM to a tenth at most, and English
 // count nouns singular for exactly one ("1 repetition"), plural otherwise, zero included ("0 repetitions").
-import { formatBpm, formatClock, formatDuration, plural, tenth } from '@/shared/format';
+import { formatBpm, formatClock, formatDate, formatDateTime, formatDuration, plural, tenth } from '@/shared/format';
 
 describe('tenth', () => {
   test('rounds to one decimal place', () => {
@@ -64,5 +64,20 @@ describe('plural', () => {
   test('an irregular plural is given', () => {
     expect(plural(2, 'child', 'children')).toBe('2 children');
     expect(plural(1, 'child', 'children')).toBe('1 child');
+  });
+});
+
+describe('formatDate and formatDateTime', () => {
+  // The orders and month names are the CLDR locale data's, through Intl (ECMA-402); the same instant reads
+  // day-month in British English and month-day in American English.
+  const at = new Date(Date.UTC(2026, 11, 2, 14, 5));
+  test('dates in the locale asked for', () => {
+    expect(formatDate(at, 'en-GB')).toMatch(/^2 Dec 2026$/);
+    expect(formatDate(at, 'en-US')).toMatch(/^Dec 2, 2026$/);
+    expect(formatDate(at.toISOString(), 'de-DE')).toMatch(/^02\.12\.2026$/);
+  });
+  test('a time of day in the locale’s clock', () => {
+    expect(formatDateTime(at, 'en-US')).toMatch(/\d{1,2}:05\s?[AP]M$/);
+    expect(formatDateTime(at, 'de-DE')).toMatch(/^02\.12\.2026, \d{2}:05$/);
   });
 });

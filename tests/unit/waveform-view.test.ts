@@ -2,7 +2,15 @@
 // Thinning ruler ticks and labels so they never overlap is common practice for time axes; the gap below which
 // lines smear (6 px) is from memory.
 import { waveformPeaks, PEAKS_PER_SECOND } from '@/audio/analysis/peaks';
-import { columnsOf, DIGIT_PX, gridMarks, MIN_BEAT_GAP_PX, peakPyramid, windowAround, zoomLimits } from '@/components/waveform/view';
+import {
+  columnsOf,
+  DIGIT_PX,
+  gridMarks,
+  MIN_BEAT_GAP_PX,
+  peakPyramid,
+  windowAround,
+  zoomLimits,
+} from '@/components/waveform/view';
 
 const durationSec = 240;
 const beats = Array.from({ length: 480 }, (_, i) => i * 0.5);
@@ -29,7 +37,8 @@ test('zoomed out on a phone (340 px, whole song): no beat lines, bar numbers tha
   // Bar 1 is always numbered; the step keeps four-bar phrases (1, 17, 33… or 1, 33, 65…).
   expect(m.labels[0]!.bar).toBe(1);
   expect([8, 16, 32]).toContain(m.labelEvery);
-  for (let i = 1; i < m.bars.length; i++) expect(m.bars[i]!.x - m.bars[i - 1]!.x).toBeGreaterThanOrEqual(MIN_BEAT_GAP_PX);
+  for (let i = 1; i < m.bars.length; i++)
+    expect(m.bars[i]!.x - m.bars[i - 1]!.x).toBeGreaterThanOrEqual(MIN_BEAT_GAP_PX);
 });
 
 test('zoomed in to two bars: every beat and every bar numbered', () => {
@@ -52,7 +61,8 @@ test('peaks of a 10-minute file: 40 ms buckets, JSON small enough to fetch on a 
   const sampleRate = 8000;
   const samples = new Float32Array(600 * sampleRate);
   // A 2 Hz amplitude swell over noise-like values, so the numbers have their usual width in JSON.
-  for (let i = 0; i < samples.length; i++) samples[i] = Math.sin(i * 0.37) * (0.3 + 0.6 * Math.abs(Math.sin((Math.PI * 2 * i) / sampleRate)));
+  for (let i = 0; i < samples.length; i++)
+    samples[i] = Math.sin(i * 0.37) * (0.3 + 0.6 * Math.abs(Math.sin((Math.PI * 2 * i) / sampleRate)));
   const peaks = waveformPeaks(samples, sampleRate);
   expect(peaks.buckets).toBe(600 * PEAKS_PER_SECOND);
   const bytes = JSON.stringify(peaks).length;
