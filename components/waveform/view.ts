@@ -119,7 +119,8 @@ export function gridMarks(beats: number[], downbeats: number[], from: number, to
     if (d < from || d > to || (bar - 1) % lineEvery !== 0) return;
     out.bars.push({ x: x(d), bar });
     const w = String(bar).length * DIGIT_PX;
-    if ((bar - 1) % labelEvery === 0 && x(d) >= lastEnd + LABEL_GAP_PX) {
+    // A number that would run past the right edge is left out rather than cut.
+    if ((bar - 1) % labelEvery === 0 && x(d) >= lastEnd + LABEL_GAP_PX && x(d) + LABEL_OFFSET_PX + w <= width) {
       out.labels.push({ x: x(d), bar });
       lastEnd = x(d) + LABEL_OFFSET_PX + w;
     }

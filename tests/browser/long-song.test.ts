@@ -124,6 +124,8 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
     });
   await page.getByTestId('zoom-out').click();
   await page.getByTestId('zoom-readout').filter({ hasText: '16 s shown' }).waitFor();
+  // Going to a bar puts it near the left edge, with the bars after it in view.
+  await page.getByTestId('go-to-bar').press('Enter');
   await expectNoOverlap(page);
   const labels = (await barNumbers(page)).map((l) => l.bar);
   expect(labels).toEqual(expect.arrayContaining([57, 58, 59, 60, 61]));
@@ -230,11 +232,20 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
   await page.getByTestId('zoom-all').click();
   for (let i = 0; i < 4; i++) await page.getByTestId('zoom-in').click();
   await page.getByTestId('zoom-readout').filter({ hasText: '15 s shown' }).waitFor();
+  await page.getByTestId('player-waveform').scrollIntoViewIfNeeded();
   const wave2 = (await page.getByTestId('player-waveform').boundingBox())!;
   const x29 = await barX(page, 29);
   const x30 = await barX(page, 30);
   await page.mouse.click(x29 + (x30 - x29) / 4, wave2.y + wave2.height / 2); // one beat of four into bar 29
-  await page.getByTestId('playback-position').waitFor();
+  await page.waitForFunction(
+    (t) => {
+      const m = /^(\d+):(\d+\.\d)$/.exec(
+        document.querySelector('[data-testid="playback-position"]')?.textContent ?? '',
+      );
+      return !!m && Math.abs(Number(m[1]) * 60 + Number(m[2]) - t) > 0.3;
+    },
+    await position(page),
+  );
   const oneAt = await position(page);
   await page.getByTestId('beat-is-one').click();
   await page.waitForFunction(
@@ -278,7 +289,7 @@ test('on a wide screen: the waveform and transport stay in view while the side c
       throw new Error(`zoom readout says ${await page.getByTestId('zoom-readout').textContent()}`);
     });
   await expectNoOverlap(page);
-  expect((await barNumbers(page)).map((l) => l.bar)).toEqual(expect.arrayContaining([57, 58]));
+  expect((await barNumbers(page)).map((l) => l.bar)).toContain(57);
   await page.screenshot({ path: path.join(outputDir, 'long-song-desktop-zoomed-in.png') });
 
   // Scrolled to the export card at the foot of the side column, the waveform and Play are still on screen.
