@@ -58,6 +58,8 @@ export class AuditionPlayer {
   /** Context times of the count-in's beats of the current start (empty without a count-in). */
   private countInTimes: number[] = [];
   private countInEnd = 0;
+  /** Another grid the click follows for a while (a short listen of another beat level); null: the recording's. */
+  private clickGrid: { beats: number[]; downbeats: number[] } | null = null;
   /** Numbers each start, so reports from an earlier run that arrive late are ignored. */
   private run = 0;
   private disposed = false;
@@ -114,6 +116,12 @@ export class AuditionPlayer {
     let n = 0;
     for (const t of this.countInTimes) if (t <= now + 1e-3) n++;
     return n === 0 ? null : n;
+  }
+
+  /** The click on another grid from now on (null: back to the recording's); the music is not touched. */
+  clickOnGrid(grid: { beats: number[]; downbeats: number[] } | null) {
+    this.clickGrid = grid;
+    if (this.ctx) this.clicks?.cancelFrom(this.ctx.currentTime);
   }
 
   /** Playback tempo in BPM; while playing it is heard from the next audio block on, at the same beat. */
@@ -286,7 +294,8 @@ export class AuditionPlayer {
     const now = this.ctx.currentTime;
     const map = this.map;
     // The stretched attacks come a little early or late (audio/playback/stretch.ts): the click follows the music.
-    return clicksBetween(map, this.grid.beats, this.grid.downbeats, from, until, this.loop).map((c) => ({
+    const grid = this.clickGrid ?? this.grid;
+    return clicksBetween(map, grid.beats, grid.downbeats, from, until, this.loop).map((c) => ({
       time: Math.max(now, c.time + heardOffsetSec(map.speedAt(c.time))),
       accent: c.accent,
     }));

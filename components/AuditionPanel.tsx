@@ -29,6 +29,9 @@ import { beatsPerBar } from '@/audio/playback/click';
 import { formatBpm } from '@/shared/format';
 import type { Passage, PeaksDto, Recording, Song } from '@/shared/schemas';
 
+/** A short listen of a beat level: two bars at 70 BPM in 4/4 (about 7 s), long enough to feel where the beat
+ * falls, short enough to compare two at once (from memory; no standard sets it). */
+const LISTEN_SEC = 7;
 /** Loop edges within a millisecond of a saved passage's are that passage. */
 const SAME_EDGE_SEC = 1e-3;
 const samePlace = (a: Region, p: Passage) =>
@@ -154,7 +157,23 @@ export function AuditionPanel({
   const beatFeel = (
     <Card>
       <Heading level={3}>The beat you feel</Heading>
-      <BeatFeel recording={recording} analysis={a} beats={felt.beats} getPosition={getPosition} canEdit={canEdit} />
+      <BeatFeel
+        recording={recording}
+        analysis={a}
+        beats={felt.beats}
+        getPosition={getPosition}
+        canEdit={canEdit}
+        onListen={(level) =>
+          audition.listen(
+            feltGrid(
+              { beats: a.beats, downbeats: a.downbeats, bpm: recording.originalBpm! },
+              { beatLevel: level, barOneSec, nudgeMs },
+              beatsPerBar(meter),
+            ),
+            LISTEN_SEC,
+          )
+        }
+      />
     </Card>
   );
 

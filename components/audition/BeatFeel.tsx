@@ -35,6 +35,7 @@ export function BeatFeel({
   beats,
   getPosition,
   canEdit,
+  onListen,
 }: {
   recording: Recording;
   analysis: Analysis;
@@ -42,6 +43,8 @@ export function BeatFeel({
   beats: number[];
   getPosition: () => number;
   canEdit: boolean;
+  /** A short listen with the click at a level, before choosing it. */
+  onListen: (level: BeatLevel) => void;
 }) {
   const base = recording.originalBpm!;
   const level = recording.beatLevel;
@@ -87,10 +90,24 @@ export function BeatFeel({
   return (
     <View style={{ gap: space.md }} testID="beat-feel">
       {ambiguous ? (
-        <Notice tone="caution">
-          Does it feel like {formatBpm(tenth(base / 2))} or {formatBpm(tenth(base))}? Both fit this recording: pick the
-          one you would tap your foot to and press Play to hear it.
-        </Notice>
+        <View style={{ gap: space.xs }} testID="level-question">
+          <Notice tone="caution">
+            Does it feel like {formatBpm(tenth(base / 2))} or {formatBpm(tenth(base))}? Both fit this recording: listen
+            to each with its click, then pick the one you would tap your foot to.
+          </Notice>
+          <Row>
+            <Chip
+              label={`Listen at ${formatBpm(tenth(base / 2))}`}
+              onPress={() => onListen('half')}
+              testID="listen-half"
+            />
+            <Chip
+              label={`Listen at ${formatBpm(tenth(base))}`}
+              onPress={() => onListen('as-found')}
+              testID="listen-as-found"
+            />
+          </Row>
+        </View>
       ) : null}
       <View style={{ gap: space.xs }}>
         <Text style={[type.label, { color: colors.ink }]}>The beat is</Text>
