@@ -233,6 +233,7 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
   for (let i = 0; i < 4; i++) await page.getByTestId('zoom-in').click();
   await page.getByTestId('zoom-readout').filter({ hasText: '15 s shown' }).waitFor();
   await page.getByTestId('player-waveform').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: path.join(outputDir, 'long-song-phone-halved.png') });
   const wave2 = (await page.getByTestId('player-waveform').boundingBox())!;
   const x29 = await barX(page, 29);
   const x30 = await barX(page, 30);
