@@ -1,7 +1,7 @@
 // SWR hooks: how screens read server data. Mutations revalidate the keys they change.
 import useSWR, { mutate } from 'swr';
 import { ApiRequestError, apiFetch, fetcher } from './api';
-import type { Candidate, Invitation, Me, Note, NoteInput, NotePatch, PeaksDto, PracticeEntryDto, PracticeInput, Preferences, ReceivedInvitation, Recording, RecordingPatch, Role, Song, SongInput, SongPatch, SongTempos, Student, Teacher, UserSummary } from '@/shared/schemas';
+import type { Candidate, Invitation, Me, Note, NoteInput, NotePatch, Passage, PassageInput, PassagePatch, PeaksDto, PracticeEntryDto, PracticeInput, Preferences, ReceivedInvitation, Recording, RecordingPatch, Role, Song, SongInput, SongPatch, SongTempos, Student, Teacher, UserSummary } from '@/shared/schemas';
 
 export function useMe() {
   const { data, error, isLoading } = useSWR<Me>('/api/me', fetcher, { shouldRetryOnError: false });
@@ -120,6 +120,7 @@ export async function retryAnalysis(id: string) {
   await mutate(`/api/recordings/${id}`);
 }
 
+/** The player's word on a recording: the tempo, the beat level felt, the beat called one, a nudge of the grid. */
 export async function correctRecording(id: string, patch: RecordingPatch) {
   const r = await apiFetch<Recording>(`/api/recordings/${id}`, { method: 'PATCH', body: patch });
   await mutate(`/api/recordings/${id}`, r, { revalidate: false });
@@ -170,6 +171,8 @@ export function usePractice(songId: string | undefined) {
 export async function logPractice(songId: string, input: PracticeInput) {
   const entry = await apiFetch<PracticeEntryDto>(practiceKey(songId), { body: input });
   await mutate(practiceKey(songId));
+  // A clean faster entry on a passage raises the passage's working tempo.
+  await mutate(passagesKey(songId));
   await mutate(`/api/songs/${songId}`);
   await mutate('/api/songs');
   return entry;
@@ -241,4 +244,30 @@ export async function renameRecording(r: Recording, label: string | null) {
 export async function deleteRecording(r: Recording) {
   await apiFetch(`/api/recordings/${r.id}`, { method: 'DELETE' });
   await mutate(`/api/songs/${r.songId}/recordings`);
+}
+
+// ── Passages: named regions of a song's recordings ───────────────────────────────────────────────────
+
+const passagesKey = (songId: string) => `/api/songs/${songId}/passages`;
+
+export function usePassages(songId: string | undefined) {
+  const { data, error } = useSWR<{ passages: Passage[] }>(songId ? passagesKey(songId) : null, fetcher);
+  return { passages: data?.passages, error };
+}
+
+export async function addPassage(songId: string, input: PassageInput) {
+  const p = await apiFetch<Passage>(passagesKey(songId), { body: input });
+  await mutate(passagesKey(songId));
+  return p;
+}
+
+export async function changePassage(p: Passage, patch: PassagePatch) {
+  const next = await apiFetch<Passage>(`/api/passages/${p.id}`, { method: 'PATCH', body: patch });
+  await mutate(passagesKey(p.songId));
+  return next;
+}
+
+export async function removePassage(p: Passage) {
+  await apiFetch(`/api/passages/${p.id}`, { method: 'DELETE' });
+  await mutate(passagesKey(p.songId));
 }

@@ -55,6 +55,11 @@ export class AuditionPlayer {
   private musicGain: GainNode | null = null;
   private clickGain: GainNode | null = null;
   private loop: Passage | null = null;
+  /** Context times of the count-in's beats of the current start (empty without a count-in). */
+  private countInTimes: number[] = [];
+  private countInEnd = 0;
+  /** Another grid the click follows for a while (a short listen of another beat level); null: the recording's. */
+  private clickGrid: { beats: number[]; downbeats: number[] } | null = null;
   /** Numbers each start, so reports from an earlier run that arrive late are ignored. */
   private run = 0;
   private disposed = false;
@@ -102,6 +107,23 @@ export class AuditionPlayer {
     return Math.min(this.durationSec, Math.max(0, wrapIntoLoop(v, this.loop)));
   }
 
+  /** The count-in beat sounding now (1, 2, …), or null when no count-in is under way. */
+  countInBeat(): number | null {
+    if (!this.ctx || !this.playing || this.countInTimes.length === 0) return null;
+    const now = this.ctx.currentTime;
+    // The count ends on the recording's first beat (the music may come in a little before it).
+    if (now >= this.countInEnd) return null;
+    let n = 0;
+    for (const t of this.countInTimes) if (t <= now + 1e-3) n++;
+    return n === 0 ? null : n;
+  }
+
+  /** The click on another grid from now on (null: back to the recording's); the music is not touched. */
+  clickOnGrid(grid: { beats: number[]; downbeats: number[] } | null) {
+    this.clickGrid = grid;
+    if (this.ctx) this.clicks?.cancelFrom(this.ctx.currentTime);
+  }
+
   /** Playback tempo in BPM; while playing it is heard from the next audio block on, at the same beat. */
   setBpm(bpm: number) {
     const speed = this.speedFor(bpm);
@@ -143,8 +165,11 @@ export class AuditionPlayer {
       const firstBeat = this.grid.beats.find((b) => b >= this.startFrom - 1e-6);
       const toFirstBeat = firstBeat === undefined ? 0 : (firstBeat - this.startFrom) / this.speed;
       startsAt = now + Math.max(0, (perBar * 60) / playbackBpm - toFirstBeat);
-      for (const c of countIn(startsAt + toFirstBeat, perBar, playbackBpm)) this.clicks.add(c.time + heardOffsetSec(this.speed), c.accent);
-    }
+      const beats = countIn(startsAt + toFirstBeat, perBar, playbackBpm);
+      this.countInTimes = beats.map((c) => c.time);
+      this.countInEnd = startsAt + toFirstBeat;
+      for (const c of beats) this.clicks.add(c.time + heardOffsetSec(this.speed), c.accent);
+    } else this.countInTimes = [];
     const options: StartOptions = { fromSec: this.startFrom, speed: this.speed, startsAt, loop: this.loop };
     this.musicStartsAt = startsAt;
     this.map = new PlaybackMap(startsAt, this.startFrom, this.speed);
@@ -164,7 +189,8 @@ export class AuditionPlayer {
   seek(sec: number) {
     const wasPlaying = this.playing;
     this.pause();
-    this.startFrom = Math.max(0, Math.min(this.durationSec, sec));
+    // Before the audio is decoded its length is not known yet: the place is kept as asked.
+    this.startFrom = Math.max(0, this.decoded ? Math.min(this.durationSec, sec) : sec);
     if (this.loop && (this.startFrom < this.loop.start || this.startFrom >= this.loop.end)) this.loop = null;
     if (wasPlaying) void this.play();
   }
@@ -268,7 +294,8 @@ export class AuditionPlayer {
     const now = this.ctx.currentTime;
     const map = this.map;
     // The stretched attacks come a little early or late (audio/playback/stretch.ts): the click follows the music.
-    return clicksBetween(map, this.grid.beats, this.grid.downbeats, from, until, this.loop).map((c) => ({
+    const grid = this.clickGrid ?? this.grid;
+    return clicksBetween(map, grid.beats, grid.downbeats, from, until, this.loop).map((c) => ({
       time: Math.max(now, c.time + heardOffsetSec(map.speedAt(c.time))),
       accent: c.accent,
     }));

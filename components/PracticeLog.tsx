@@ -3,8 +3,13 @@ import React from 'react';
 import { Text, View } from 'react-native';
 import { Small } from './ui';
 import { colors, space, type } from './theme';
-import { formatBpm, formatDate, plural } from '@/shared/format';
+import { formatBpm, formatDateTime, plural } from '@/shared/format';
 import { usePractice } from '@/client/hooks';
+import type { PracticeEntryDto } from '@/shared/schemas';
+
+/** The bars an entry was played on, when it names them ("bars 57–60", "bar 3"). */
+const bars = (e: PracticeEntryDto) =>
+  e.startBar === null ? null : e.endBar === null || e.endBar === e.startBar ? `bar ${e.startBar}` : `bars ${e.startBar}–${e.endBar}`;
 
 export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: number }) {
   const { entries } = usePractice(songId);
@@ -15,10 +20,11 @@ export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: num
       {entries.slice(0, limit).map((e) => (
         <View key={e.id} style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'baseline' }}>
           <Text style={[type.label, { color: colors.ink }]}>
-            {e.passage ?? 'Whole piece'}: {formatBpm(e.startBpm)} → {formatBpm(e.reachedBpm)} BPM
+            {e.passage ?? 'Whole piece'}
+            {bars(e) && bars(e) !== e.passage ? ` (${bars(e)})` : ''}: {formatBpm(e.startBpm)} → {formatBpm(e.reachedBpm)} BPM
           </Text>
           <Small>
-            {plural(e.repetitions, 'repetition')} · {e.minutes} min{e.clean ? ' · reached the goal' : ''} · {formatDate(e.createdAt)}
+            {plural(e.repetitions, 'repetition')} · {e.minutes} min{e.clean ? ' · reached the goal' : ''} · {formatDateTime(e.createdAt)}
           </Small>
         </View>
       ))}

@@ -23,13 +23,13 @@ export function formatClock(sec: number): string {
 /** A count with its noun: "1 repetition", "3 repetitions" (`many` for nouns whose plural is not noun + s). */
 export const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
-/** A date in the reader's own locale, month in words so it is never ambiguous ("2 Dec 2026", "Dec 2, 2026"). */
+/** A date in the reader's locale and time zone ("2 Dec 2026", "Dec 2, 2026"): Intl chooses the order and words. */
 export const formatDate = (iso: string | Date, locale?: string) =>
-  new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(iso));
+  new Intl.DateTimeFormat(locale, { dateStyle: 'medium' }).format(typeof iso === 'string' ? new Date(iso) : iso);
 
-/** A date and time in the reader's own locale. */
+/** A date with its time of day in the reader's locale ("2 Dec 2026, 14:05" or "Dec 2, 2026, 2:05 PM"). */
 export const formatDateTime = (iso: string | Date, locale?: string) =>
-  new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric', hour: 'numeric', minute: '2-digit' }).format(new Date(iso));
+  new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' }).format(typeof iso === 'string' ? new Date(iso) : iso);
 
 /**
  * Whose something is, as a label: "Your take" for one's own, "Ilya’s take" for someone else's (first name, an
@@ -40,7 +40,6 @@ export function whose(thing: string, owner: { id: string; name: string }, meId: 
   const first = owner.name.trim().split(/\s+/)[0] || 'Someone';
   return `${first}’s ${thing}`;
 }
-
 
 /** "0:42", "1:05.5" or "42" (seconds) → seconds; null for anything else. */
 export function parseClock(text: string): number | null {

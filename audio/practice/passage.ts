@@ -57,6 +57,14 @@ export function skipBar(t: number, grid: Grid, direction: 1 | -1): number {
   return before.length > 1 ? before[before.length - 2]! : 0;
 }
 
+/** The bars a passage covers: the bar its start is in and the bar its end closes (null for a pickup). */
+export function barsOf(p: Passage, downbeats: number[]): { startBar: number | null; endBar: number | null } {
+  // A millisecond inside the passage, so an edge on a bar line counts the bar it opens or closes.
+  const startBar = barAt(p.start + 1e-3, downbeats);
+  const endBar = barAt(p.end - 1e-3, downbeats);
+  return { startBar: startBar || null, endBar: endBar || null };
+}
+
 /** The bar that `t` falls in (the first bar for a pickup before it). */
 export function barContaining(t: number, grid: Grid): Passage | null {
   const bounds = barBoundaries(grid);

@@ -62,12 +62,16 @@ function CandidateRow({ candidate: c, song, canEdit, current }: { candidate: Can
             <Chip
               key={n}
               compact
-              label={n <= (c.rating ?? 0) ? '●' : '○'}
+              // Told apart without colour: a filled star on a dark chip against an outline on a light one, and
+              // the count in words beside them.
+              label={n <= (c.rating ?? 0) ? '★' : '☆'}
+              selected={n <= (c.rating ?? 0)}
               hint={`Rate ${formatBpm(c.bpm)} BPM ${n} of 5`}
               disabled={!canEdit}
               onPress={() => void changeCandidate(c, { rating: c.rating === n ? null : n })}
             />
           ))}
+          <Small>{c.rating ? `${c.rating} of 5` : 'not rated'}</Small>
         </Row>
       </Row>
       {canEdit ? (

@@ -1,4 +1,4 @@
-// A passage to loop, snapped to bars or beats (drag on the waveform, or take the bar under the playhead), and
+// A passage to loop, snapped to bars or beats (drag across the waveform, or take the bar under the playhead), and
 // the step-up run over it: start tempo, step, clean repetitions per step and goal.
 import React, { useState } from 'react';
 import { Text, View } from 'react-native';
@@ -13,13 +13,11 @@ export type SnapUnit = 'bar' | 'beat';
 export function PassageLoop({
   loop,
   loopLabel,
-  selecting,
   unit,
   stepUp,
   defaultPlan,
   canLog,
   lastLogged,
-  onSelecting,
   onUnit,
   onThisBar,
   onClear,
@@ -29,13 +27,11 @@ export function PassageLoop({
 }: {
   loop: Passage | null;
   loopLabel: string | null;
-  selecting: boolean;
   unit: SnapUnit;
   stepUp: StepUpState | null;
   defaultPlan: StepUpPlan;
   canLog: boolean;
   lastLogged: string | null;
-  onSelecting: (on: boolean) => void;
   onUnit: (u: SnapUnit) => void;
   onThisBar: () => void;
   onClear: () => void;
@@ -66,7 +62,6 @@ export function PassageLoop({
   return (
     <View style={{ gap: space.sm }} testID="passage-loop">
       <Row>
-        <Chip label={selecting ? 'Drag on the waveform…' : 'Mark a passage'} selected={selecting} onPress={() => onSelecting(!selecting)} testID="mark-passage" />
         <Chip label="Loop this bar" onPress={onThisBar} testID="loop-this-bar" />
         <Small>Snap to</Small>
         <Chip label="bars" selected={unit === 'bar'} onPress={() => onUnit('bar')} />
@@ -80,7 +75,7 @@ export function PassageLoop({
           <Button label="Stop looping" kind="quiet" onPress={onClear} />
         </Row>
       ) : (
-        <Small>Mark a passage, then loop it as slowly as it stays clean.</Small>
+        <Small>Drag across the waveform to mark a passage, then loop it as slowly as it stays clean.</Small>
       )}
 
       {loop && !stepUp ? (

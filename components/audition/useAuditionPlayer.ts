@@ -41,6 +41,7 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   }, [audioUrl, originalBpm]);
 
   const getPosition = useCallback(() => player.current?.position() ?? 0, []);
+  const getCountInBeat = useCallback(() => player.current?.countInBeat() ?? null, []);
 
   /** Playback tempo in BPM, within the player's range, to a tenth. */
   const setBpm = useCallback((next: number) => {
@@ -78,6 +79,23 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
     player.current?.setLoop(p);
   }, []);
 
+  /** A short listen with the click on another grid (another beat level): play for `seconds`, then back. */
+  const listenTimer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const listen = (clickGrid: { beats: number[]; downbeats: number[] }, seconds: number) => {
+    const p = player.current;
+    if (!p || !ready) return;
+    if (listenTimer.current) clearTimeout(listenTimer.current);
+    p.clickOnGrid(clickGrid);
+    play();
+    listenTimer.current = setTimeout(() => {
+      pause();
+      p.clickOnGrid(null);
+    }, seconds * 1000);
+  };
+  useEffect(() => () => {
+    if (listenTimer.current) clearTimeout(listenTimer.current);
+  }, []);
+
   const setCountIn = (on: boolean) => {
     if (player.current) player.current.countInOn = on;
     setCountInState(on);
@@ -96,7 +114,7 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   };
 
   return {
-    player, onLoopPassRef, ready, failure, setFailure, playing, play, pause, togglePlay, getPosition, seek, skip,
-    bpm, setBpm, loop, setLoop, countInOn, setCountIn, clickOn, setClickOn, clickLevel, setClickLevel, musicLevel, setMusicLevel,
+    player, onLoopPassRef, ready, failure, setFailure, playing, play, pause, togglePlay, getPosition, getCountInBeat, seek, skip,
+    bpm, setBpm, loop, setLoop, listen, countInOn, setCountIn, clickOn, setClickOn, clickLevel, setClickLevel, musicLevel, setMusicLevel,
   };
 }

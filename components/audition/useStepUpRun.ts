@@ -4,10 +4,10 @@
 import { useEffect, useRef, useState } from 'react';
 import { MAX_SPEED, MIN_SPEED } from '@/client/player';
 import { logPractice } from '@/client/hooks';
-import { describePassage, type Passage } from '@/audio/practice/passage';
+import { barsOf, describePassage, type Passage } from '@/audio/practice/passage';
 import { passFinished, startStepUp, type StepUpPlan, type StepUpState } from '@/audio/practice/step-up';
 import { formatBpm, plural, tenth } from '@/shared/format';
-import type { Song } from '@/shared/schemas';
+import type { Passage as SavedPassage, PracticeInput, Song } from '@/shared/schemas';
 import type { AuditionPlayerState } from './useAuditionPlayer';
 
 // The plan offered before the player changes it (each field can be edited before the run starts).
@@ -19,9 +19,18 @@ const DEFAULT_START_SHARE = 0.7;
 const DEFAULT_STEP_BPM = 4;
 const DEFAULT_REPS_PER_STEP = 3;
 
-export function useStepUpRun({ audition, song, canLog, downbeats, originalBpm }: {
+/** What a practice entry on `loop` refers to: the saved passage it is, or the recording's region and its bars. */
+export function entryRegion(loop: Passage, recordingId: string, downbeats: number[], saved: SavedPassage | null): Partial<PracticeInput> {
+  if (saved) return { passageId: saved.id };
+  return { recordingId, startSec: loop.start, endSec: loop.end, ...barsOf(loop, downbeats) };
+}
+
+export function useStepUpRun({ audition, song, recordingId, saved, canLog, downbeats, originalBpm }: {
   audition: AuditionPlayerState;
   song: Song | undefined;
+  recordingId: string;
+  /** The saved passage the loop is, if it is one: the entry refers to it and its tempos start the plan. */
+  saved: SavedPassage | null;
   /** Only the song's owner writes its practice log. */
   canLog: boolean;
   downbeats: number[];
@@ -37,11 +46,12 @@ export function useStepUpRun({ audition, song, canLog, downbeats, originalBpm }:
     run.current = null;
     if (!r || s.repetitions === 0 || !song) return;
     const minutes = tenth((Date.now() - r.startedAt) / 60000);
-    const passage = loop ? describePassage(loop, downbeats) : null;
+    const passage = saved?.name ?? (loop ? describePassage(loop, downbeats) : null);
+    const region = loop ? entryRegion(loop, recordingId, downbeats, saved) : {};
     const reached = s.reachedBpm ?? s.plan.startBpm;
     if (!canLog) return;
     try {
-      await logPractice(song.id, { passage, startBpm: s.plan.startBpm, reachedBpm: reached, repetitions: s.repetitions, minutes, clean: s.done });
+      await logPractice(song.id, { ...region, passage, startBpm: s.plan.startBpm, reachedBpm: reached, repetitions: s.repetitions, minutes, clean: s.done });
       setLogged(`Logged: ${passage ?? 'the recording'}, ${formatBpm(s.plan.startBpm)} → ${formatBpm(reached)} BPM, ${plural(s.repetitions, 'repetition')}, ${minutes} min.`);
     } catch (e) {
       setLogged(null);
@@ -90,10 +100,10 @@ export function useStepUpRun({ audition, song, canLog, downbeats, originalBpm }:
   };
 
   const defaultPlan: StepUpPlan = {
-    startBpm: tenth(Math.max(originalBpm * MIN_SPEED, song?.workingBpm ?? originalBpm * DEFAULT_START_SHARE)),
+    startBpm: tenth(Math.max(originalBpm * MIN_SPEED, saved?.workingBpm ?? song?.workingBpm ?? originalBpm * DEFAULT_START_SHARE)),
     stepBpm: DEFAULT_STEP_BPM,
     repsPerStep: DEFAULT_REPS_PER_STEP,
-    goalBpm: tenth(Math.min(originalBpm * MAX_SPEED, song?.goalBpm ?? originalBpm)),
+    goalBpm: tenth(Math.min(originalBpm * MAX_SPEED, saved?.goalBpm ?? song?.goalBpm ?? originalBpm)),
   };
 
   return {

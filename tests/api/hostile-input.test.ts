@@ -3,7 +3,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import request from 'supertest';
-import { baseUrl, signedInUser, waitForAnalysis } from './helpers';
+import { signedInUser, waitForAnalysis } from './helpers';
 import { root } from '@/tests/setup/processes';
 
 let player: Awaited<ReturnType<typeof signedInUser>>;

@@ -105,7 +105,8 @@ test('75 %, an exact BPM, three candidates hopped while playing, the chosen temp
   await page.getByTestId('candidate-110').getByText('Chosen tempo').waitFor();
   await page.getByTestId('candidate-110').getByText('“Danceable without rushing the turns.”').waitFor();
   expect(await page.getByTestId('candidate-note-110').inputValue()).toBe('the rolls sit cleanly here');
-  expect(await page.getByTestId('candidate-110').getByText('●').count()).toBe(4);
+  expect(await page.getByTestId('candidate-110').getByText('★').count()).toBe(4);
+  await page.getByTestId('candidate-110').getByText('4 of 5').waitFor();
   const saved = (await player.agent.get(`/api/songs/${song.id}`).expect(200)).body;
   expect(saved).toMatchObject({ chosenBpm: 110, chosenNote: 'Danceable without rushing the turns.' });
 

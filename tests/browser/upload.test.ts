@@ -48,11 +48,13 @@ describe.each(viewports)('upload at $name width', (viewport) => {
     await page.getByText('4/4').first().waitFor();
     await page.screenshot({ path: path.join(outputDir, `recording-result-${viewport.name}.png`), fullPage: true });
 
-    // The player halves the tempo; the correction is stored.
-    await page.getByText(/^½ → /).click();
-    await page.getByText('Tempo (your correction)').waitFor();
+    // The player feels the beat at half the level found: the tempo shown halves and the choice is stored.
+    await page.getByTestId('level-half').click();
+    await page.getByText('Tempo (the beat you feel)').waitFor();
+    const halved = Number((await page.getByTestId('detected-bpm').innerText()).replace(/[^\d.]/g, ''));
+    expect(halved).toBeCloseTo(bpm / 2, 0);
     const saved = (await player.agent.get(`/api/songs/${song.id}/recordings`).expect(200)).body.recordings[0];
-    expect(saved.correctedBpm).toBeCloseTo(bpm / 2, 0);
+    expect(saved.beatLevel).toBe('half');
     expect(errors).toEqual([]);
     await context.close();
   });

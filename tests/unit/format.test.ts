@@ -1,7 +1,7 @@
 // How numbers read on screen. Worked examples by hand; the notations are common practice: durations as
 // minutes:seconds (m:ss, as players and track lists show them), tempos in BPM to a tenth at most, and English
 // count nouns singular for exactly one ("1 repetition"), plural otherwise, zero included ("0 repetitions").
-import { formatBpm, formatClock, formatDate, formatDuration, plural, parseClock, tenth, whose } from '@/shared/format';
+import { formatBpm, formatClock, formatDate, formatDateTime, formatDuration, parseClock, plural, tenth, whose } from '@/shared/format';
 
 describe('tenth', () => {
   test('rounds to one decimal place', () => {
@@ -67,11 +67,19 @@ describe('plural', () => {
   });
 });
 
-test('dates read in the reader’s locale with the month in words (Unicode CLDR patterns, as Intl gives them)', () => {
-  const day = '2026-12-02T12:00:00Z'; // midday UTC: the same calendar day in every time zone from −11 to +11 hours
-  expect(formatDate(day, 'en-GB')).toBe('2 Dec 2026');
-  expect(formatDate(day, 'en-US')).toBe('Dec 2, 2026');
-  expect(formatDate(day, 'de-DE')).toBe('2. Dez. 2026');
+describe('formatDate and formatDateTime', () => {
+  // The orders and month names are the CLDR locale data's, through Intl (ECMA-402); the same instant reads
+  // day-month in British English and month-day in American English.
+  const at = new Date(Date.UTC(2026, 11, 2, 14, 5));
+  test('dates in the locale asked for', () => {
+    expect(formatDate(at, 'en-GB')).toMatch(/^2 Dec 2026$/);
+    expect(formatDate(at, 'en-US')).toMatch(/^Dec 2, 2026$/);
+    expect(formatDate(at.toISOString(), 'de-DE')).toMatch(/^02\.12\.2026$/);
+  });
+  test('a time of day in the locale’s clock', () => {
+    expect(formatDateTime(at, 'en-US')).toMatch(/\d{1,2}:05\s?[AP]M$/);
+    expect(formatDateTime(at, 'de-DE')).toMatch(/^02\.12\.2026, \d{2}:05$/);
+  });
 });
 
 test('whose: one’s own things are "your", someone else’s carry their first name', () => {

@@ -1,18 +1,18 @@
 // A recording: its analysis as it runs, then the tempo with its confidence and related tempos, the beat grid
-// over the waveform with the audition player, and the player's correction.
+// over the waveform with the audition player and the beat the player feels (the correction lives in the player).
 import React from 'react';
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { Text, View } from 'react-native';
 import { Body, Button, Card, Heading, Loading, Notice, Screen, Small } from '@/components/ui';
 import { Waveform } from '@/components/Waveform';
 import { ProgressBar } from '@/components/ProgressBar';
-import { TempoCorrection } from '@/components/TempoCorrection';
 import { AuditionPanel } from '@/components/AuditionPanel';
 import { TempoCurveChart } from '@/components/charts/TempoCurveChart';
 import { apiBase } from '@/client/api';
 import { formatBpm, formatDuration, plural, tenth, whose } from '@/shared/format';
 import { colors, space, type } from '@/components/theme';
-import { correctRecording, retryAnalysis, useMe, usePeaks, useRecording, useSong } from '@/client/hooks';
+import { LEVEL_FACTOR } from '@/audio/practice/beat-grid';
+import { retryAnalysis, useMe, usePeaks, useRecording, useSong } from '@/client/hooks';
 import { NotesPanel } from '@/components/NotesPanel';
 import { ScreenTitle } from '@/components/ScreenTitle';
 
@@ -26,7 +26,8 @@ export default function RecordingScreen() {
   if (error) return <Screen><Notice tone="error">This recording could not be opened: {error.message}</Notice></Screen>;
   if (!r) return <Loading />;
   const a = r.analysis;
-  const bpm = r.originalBpm;
+  // The tempo at the level the player feels (half or double of the one found or corrected).
+  const bpm = r.originalBpm === null ? null : r.originalBpm * LEVEL_FACTOR[r.beatLevel];
 
   return (
     <Screen testID="recording" wide>
@@ -57,7 +58,7 @@ export default function RecordingScreen() {
       {r.status === 'done' && a ? (
         <>
           <Card testID="tempo-result">
-            <Small>{r.correctedBpm !== null ? 'Tempo (your correction)' : 'Detected tempo'}</Small>
+            <Small>{r.correctedBpm !== null || r.beatLevel !== 'as-found' ? 'Tempo (the beat you feel)' : 'Detected tempo'}</Small>
             <Text style={[type.tempo, { color: colors.amber }]} testID="detected-bpm">
               {bpm === null ? 'No steady beat' : formatBpm(tenth(bpm))}
               {bpm === null ? null : <Text style={[type.h3, { color: colors.muted }]}> BPM</Text>}
@@ -69,7 +70,8 @@ export default function RecordingScreen() {
             {a.confidence < 0.4 ? <Notice tone="caution">Tactus is not sure about this one: check it by tapping along.</Notice> : null}
           </Card>
           {bpm !== null ? (
-            <AuditionPanel key={`${r.id}-${bpm}`} recording={r} song={song} peaks={peaks} canEdit={r.permissions.edit} audioUrl={`${apiBase}/api/recordings/${r.id}/audio`} />
+            // A new grid (tempo, level, bar 1, nudge) makes a new player with it.
+            <AuditionPanel key={`${r.id}-${bpm}-${r.barOneSec}-${r.nudgeMs}`} recording={r} song={song} peaks={peaks} canEdit={r.permissions.edit} audioUrl={`${apiBase}/api/recordings/${r.id}/audio`} />
           ) : peaks ? (
             <Card>
               <Waveform minMax={peaks.minMax} durationSec={peaks.durationSec} beats={a.beats} downbeats={a.downbeats} testID="waveform" />
@@ -80,12 +82,6 @@ export default function RecordingScreen() {
             <TempoCurveChart analysis={a} song={song} />
           </Card>
           <NotesPanel recording={r} />
-          {bpm !== null && r.permissions.edit ? (
-            <Card>
-              <Heading level={3}>Correct the tempo</Heading>
-              <TempoCorrection analysis={a} current={bpm} onChoose={(value) => correctRecording(r.id, { correctedBpm: value })} />
-            </Card>
-          ) : null}
         </>
       ) : null}
     </Screen>
