@@ -3,7 +3,10 @@
 // tempo changes. Beat positions are then refined to the sub-frame peak of the onset envelope.
 
 import { parabolicOffset } from './numbers';
+import { median } from './curve';
 
+/** Edge beats weaker than this fraction of the median beat strength lie outside the music (half, as before). */
+const EDGE_FRACTION = 0.5;
 export interface BeatTrackOptions {
   /** How strongly beat-to-beat intervals are held to the local period (Ellis's α; librosa's 100). */
   tightness?: number;
@@ -77,12 +80,15 @@ export function trackBeats(onset: Float32Array, periodAt: Float32Array, opts: Be
   return trimWeakEdges(frames, local).map((f) => refinePeak(onset, f));
 }
 
-/** Drops leading and trailing beats that fall where there is no music (below half the RMS of the beat strengths). */
+/**
+ * Drops leading and trailing beats that fall where there is no music: below half the median beat strength.
+ * The median, not the RMS: one outsize onset (a clip cut in mid-sound starts with a burst of flux 20× a
+ * beat's) would lift an RMS threshold above every other beat and trim away all but the first few.
+ */
 function trimWeakEdges(frames: number[], local: Float32Array): number[] {
   if (frames.length < 3) return frames;
   const strengths = frames.map((f) => local[f]!);
-  const rms = Math.sqrt(strengths.reduce((a, s) => a + s * s, 0) / strengths.length);
-  const threshold = 0.5 * rms;
+  const threshold = EDGE_FRACTION * median(strengths);
   let a = 0;
   let b = frames.length - 1;
   while (a < b && strengths[a]! < threshold) a++;
