@@ -5,11 +5,11 @@ import { onsetEnvelope } from './onset';
 import { bpmToLag, globalPeriodicity, localPulse, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
 import { estimateTempo, relationTo } from './tempo';
 import { round } from './numbers';
-import { trackBeats } from './beats';
+import { beatsWithOffBeatBass, trackBeats } from './beats';
 import { estimateMeter } from './meter';
 import { regressionBpm, summarise, tempoCurve, interBeatTempi, median } from './curve';
 import { ANALYSIS_RATE, resample } from './resample';
-import { chooseLevel, levelCandidates, type LevelCandidate, type LevelModel } from './level';
+import { chooseLevel, levelCandidates, LEVEL_MAX_BPM, type LevelCandidate, type LevelModel } from './level';
 import { LEVEL_MODEL } from './level-weights';
 
 const TEMPO_PATH_RANGE = 1.32;
@@ -60,12 +60,15 @@ export function analyse(samples: Float32Array, sampleRate: number, options: Anal
   const periodicity = globalPeriodicity(env.strength, fr);
   const tempo = estimateTempo(periodicity, (b) => localPulse(env.strength, fr, b));
   if (!tempo) return finish(empty);
-  const level = chooseLevel(levelCandidates(periodicity, env.strength, env.low, tempo.bpm), options.levelModel ?? LEVEL_MODEL);
-  const globalBpm = level?.bpm ?? tempo.bpm;
+  const level = chooseLevel(
+    levelCandidates(periodicity, env.strength, env.low, tempo.bpm),
+    options.levelModel ?? LEVEL_MODEL,
+  );
+  const modelBpm = level?.bpm ?? tempo.bpm;
 
   // Follow the tempo over time within ±35 % of the global period (a ritardando of a quarter, a ramp from 90 to
   // 130), which keeps the grid on its metrical level: ×4/3 and ×3/2 pulses lie outside it.
-  const lag0 = bpmToLag(globalBpm, fr);
+  const lag0 = bpmToLag(modelBpm, fr);
   const minLag = Math.max(2, Math.floor(Math.max(bpmToLag(MAX_BPM, fr), lag0 / TEMPO_PATH_RANGE)));
   const maxLag = Math.ceil(Math.min(bpmToLag(MIN_BPM, fr), lag0 * TEMPO_PATH_RANGE));
   const tg = localTempogram(env.strength, fr, minLag, maxLag);
@@ -79,23 +82,35 @@ export function analyse(samples: Float32Array, sampleRate: number, options: Anal
     periodAt[i] = path[w]! * (1 - f) + path[Math.min(w + 1, path.length - 1)]! * f;
   }
 
-  const beatFrames = trackBeats(env.strength, periodAt);
+  const tracked = trackBeats(env.strength, periodAt);
+  // The bass between the beats may say the beat is twice as fast (beats.ts), within the range of a beat.
+  const withOffBeats = 2 * modelBpm <= LEVEL_MAX_BPM ? beatsWithOffBeatBass(tracked, env.strength, env.low) : null;
+  const beatFrames = withOffBeats ?? tracked;
+  const globalBpm = withOffBeats ? 2 * modelBpm : modelBpm;
   const toSec = (f: number) => f / fr + env.offsetSec - ONSET_LATENCY_SEC;
   const beats = beatFrames.map((f) => round(Math.max(0, toSec(f)), 4));
   const summary = summarise(beats);
   const meter = estimateMeter(beatFrames, env.low, env.strength);
-  const downbeats = meter ? beats.filter((_, i) => i >= meter.phase && (i - meter.phase) % meter.beatsPerBar === 0) : [];
+  const downbeats = meter
+    ? beats.filter((_, i) => i >= meter.phase && (i - meter.phase) % meter.beatsPerBar === 0)
+    : [];
 
   // Steady pieces: the regression through all beats gives sub-BPM precision; otherwise the median beat tempo.
   const steady = summary !== null && summary.stabilityCv < STEADY_CV && Math.abs(summary.driftPct) < 3;
-  const fromBeats = steady ? regressionBpm(beats) : beats.length > 2 ? median(interBeatTempi(beats).map((x) => x.bpm)) : null;
+  const fromBeats = steady
+    ? regressionBpm(beats)
+    : beats.length > 2
+      ? median(interBeatTempi(beats).map((x) => x.bpm))
+      : null;
   const bpm = fromBeats && Math.abs(fromBeats / globalBpm - 1) < 0.5 ? fromBeats : globalBpm;
 
   // The chosen tempo first, then the other periodicity peaks named by their relation to it.
   const chosenScore = tempo.candidates.find((c) => Math.abs(c.bpm / globalBpm - 1) <= 0.04)?.score ?? 0;
   const candidates = [
     { bpm: round(bpm, 1), score: chosenScore, relation: 'primary' as const },
-    ...tempo.candidates.filter((c) => Math.abs(c.bpm / globalBpm - 1) > 0.04).map((c) => ({ ...c, relation: relationTo(c.bpm, bpm) })),
+    ...tempo.candidates
+      .filter((c) => Math.abs(c.bpm / globalBpm - 1) > 0.04)
+      .map((c) => ({ ...c, relation: relationTo(c.bpm, bpm) })),
   ];
   return finish({
     bpm: round(bpm, 2),
@@ -111,7 +126,7 @@ export function analyse(samples: Float32Array, sampleRate: number, options: Anal
     stabilityCv: summary?.stabilityCv ?? null,
     beatCount: beats.length,
     levelAmbiguous: level?.ambiguous ?? false,
-    levels: level?.levels ?? [],
+    levels: withOffBeats && level ? doubledLevels(level.levels, globalBpm) : (level?.levels ?? []),
     durationSec: round(durationSec, 3),
     analysisMs: 0,
   });
@@ -127,10 +142,15 @@ export function levelCandidatesOf(samples: Float32Array, sampleRate: number): Le
   return tempo ? levelCandidates(periodicity, env.strength, env.low, tempo.bpm) : [];
 }
 
+/** The doubled grid's tempo first (with the model's probability for it, 0 when it was no candidate), then the model's choice. */
+function doubledLevels(levels: { bpm: number; strength: number }[], bpm: number): { bpm: number; strength: number }[] {
+  const own = levels.find((l) => relationTo(l.bpm, bpm) === 'primary');
+  return [{ bpm: round(bpm, 1), strength: own?.strength ?? 0 }, levels[0]!];
+}
+
 /** Periodicity strength, discounted when the beats wander: both must hold for a confident answer. */
 function confidenceFrom(strength: number, cv: number): number {
   const periodic = Math.max(0, Math.min(1, (strength - 0.05) / 0.45));
   const regular = Math.max(0, Math.min(1, 1 - cv / 0.25));
   return periodic * (0.5 + 0.5 * regular);
 }
-
