@@ -7,7 +7,18 @@ const prettier = require('eslint-config-prettier/flat');
 const globals = require('globals');
 
 module.exports = defineConfig([
-  { ignores: ['dist/', 'public/', '.expo/', 'expo-env.d.ts', 'node_modules/', 'test-output/', '.tactus/', 'fixtures/corpus/'] },
+  {
+    ignores: [
+      'dist/',
+      'public/',
+      '.expo/',
+      'expo-env.d.ts',
+      'node_modules/',
+      'test-output/',
+      '.tactus/',
+      'fixtures/corpus/',
+    ],
+  },
   expoConfig,
   tseslint.configs.recommended,
   prettier,

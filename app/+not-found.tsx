@@ -12,7 +12,8 @@ export default function NotFound() {
       <Card>
         <Heading>Nothing plays at this address</Heading>
         <Body>
-          The page may have moved, or the link was copied only in part. Your songs and recordings are where you left them.
+          The page may have moved, or the link was copied only in part. Your songs and recordings are where you left
+          them.
         </Body>
         <Button label="Go to your library" onPress={() => router.replace('/')} testID="not-found-home" />
       </Card>

@@ -29,11 +29,12 @@ export async function apiFetch<T>(path: string, init: { method?: string; body?: 
   if (!res.ok) {
     // Our API answers { error: {...} }; better-auth answers { message, code }.
     const ours = ApiErrorSchema.safeParse(data);
-    if (ours.success) throw new ApiRequestError(res.status, ours.data.error.message, ours.data.error.field, ours.data.error.code);
+    if (ours.success)
+      throw new ApiRequestError(res.status, ours.data.error.message, ours.data.error.field, ours.data.error.code);
     const message = (data && typeof data.message === 'string' && data.message) || `request failed (${res.status})`;
     throw new ApiRequestError(res.status, message, undefined, data?.code);
   }
   return data as T;
 }
 
-export const fetcher = <T,>(path: string) => apiFetch<T>(path);
+export const fetcher = <T>(path: string) => apiFetch<T>(path);

@@ -9,7 +9,8 @@ const modules = new Map<string, Promise<void>>();
 
 export function audioContext(): AudioContext {
   if (!shared || shared.state === 'closed') {
-    const Ctx = window.AudioContext ?? (window as unknown as { webkitAudioContext: typeof AudioContext }).webkitAudioContext;
+    const Ctx =
+      window.AudioContext ?? (window as unknown as { webkitAudioContext: typeof AudioContext }).webkitAudioContext;
     shared = new Ctx();
     modules.clear();
   }

@@ -2,7 +2,6 @@
 import { apiFetch, ApiRequestError } from './api';
 import { AUTH_MESSAGES } from '@/shared/messages';
 
-
 async function call(path: string, body: unknown) {
   try {
     return await apiFetch<unknown>(`/api/auth${path}`, { body });
@@ -15,7 +14,8 @@ async function call(path: string, body: unknown) {
 }
 
 /** Only a path of this app (never another site) is followed after signing in. */
-export const safeNext = (next: string | undefined | null) => (next && next.startsWith('/') && !next.startsWith('//') ? next : null);
+export const safeNext = (next: string | undefined | null) =>
+  next && next.startsWith('/') && !next.startsWith('//') ? next : null;
 
 /** `next`: where to go after the e-mail is confirmed and the person signs in (an invitation, say). */
 export const signUp = (name: string, email: string, password: string, next?: string | null) =>
@@ -28,5 +28,6 @@ export const signUp = (name: string, email: string, password: string, next?: str
 export const signIn = (email: string, password: string) =>
   call('/sign-in/email', { email, password, callbackURL: '/sign-in?confirmed=1' });
 export const signOut = () => call('/sign-out', {});
-export const requestPasswordReset = (email: string) => call('/request-password-reset', { email, redirectTo: '/reset-password' });
+export const requestPasswordReset = (email: string) =>
+  call('/request-password-reset', { email, redirectTo: '/reset-password' });
 export const resetPassword = (token: string, newPassword: string) => call('/reset-password', { token, newPassword });

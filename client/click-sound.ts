@@ -5,7 +5,12 @@
 export const DEFAULT_CLICK_GAIN = 0.25;
 
 /** Schedules one click at context time `at`; returns the oscillator so a stale click can be cancelled. */
-export function scheduleBlip(ctx: BaseAudioContext, destination: AudioNode, at: number, accent: boolean): OscillatorNode {
+export function scheduleBlip(
+  ctx: BaseAudioContext,
+  destination: AudioNode,
+  at: number,
+  accent: boolean,
+): OscillatorNode {
   const osc = ctx.createOscillator();
   const env = ctx.createGain();
   osc.frequency.value = accent ? 1760 : 1320;

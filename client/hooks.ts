@@ -1,7 +1,32 @@
 // SWR hooks: how screens read server data. Mutations revalidate the keys they change.
 import useSWR, { mutate } from 'swr';
 import { ApiRequestError, apiFetch, fetcher } from './api';
-import type { Candidate, Invitation, Me, Note, NoteInput, NotePatch, Passage, PassageInput, PassagePatch, PeaksDto, PracticeEntryDto, PracticeInput, Preferences, ReceivedInvitation, Recording, RecordingPatch, Role, Song, SongInput, SongPatch, SongTempos, Student, Teacher, UserSummary } from '@/shared/schemas';
+import type {
+  Candidate,
+  Invitation,
+  Me,
+  Note,
+  NoteInput,
+  NotePatch,
+  Passage,
+  PassageInput,
+  PassagePatch,
+  PeaksDto,
+  PracticeEntryDto,
+  PracticeInput,
+  Preferences,
+  ReceivedInvitation,
+  Recording,
+  RecordingPatch,
+  Role,
+  Song,
+  SongInput,
+  SongPatch,
+  SongTempos,
+  Student,
+  Teacher,
+  UserSummary,
+} from '@/shared/schemas';
 
 export function useMe() {
   const { data, error, isLoading } = useSWR<Me>('/api/me', fetcher, { shouldRetryOnError: false });
@@ -55,13 +80,21 @@ export function useReceivedInvitations() {
 
 /** The invitation a mailed link points at; works signed in or not. */
 export function useInvitationByToken(token: string | undefined) {
-  const { data, error, isLoading } = useSWR<ReceivedInvitation>(token ? `/api/invitations/token/${token}` : null, fetcher, { shouldRetryOnError: false });
+  const { data, error, isLoading } = useSWR<ReceivedInvitation>(
+    token ? `/api/invitations/token/${token}` : null,
+    fetcher,
+    { shouldRetryOnError: false },
+  );
   return { invitation: data, error, isLoading };
 }
 
 export async function answerInvitation(id: string, answer: 'accept' | 'decline', token?: string) {
   await apiFetch(`/api/invitations/${id}/${answer}`, { method: 'POST', body: {} });
-  await Promise.all([mutate('/api/invitations/received'), mutate('/api/teachers'), token ? mutate(`/api/invitations/token/${token}`) : null]);
+  await Promise.all([
+    mutate('/api/invitations/received'),
+    mutate('/api/teachers'),
+    token ? mutate(`/api/invitations/token/${token}`) : null,
+  ]);
 }
 
 export function useTeachers() {

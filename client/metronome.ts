@@ -29,7 +29,11 @@ export class Metronome {
     if (!this.gain || !this.clicksOut) {
       this.gain = ctx.createGain();
       this.gain.connect(ctx.destination);
-      this.clicksOut = new ClickScheduler(ctx, this.gain, (from, until) => this.timeline?.clicksBetween(from, until) ?? []);
+      this.clicksOut = new ClickScheduler(
+        ctx,
+        this.gain,
+        (from, until) => this.timeline?.clicksBetween(from, until) ?? [],
+      );
     }
     this.gain.gain.value = this.volume;
     const start = ctx.currentTime + START_MARGIN_SEC;

@@ -3,7 +3,13 @@
 // the browser offers none (an insecure origin, an old browser) the same code runs in a ScriptProcessor on the
 // main thread. The main thread keeps a copy of the playback timeline for the click, which it schedules on the
 // recording's beat grid (audio/playback/click.ts), and for the position shown.
-import { beatsPerBar as perBarOf, clicksBetween, countIn, PlaybackMap, type PlaybackSegment } from '@/audio/playback/click';
+import {
+  beatsPerBar as perBarOf,
+  clicksBetween,
+  countIn,
+  PlaybackMap,
+  type PlaybackSegment,
+} from '@/audio/playback/click';
 import type { StartOptions } from '@/audio/playback/live-playback';
 import { PlaybackHost, type FromEngine, type RenderStats, type ToEngine } from '@/audio/playback/playback-host';
 import { wrapIntoLoop, type Passage } from '@/audio/practice/passage';
@@ -70,9 +76,19 @@ export class AuditionPlayer {
   onLoopPass: ((pass: number) => void) | null = null;
   /** Called when playback reaches the end of the recording and stops. */
   onEnded: (() => void) | null = null;
-  readonly stats: PlayerStats = { engine: 'audio-worklet', changeLatencies: [], busyMs: 0, audioMs: 0, blocks: 0, maxBlockMs: 0 };
+  readonly stats: PlayerStats = {
+    engine: 'audio-worklet',
+    changeLatencies: [],
+    busyMs: 0,
+    audioMs: 0,
+    blocks: 0,
+    maxBlockMs: 0,
+  };
 
-  constructor(private readonly url: string, private readonly grid: PlayerGrid) {}
+  constructor(
+    private readonly url: string,
+    private readonly grid: PlayerGrid,
+  ) {}
 
   get durationSec() {
     return this.decoded?.durationSec ?? 0;
@@ -93,7 +109,12 @@ export class AuditionPlayer {
     this.clickGain = ctx.createGain();
     this.clickGain.gain.value = DEFAULT_CLICK_GAIN;
     this.clickGain.connect(ctx.destination);
-    this.clicks = new ClickScheduler(ctx, this.clickGain, (from, until) => this.beatClicks(from, until), (now) => this.checkEnd(now));
+    this.clicks = new ClickScheduler(
+      ctx,
+      this.clickGain,
+      (from, until) => this.beatClicks(from, until),
+      (now) => this.checkEnd(now),
+    );
     this.engine = (await this.workletEngine(ctx, audio)) ?? this.scriptProcessorEngine(ctx, audio);
     this.engine.node.connect(this.musicGain);
     // Thrown away while it loaded (the screen was left): what was just made leaves the page's context too.
@@ -260,13 +281,20 @@ export class AuditionPlayer {
     } catch {
       return null;
     }
-    const node = new AudioWorkletNode(ctx, 'tactus-stretch', { numberOfInputs: 0, numberOfOutputs: 1, outputChannelCount: [2] });
+    const node = new AudioWorkletNode(ctx, 'tactus-stretch', {
+      numberOfInputs: 0,
+      numberOfOutputs: 1,
+      outputChannelCount: [2],
+    });
     node.port.onmessage = (e: MessageEvent<FromEngine>) => this.receive(e.data);
     // The worklet gets its own copy of the samples, handed over without a second copy; the decoded buffer is
     // then dropped on this side.
     const left = audio.left.slice();
     const right = audio.right === audio.left ? null : audio.right.slice();
-    node.port.postMessage({ type: 'load', left, right } satisfies ToEngine, right ? [left.buffer, right.buffer] : [left.buffer]);
+    node.port.postMessage(
+      { type: 'load', left, right } satisfies ToEngine,
+      right ? [left.buffer, right.buffer] : [left.buffer],
+    );
     this.stats.engine = 'audio-worklet';
     return { node, send: (m) => node.port.postMessage(m) };
   }
@@ -274,13 +302,18 @@ export class AuditionPlayer {
   private scriptProcessorEngine(ctx: AudioContext, audio: StereoBuffer): Engine {
     this.audio = audio;
     // Reports go out of the audio callback asynchronously, as the worklet's messages do.
-    const host = new PlaybackHost(this.sampleRate, (m) => setTimeout(() => this.receive(m), 0), () => performance.now());
+    const host = new PlaybackHost(
+      this.sampleRate,
+      (m) => setTimeout(() => this.receive(m), 0),
+      () => performance.now(),
+    );
     host.receive({ type: 'load', left: audio.left, right: audio.right === audio.left ? null : audio.right });
     const node = ctx.createScriptProcessor(FALLBACK_BLOCK, 0, 2);
     let nextBlockAt = 0;
     node.onaudioprocess = (e) => {
       // Chromium says when this block will be heard; elsewhere count blocks from the first.
-      const blockAt = Number.isFinite(e.playbackTime) && e.playbackTime > 0 ? e.playbackTime : nextBlockAt || ctx.currentTime;
+      const blockAt =
+        Number.isFinite(e.playbackTime) && e.playbackTime > 0 ? e.playbackTime : nextBlockAt || ctx.currentTime;
       nextBlockAt = blockAt + FALLBACK_BLOCK / ctx.sampleRate;
       host.render(e.outputBuffer.getChannelData(0), e.outputBuffer.getChannelData(1), blockAt);
     };

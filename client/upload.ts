@@ -28,9 +28,16 @@ export function uploadRecording(
       }
       if (xhr.status === 201) return resolve(body as Recording);
       const parsed = ApiErrorSchema.safeParse(body);
-      reject(new ApiRequestError(xhr.status, parsed.success ? parsed.data.error.message : `upload failed (${xhr.status})`, parsed.success ? parsed.data.error.field : undefined));
+      reject(
+        new ApiRequestError(
+          xhr.status,
+          parsed.success ? parsed.data.error.message : `upload failed (${xhr.status})`,
+          parsed.success ? parsed.data.error.field : undefined,
+        ),
+      );
     };
-    xhr.onerror = () => reject(new ApiRequestError(0, 'the upload was interrupted: check your connection and try again'));
+    xhr.onerror = () =>
+      reject(new ApiRequestError(0, 'the upload was interrupted: check your connection and try again'));
     xhr.send(form);
   });
 }

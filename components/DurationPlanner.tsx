@@ -9,7 +9,15 @@ import { barsIn, beatName, beatsInBar, bpmToFit, secondsFor, type BeatUnit } fro
 import { formatBpm, formatClock, parseClock, tenth } from '@/shared/format';
 import type { Recording, Song } from '@/shared/schemas';
 
-export function DurationPlanner({ song, recordings, candidateBpms }: { song: Song; recordings: Recording[]; candidateBpms: number[] }) {
+export function DurationPlanner({
+  song,
+  recordings,
+  candidateBpms,
+}: {
+  song: Song;
+  recordings: Recording[];
+  candidateBpms: number[];
+}) {
   const measured = recordings.find((r) => r.status === 'done' && r.analysis && r.analysis.beatCount > 0);
   const compound = beatsInBar(song.meter, 'felt') !== beatsInBar(song.meter, 'written');
   const [unit, setUnit] = useState<BeatUnit>('felt');
@@ -17,7 +25,9 @@ export function DurationPlanner({ song, recordings, candidateBpms }: { song: Son
   const [target, setTarget] = useState('');
   const perBar = beatsInBar(song.meter, unit);
   // The recording's beats are counted at the level the engine found, i.e. the beat as felt.
-  const measuredBeats = measured ? (measured.analysis!.beatCount * beatsInBar(song.meter, unit)) / beatsInBar(song.meter, 'felt') : null;
+  const measuredBeats = measured
+    ? (measured.analysis!.beatCount * beatsInBar(song.meter, unit)) / beatsInBar(song.meter, 'felt')
+    : null;
   const barCount = Number(bars);
   const beats = bars.trim() && barCount > 0 ? barCount * perBar : measuredBeats;
   const targetSec = parseClock(target);
@@ -39,13 +49,34 @@ export function DurationPlanner({ song, recordings, candidateBpms }: { song: Son
       </Small>
       {compound ? (
         <Row>
-          <Chip label={`BPM counts the ${beatName(song.meter, 'felt')}`} selected={unit === 'felt'} onPress={() => setUnit('felt')} />
-          <Chip label={`BPM counts the ${beatName(song.meter, 'written')}`} selected={unit === 'written'} onPress={() => setUnit('written')} />
+          <Chip
+            label={`BPM counts the ${beatName(song.meter, 'felt')}`}
+            selected={unit === 'felt'}
+            onPress={() => setUnit('felt')}
+          />
+          <Chip
+            label={`BPM counts the ${beatName(song.meter, 'written')}`}
+            selected={unit === 'written'}
+            onPress={() => setUnit('written')}
+          />
         </Row>
       ) : null}
       <Row align="flex-end">
-        <Field label={`Bars of ${song.meter}`} value={bars} onChangeText={setBars} inputMode="numeric" placeholder={measured ? 'as recorded' : ''} testID="planner-bars" />
-        <Field label="Target time (m:ss.s)" value={target} onChangeText={setTarget} placeholder="3:30.0" testID="planner-target" />
+        <Field
+          label={`Bars of ${song.meter}`}
+          value={bars}
+          onChangeText={setBars}
+          inputMode="numeric"
+          placeholder={measured ? 'as recorded' : ''}
+          testID="planner-bars"
+        />
+        <Field
+          label="Target time (m:ss.s)"
+          value={target}
+          onChangeText={setTarget}
+          placeholder="3:30.0"
+          testID="planner-target"
+        />
       </Row>
       {beats ? (
         <View style={{ gap: space.xs }}>
@@ -56,10 +87,12 @@ export function DurationPlanner({ song, recordings, candidateBpms }: { song: Son
           ))}
           {targetSec ? (
             <View testID="planner-fit">
-            <Body style={{ fontWeight: '700' }}>
-              To last {formatClock(targetSec)}: {formatBpm(tenth(bpmToFit(beats, targetSec)))} BPM
-              {song.chosenBpm ? ` (${formatBpm(tenth(barsIn(targetSec, inUnit(song.chosenBpm), perBar)))} bars fit at the chosen tempo)` : ''}
-            </Body>
+              <Body style={{ fontWeight: '700' }}>
+                To last {formatClock(targetSec)}: {formatBpm(tenth(bpmToFit(beats, targetSec)))} BPM
+                {song.chosenBpm
+                  ? ` (${formatBpm(tenth(barsIn(targetSec, inUnit(song.chosenBpm), perBar)))} bars fit at the chosen tempo)`
+                  : ''}
+              </Body>
             </View>
           ) : null}
         </View>

@@ -4,7 +4,15 @@ import React, { useRef } from 'react';
 import { Platform, View } from 'react-native';
 import { Button, Small } from './ui';
 
-export function FilePicker({ onPick, fileName, testID }: { onPick: (file: File) => void; fileName?: string; testID?: string }) {
+export function FilePicker({
+  onPick,
+  fileName,
+  testID,
+}: {
+  onPick: (file: File) => void;
+  fileName?: string;
+  testID?: string;
+}) {
   const input = useRef<HTMLInputElement | null>(null);
   if (Platform.OS !== 'web') return <Small>Uploading works in the web app for now.</Small>;
   return (
@@ -20,8 +28,16 @@ export function FilePicker({ onPick, fileName, testID }: { onPick: (file: File) 
           if (f) onPick(f);
         },
       })}
-      <Button label={fileName ? 'Choose another file' : 'Choose an audio file'} kind="secondary" onPress={() => input.current?.click()} />
-      {fileName ? <Small muted={false}>{fileName}</Small> : <Small>MP3, WAV, FLAC, OGG or M4A, up to 200 MB and 20 minutes.</Small>}
+      <Button
+        label={fileName ? 'Choose another file' : 'Choose an audio file'}
+        kind="secondary"
+        onPress={() => input.current?.click()}
+      />
+      {fileName ? (
+        <Small muted={false}>{fileName}</Small>
+      ) : (
+        <Small>MP3, WAV, FLAC, OGG or M4A, up to 200 MB and 20 minutes.</Small>
+      )}
     </View>
   );
 }

@@ -10,7 +10,10 @@ export function MailSettings() {
   return (
     <Card testID="mail-settings">
       <Heading level={2}>E-mail</Heading>
-      <Small>When your teacher writes notes on your recordings, Tactus can send you one e-mail with all new notes, at most every 15 minutes.</Small>
+      <Small>
+        When your teacher writes notes on your recordings, Tactus can send you one e-mail with all new notes, at most
+        every 15 minutes.
+      </Small>
       <Chip
         label={on ? '✓ E-mail me new notes' : 'E-mail me new notes: off'}
         selected={on}

@@ -15,7 +15,13 @@ const METERS = ['2/4', '3/4', '4/4', '5/4', '6/8', '7/8', '12/8'];
 const MIN = 30;
 const MAX = 300;
 
-export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { initialBpm?: number; initialMeter?: string }) {
+export function MetronomePanel({
+  initialBpm = 100,
+  initialMeter = '4/4',
+}: {
+  initialBpm?: number;
+  initialMeter?: string;
+}) {
   const clock = useRef<Metronome | null>(null);
   const [bpm, setBpm] = useState(initialBpm);
   const [meter, setMeter] = useState(initialMeter);
@@ -37,7 +43,9 @@ export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { ini
     setBpm(next);
     clock.current?.set(next, meter);
   };
-  const markings = markingsFor(bpm).map((m) => m.name).join(' · ');
+  const markings = markingsFor(bpm)
+    .map((m) => m.name)
+    .join(' · ');
   return (
     <Card testID="metronome">
       <Heading level={3}>Metronome</Heading>
@@ -57,27 +65,42 @@ export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { ini
       </Row>
       <Row>
         {METERS.map((m) => (
-          <Chip key={m} label={m} selected={meter === m} onPress={() => {
-            setMeter(m);
-            clock.current?.set(bpm, m);
-          }} />
+          <Chip
+            key={m}
+            label={m}
+            selected={meter === m}
+            onPress={() => {
+              setMeter(m);
+              clock.current?.set(bpm, m);
+            }}
+          />
         ))}
       </Row>
       <Row>
-        <Button label={running ? 'Stop' : 'Start'} testID="metronome-start" onPress={() => {
-          const m = clock.current;
-          if (!m) return;
-          if (running) m.stop();
-          else void m.start();
-          setRunning(!running);
-        }} />
-        <Level label="Click" value={level} onChange={(v) => {
-          clock.current?.setVolume(v);
-          setLevel(v);
-        }} testID="metronome-level" />
+        <Button
+          label={running ? 'Stop' : 'Start'}
+          testID="metronome-start"
+          onPress={() => {
+            const m = clock.current;
+            if (!m) return;
+            if (running) m.stop();
+            else void m.start();
+            setRunning(!running);
+          }}
+        />
+        <Level
+          label="Click"
+          value={level}
+          onChange={(v) => {
+            clock.current?.setVolume(v);
+            setLevel(v);
+          }}
+          testID="metronome-level"
+        />
       </Row>
       <Notice tone="caution">
-        Keep the click moderate, above all in headphones: long listening at high levels harms hearing (WHO–ITU H.870, safe listening).
+        Keep the click moderate, above all in headphones: long listening at high levels harms hearing (WHO–ITU H.870,
+        safe listening).
       </Notice>
     </Card>
   );
@@ -87,10 +110,24 @@ export function MetronomePanel({ initialBpm = 100, initialMeter = '4/4' }: { ini
 function BeatLights({ clock, perBar }: { clock: React.RefObject<Metronome | null>; perBar: number }) {
   const now = usePolled(() => clock.current?.beatNow() ?? null, 30);
   return (
-    <View style={{ flexDirection: 'row', gap: space.sm }} accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
+    <View
+      style={{ flexDirection: 'row', gap: space.sm }}
+      accessibilityElementsHidden
+      importantForAccessibility="no-hide-descendants"
+    >
       {Array.from({ length: perBar }, (_, i) => (
-        <View key={i} testID={now === i ? 'beat-lit' : undefined}
-          style={{ width: 18, height: 18, borderRadius: 9, borderWidth: 2, borderColor: i === 0 ? colors.amber : colors.teal, backgroundColor: now === i ? (i === 0 ? colors.amber : colors.teal) : 'transparent' }} />
+        <View
+          key={i}
+          testID={now === i ? 'beat-lit' : undefined}
+          style={{
+            width: 18,
+            height: 18,
+            borderRadius: 9,
+            borderWidth: 2,
+            borderColor: i === 0 ? colors.amber : colors.teal,
+            backgroundColor: now === i ? (i === 0 ? colors.amber : colors.teal) : 'transparent',
+          }}
+        />
       ))}
     </View>
   );

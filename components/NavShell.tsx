@@ -44,7 +44,9 @@ export function NavShell({
                 style={[styles.railItem, isActive(item.href) && styles.railItemActive]}
               >
                 <Text style={[styles.glyph, isActive(item.href) && { color: colors.white }]}>{item.glyph}</Text>
-                <Text style={[type.label, { color: isActive(item.href) ? colors.white : colors.ink }]}>{item.label}</Text>
+                <Text style={[type.label, { color: isActive(item.href) ? colors.white : colors.ink }]}>
+                  {item.label}
+                </Text>
               </Pressable>
             ))}
           </View>
@@ -71,7 +73,12 @@ export function NavShell({
             style={styles.tab}
           >
             <Text style={[styles.glyph, isActive(item.href) && { color: colors.teal }]}>{item.glyph}</Text>
-            <Text style={[type.small, { color: isActive(item.href) ? colors.teal : colors.muted, fontFamily: fonts.bodyMedium }]}>
+            <Text
+              style={[
+                type.small,
+                { color: isActive(item.href) ? colors.teal : colors.muted, fontFamily: fonts.bodyMedium },
+              ]}
+            >
               {item.label}
             </Text>
           </Pressable>
@@ -87,10 +94,15 @@ export function Wordmark() {
     <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
       <View style={{ flexDirection: 'row', gap: 3, alignItems: 'flex-end' }}>
         {[14, 8, 8, 8].map((h, i) => (
-          <View key={i} style={{ width: 5, height: h, borderRadius: 2, backgroundColor: i === 0 ? colors.amber : colors.teal }} />
+          <View
+            key={i}
+            style={{ width: 5, height: h, borderRadius: 2, backgroundColor: i === 0 ? colors.amber : colors.teal }}
+          />
         ))}
       </View>
-      <Text style={{ fontFamily: fonts.displayBold, fontSize: 22, color: colors.teal, letterSpacing: 0.5 }}>Tactus</Text>
+      <Text style={{ fontFamily: fonts.displayBold, fontSize: 22, color: colors.teal, letterSpacing: 0.5 }}>
+        Tactus
+      </Text>
     </View>
   );
 }

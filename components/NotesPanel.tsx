@@ -20,7 +20,13 @@ interface Props {
 const moment = (sec: number) => formatClock(sec).replace(/\.0$/, '');
 
 export const noteWhere = (n: Pick<Note, 'atSec' | 'startSec' | 'endSec' | 'startBar' | 'endBar'>) =>
-  n.atSec != null ? `at ${moment(n.atSec)}` : n.startBar != null ? (n.endBar === n.startBar ? `bar ${n.startBar}` : `bars ${n.startBar}–${n.endBar}`) : `${moment(n.startSec ?? 0)}–${moment(n.endSec ?? 0)}`;
+  n.atSec != null
+    ? `at ${moment(n.atSec)}`
+    : n.startBar != null
+      ? n.endBar === n.startBar
+        ? `bar ${n.startBar}`
+        : `bars ${n.startBar}–${n.endBar}`
+      : `${moment(n.startSec ?? 0)}–${moment(n.endSec ?? 0)}`;
 
 export function NotesPanel({ recording: r, onSeek, onLoop }: Props) {
   const { notes } = useNotes(r.id);
@@ -30,29 +36,61 @@ export function NotesPanel({ recording: r, onSeek, onLoop }: Props) {
   return (
     <Card testID="notes">
       <Heading level={3}>Notes</Heading>
-      {notes && notes.length === 0 ? <Small>No notes yet. A note can mark a moment or a run of bars for the lesson.</Small> : null}
+      {notes && notes.length === 0 ? (
+        <Small>No notes yet. A note can mark a moment or a run of bars for the lesson.</Small>
+      ) : null}
       {open.map((n) => (
         <NoteThread key={n.id} note={n} recordingId={r.id} onSeek={onSeek} onLoop={onLoop} />
       ))}
       {resolved.length ? (
-        <Chip label={showResolved ? 'Hide resolved notes' : `Show ${plural(resolved.length, 'resolved note')}`} onPress={() => setShowResolved(!showResolved)} />
+        <Chip
+          label={showResolved ? 'Hide resolved notes' : `Show ${plural(resolved.length, 'resolved note')}`}
+          onPress={() => setShowResolved(!showResolved)}
+        />
       ) : null}
-      {showResolved ? resolved.map((n) => <NoteThread key={n.id} note={n} recordingId={r.id} onSeek={onSeek} onLoop={onLoop} />) : null}
+      {showResolved
+        ? resolved.map((n) => <NoteThread key={n.id} note={n} recordingId={r.id} onSeek={onSeek} onLoop={onLoop} />)
+        : null}
       {r.permissions.note ? <NewNote recording={r} /> : null}
     </Card>
   );
 }
 
-function NoteThread({ note: n, recordingId, onSeek, onLoop }: { note: Note; recordingId: string } & Pick<Props, 'onSeek' | 'onLoop'>) {
+function NoteThread({
+  note: n,
+  recordingId,
+  onSeek,
+  onLoop,
+}: { note: Note; recordingId: string } & Pick<Props, 'onSeek' | 'onLoop'>) {
   const [reply, setReply] = useState('');
   const [replying, setReplying] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
   const act = (f: () => Promise<void>) => f().catch((e: Error) => setProblem(e.message));
-  const go = () => (n.atSec != null ? onSeek?.(n.atSec) : n.startSec != null && n.endSec != null ? onLoop?.(n.startSec, n.endSec) : undefined);
+  const go = () =>
+    n.atSec != null
+      ? onSeek?.(n.atSec)
+      : n.startSec != null && n.endSec != null
+        ? onLoop?.(n.startSec, n.endSec)
+        : undefined;
   return (
-    <View testID="note" style={{ gap: space.xs, padding: space.md, borderRadius: radius.sm, borderWidth: 1, borderColor: n.resolved ? colors.line : colors.teal }}>
+    <View
+      testID="note"
+      style={{
+        gap: space.xs,
+        padding: space.md,
+        borderRadius: radius.sm,
+        borderWidth: 1,
+        borderColor: n.resolved ? colors.line : colors.teal,
+      }}
+    >
       <Row>
-        <Chip label={noteWhere(n)} onPress={go} hint={n.atSec != null ? 'Play from here' : 'Loop these bars'} testID="note-place" compact />
+        <Chip
+          label={noteWhere(n)}
+          onPress={go}
+          hint={n.atSec != null ? 'Play from here' : 'Loop these bars'}
+          testID="note-place"
+          compact
+        />
         <Small>
           {n.author.name} · {formatDateTime(n.createdAt)}
           {n.resolved ? ' · resolved' : ''}
@@ -75,7 +113,13 @@ function NoteThread({ note: n, recordingId, onSeek, onLoop }: { note: Note; reco
               label="Send the reply"
               kind="secondary"
               disabled={!reply.trim()}
-              onPress={() => act(async () => { await replyToNote(recordingId, n.id, reply.trim()); setReply(''); setReplying(false); })}
+              onPress={() =>
+                act(async () => {
+                  await replyToNote(recordingId, n.id, reply.trim());
+                  setReply('');
+                  setReplying(false);
+                })
+              }
               testID="note-reply-send"
             />
             <Button label="Cancel" kind="quiet" onPress={() => setReplying(false)} />
@@ -84,8 +128,14 @@ function NoteThread({ note: n, recordingId, onSeek, onLoop }: { note: Note; reco
       ) : null}
       <Row>
         {!replying ? <Button label="Reply" kind="quiet" onPress={() => setReplying(true)} testID="note-reply" /> : null}
-        <Button label={n.resolved ? 'Reopen' : 'Mark resolved'} kind="quiet" onPress={() => act(() => changeNote(recordingId, n.id, { resolved: !n.resolved }))} />
-        {n.mine ? <Button label="Delete" kind="quiet" onPress={() => act(() => deleteNote(recordingId, n.id))} /> : null}
+        <Button
+          label={n.resolved ? 'Reopen' : 'Mark resolved'}
+          kind="quiet"
+          onPress={() => act(() => changeNote(recordingId, n.id, { resolved: !n.resolved }))}
+        />
+        {n.mine ? (
+          <Button label="Delete" kind="quiet" onPress={() => act(() => deleteNote(recordingId, n.id))} />
+        ) : null}
       </Row>
       {problem ? <Notice tone="error">{problem}</Notice> : null}
     </View>
@@ -112,7 +162,10 @@ function NewNote({ recording: r }: { recording: Recording }) {
       const first = Number(fromBar);
       const last = Number(toBar || fromBar);
       const region = barsToRegion(first, last, r.analysis?.downbeats ?? [], r.durationSec);
-      if (!region) return setProblem(`Give bars this recording has (1 to ${r.analysis?.downbeats.length ?? 0}), the first before the last.`);
+      if (!region)
+        return setProblem(
+          `Give bars this recording has (1 to ${r.analysis?.downbeats.length ?? 0}), the first before the last.`,
+        );
       place = { startSec: region.start, endSec: region.end, startBar: first, endBar: last };
     }
     setBusy(true);
@@ -129,14 +182,31 @@ function NewNote({ recording: r }: { recording: Recording }) {
     <View style={{ gap: space.sm, marginTop: space.sm }} testID="new-note">
       <Body style={{ fontWeight: '700' }}>Add a note</Body>
       <Row>
-        <Chip label="At a moment" selected={kind === 'moment'} onPress={() => setKind('moment')} testID="note-kind-moment" />
-        <Chip label="On bars" selected={kind === 'bars'} onPress={() => setKind('bars')} disabled={!r.analysis?.downbeats.length} testID="note-kind-bars" />
+        <Chip
+          label="At a moment"
+          selected={kind === 'moment'}
+          onPress={() => setKind('moment')}
+          testID="note-kind-moment"
+        />
+        <Chip
+          label="On bars"
+          selected={kind === 'bars'}
+          onPress={() => setKind('bars')}
+          disabled={!r.analysis?.downbeats.length}
+          testID="note-kind-bars"
+        />
       </Row>
       {kind === 'moment' ? (
         <Field label="At (m:ss)" value={at} onChangeText={setAt} placeholder="0:42" testID="note-at" />
       ) : (
         <Row>
-          <Field label="From bar" value={fromBar} onChangeText={setFromBar} inputMode="numeric" testID="note-from-bar" />
+          <Field
+            label="From bar"
+            value={fromBar}
+            onChangeText={setFromBar}
+            inputMode="numeric"
+            testID="note-from-bar"
+          />
           <Field label="To bar" value={toBar} onChangeText={setToBar} inputMode="numeric" testID="note-to-bar" />
         </Row>
       )}

@@ -9,22 +9,29 @@ import type { PracticeEntryDto } from '@/shared/schemas';
 
 /** The bars an entry was played on, when it names them ("bars 57–60", "bar 3"). */
 const bars = (e: PracticeEntryDto) =>
-  e.startBar === null ? null : e.endBar === null || e.endBar === e.startBar ? `bar ${e.startBar}` : `bars ${e.startBar}–${e.endBar}`;
+  e.startBar === null
+    ? null
+    : e.endBar === null || e.endBar === e.startBar
+      ? `bar ${e.startBar}`
+      : `bars ${e.startBar}–${e.endBar}`;
 
 export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: number }) {
   const { entries } = usePractice(songId);
   if (!entries) return null;
-  if (entries.length === 0) return <Small>No practice logged yet. A finished step-up run on a loop writes its entry here.</Small>;
+  if (entries.length === 0)
+    return <Small>No practice logged yet. A finished step-up run on a loop writes its entry here.</Small>;
   return (
     <View style={{ gap: space.xs }} testID="practice-log">
       {entries.slice(0, limit).map((e) => (
         <View key={e.id} style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'baseline' }}>
           <Text style={[type.label, { color: colors.ink }]}>
             {e.passage ?? 'Whole piece'}
-            {bars(e) && bars(e) !== e.passage ? ` (${bars(e)})` : ''}: {formatBpm(e.startBpm)} → {formatBpm(e.reachedBpm)} BPM
+            {bars(e) && bars(e) !== e.passage ? ` (${bars(e)})` : ''}: {formatBpm(e.startBpm)} →{' '}
+            {formatBpm(e.reachedBpm)} BPM
           </Text>
           <Small>
-            {plural(e.repetitions, 'repetition')} · {e.minutes} min{e.clean ? ' · reached the goal' : ''} · {formatDateTime(e.createdAt)}
+            {plural(e.repetitions, 'repetition')} · {e.minutes} min{e.clean ? ' · reached the goal' : ''} ·{' '}
+            {formatDateTime(e.createdAt)}
           </Small>
         </View>
       ))}

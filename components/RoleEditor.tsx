@@ -16,7 +16,10 @@ export function RoleEditor({ selfId }: { selfId: string }) {
       <Small>Teachers see their linked students’ songs and takes. Admins manage roles.</Small>
       {isLoading ? <Loading /> : null}
       {users?.map((u) => (
-        <View key={u.id} style={{ borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.sm, gap: space.xs }}>
+        <View
+          key={u.id}
+          style={{ borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.sm, gap: space.xs }}
+        >
           <Body>
             {u.name} <Small>{u.email}</Small>
           </Body>

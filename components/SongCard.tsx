@@ -9,16 +9,20 @@ import type { Song } from '@/shared/schemas';
 export function SongCard({ song }: { song: Song }) {
   const router = useRouter();
   return (
-    <Pressable role="link" accessibilityLabel={`Open ${song.title}`} onPress={() => router.navigate(`/songs/${song.id}`)}>
-    <Card testID="song-card">
-      <View style={{ flexDirection: 'row', justifyContent: 'space-between', flexWrap: 'wrap', gap: space.sm }}>
-        <View style={{ flexShrink: 1 }}>
-          <Body style={{ fontWeight: '700' }}>{song.title}</Body>
-          <Small>{[song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
+    <Pressable
+      role="link"
+      accessibilityLabel={`Open ${song.title}`}
+      onPress={() => router.navigate(`/songs/${song.id}`)}
+    >
+      <Card testID="song-card">
+        <View style={{ flexDirection: 'row', justifyContent: 'space-between', flexWrap: 'wrap', gap: space.sm }}>
+          <View style={{ flexShrink: 1 }}>
+            <Body style={{ fontWeight: '700' }}>{song.title}</Body>
+            <Small>{[song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
+          </View>
         </View>
-      </View>
-      <SongTempos working={song.workingBpm} goal={song.goalBpm} chosen={song.chosenBpm} />
-    </Card>
+        <SongTempos working={song.workingBpm} goal={song.goalBpm} chosen={song.chosenBpm} />
+      </Card>
     </Pressable>
   );
 }

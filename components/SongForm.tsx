@@ -11,7 +11,15 @@ const optionalNumber = (s: string) => (s.trim() === '' ? null : Number(s.replace
  * A song's title, composer, meter, goal and working tempo, new or changed (`initial`). Validated with the same
  * schema as the server.
  */
-export function SongForm({ onSubmit, onCancel, initial }: { onSubmit: (input: SongInput) => Promise<void>; onCancel: () => void; initial?: SongInput }) {
+export function SongForm({
+  onSubmit,
+  onCancel,
+  initial,
+}: {
+  onSubmit: (input: SongInput) => Promise<void>;
+  onCancel: () => void;
+  initial?: SongInput;
+}) {
   const text = (n: number | null | undefined) => (n == null ? '' : String(n));
   const [title, setTitle] = useState(initial?.title ?? '');
   const [composer, setComposer] = useState(initial?.composer ?? '');
@@ -56,10 +64,22 @@ export function SongForm({ onSubmit, onCancel, initial }: { onSubmit: (input: So
             <Field label="Meter" value={meter} onChangeText={setMeter} error={errors.meter} hint="e.g. 4/4, 3/4, 6/8" />
           </View>
           <View style={{ flexGrow: 1, flexBasis: 90 }}>
-            <Field label="Goal tempo (BPM)" value={goal} onChangeText={setGoal} inputMode="decimal" error={errors.goalBpm} />
+            <Field
+              label="Goal tempo (BPM)"
+              value={goal}
+              onChangeText={setGoal}
+              inputMode="decimal"
+              error={errors.goalBpm}
+            />
           </View>
           <View style={{ flexGrow: 1, flexBasis: 90 }}>
-            <Field label="Working tempo (BPM)" value={working} onChangeText={setWorking} inputMode="decimal" error={errors.workingBpm} />
+            <Field
+              label="Working tempo (BPM)"
+              value={working}
+              onChangeText={setWorking}
+              inputMode="decimal"
+              error={errors.workingBpm}
+            />
           </View>
         </View>
         {failure ? <Notice tone="error">{failure}</Notice> : null}

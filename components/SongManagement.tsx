@@ -46,24 +46,46 @@ export function SetTempos({ song }: { song: Song }) {
   return (
     <View style={{ gap: space.sm }} testID="set-tempos">
       <Row align="flex-end">
-        <Field label="Working tempo (BPM)" value={working} onChangeText={setWorking} inputMode="decimal" testID="set-working" />
+        <Field
+          label="Working tempo (BPM)"
+          value={working}
+          onChangeText={setWorking}
+          inputMode="decimal"
+          testID="set-working"
+        />
         <Field label="Goal (BPM)" value={goal} onChangeText={setGoal} inputMode="decimal" testID="set-goal" />
         <Button label="Set tempos" kind="secondary" onPress={save} testID="save-tempos" />
       </Row>
       {problem ? <Notice tone="error">{problem}</Notice> : null}
-      {saved ? <Notice tone="success">Saved. {song.permissions.edit ? '' : 'Your student sees that you set them.'}</Notice> : null}
+      {saved ? (
+        <Notice tone="success">Saved. {song.permissions.edit ? '' : 'Your student sees that you set them.'}</Notice>
+      ) : null}
     </View>
   );
 }
 
 /** Change the song's details, or delete it with everything in it (asked once). */
-export function EditOrDeleteSong({ song, recordingCount, onDeleted }: { song: Song; recordingCount: number; onDeleted: () => void }) {
+export function EditOrDeleteSong({
+  song,
+  recordingCount,
+  onDeleted,
+}: {
+  song: Song;
+  recordingCount: number;
+  onDeleted: () => void;
+}) {
   const [mode, setMode] = useState<'idle' | 'editing' | 'confirming'>('idle');
   const [problem, setProblem] = useState<string | null>(null);
   if (mode === 'editing') {
     return (
       <SongForm
-        initial={{ title: song.title, composer: song.composer, meter: song.meter, goalBpm: song.goalBpm, workingBpm: song.workingBpm }}
+        initial={{
+          title: song.title,
+          composer: song.composer,
+          meter: song.meter,
+          goalBpm: song.goalBpm,
+          workingBpm: song.workingBpm,
+        }}
         onCancel={() => setMode('idle')}
         onSubmit={async (input) => {
           await changeSong(song.id, input);
@@ -76,7 +98,8 @@ export function EditOrDeleteSong({ song, recordingCount, onDeleted }: { song: So
     <View style={{ gap: space.sm }}>
       {mode === 'confirming' ? (
         <Notice tone="caution">
-          Delete “{song.title}” with {plural(recordingCount, 'recording')}, its passages, candidate tempos and practice log? This cannot be undone.
+          Delete “{song.title}” with {plural(recordingCount, 'recording')}, its passages, candidate tempos and practice
+          log? This cannot be undone.
         </Notice>
       ) : null}
       <Row>
@@ -107,19 +130,33 @@ export function RecordingActions({ recording: r }: { recording: Recording }) {
   const [mode, setMode] = useState<'idle' | 'renaming' | 'confirming'>('idle');
   const [label, setLabel] = useState(r.label ?? r.originalName ?? '');
   const [problem, setProblem] = useState<string | null>(null);
-  const act = (f: () => Promise<void>) => f().then(() => setMode('idle'), (e: Error) => setProblem(e.message));
+  const act = (f: () => Promise<void>) =>
+    f().then(
+      () => setMode('idle'),
+      (e: Error) => setProblem(e.message),
+    );
   return (
     <View style={{ gap: space.xs }}>
       {mode === 'renaming' ? (
         <Row align="flex-end">
           <Field label="Name" value={label} onChangeText={setLabel} testID="recording-label" />
-          <Button label="Save" kind="secondary" onPress={() => act(() => renameRecording(r, label.trim() || null))} testID="save-recording-label" />
+          <Button
+            label="Save"
+            kind="secondary"
+            onPress={() => act(() => renameRecording(r, label.trim() || null))}
+            testID="save-recording-label"
+          />
           <Button label="Cancel" kind="quiet" onPress={() => setMode('idle')} />
         </Row>
       ) : mode === 'confirming' ? (
         <Row>
           <Small muted={false}>Delete this recording, its analysis, passages and notes?</Small>
-          <Button label="Delete for good" kind="secondary" onPress={() => act(() => deleteRecording(r))} testID="confirm-delete-recording" />
+          <Button
+            label="Delete for good"
+            kind="secondary"
+            onPress={() => act(() => deleteRecording(r))}
+            testID="confirm-delete-recording"
+          />
           <Button label="Keep it" kind="quiet" onPress={() => setMode('idle')} />
         </Row>
       ) : (

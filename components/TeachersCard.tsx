@@ -13,7 +13,8 @@ export function TeachersCard({ invitationsOnly = false }: { invitationsOnly?: bo
   const { invitations } = useReceivedInvitations();
   const { teachers } = useTeachers();
   const [problem, setProblem] = useState<string | null>(null);
-  const answer = (id: string, a: 'accept' | 'decline') => answerInvitation(id, a).catch((e: Error) => setProblem(e.message));
+  const answer = (id: string, a: 'accept' | 'decline') =>
+    answerInvitation(id, a).catch((e: Error) => setProblem(e.message));
   if (!invitations?.length && (invitationsOnly || !teachers?.length)) return null;
   return (
     <Card testID="teachers">
@@ -21,8 +22,8 @@ export function TeachersCard({ invitationsOnly = false }: { invitationsOnly?: bo
       {invitations?.map((i) => (
         <View key={i.id} style={{ gap: space.sm }} testID="received-invitation">
           <Body>
-            <Body style={{ fontWeight: '700' }}>{i.teacherName}</Body> invites you to be their student. They would see your songs,
-            takes and practice log, leave notes on your takes and set tempos for you.
+            <Body style={{ fontWeight: '700' }}>{i.teacherName}</Body> invites you to be their student. They would see
+            your songs, takes and practice log, leave notes on your takes and set tempos for you.
           </Body>
           <Row>
             <Button label="Accept" onPress={() => answer(i.id, 'accept')} testID="accept-invitation" />

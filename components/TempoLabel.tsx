@@ -8,7 +8,13 @@ export function TempoLabel({ caption, bpm, accent }: { caption: string; bpm: num
   return (
     <View style={{ minWidth: 76 }}>
       <Text style={[type.small, { color: colors.muted }]}>{caption}</Text>
-      <Text style={{ fontFamily: fonts.displayBold, fontSize: 22, color: bpm === null ? colors.line : accent ? colors.amber : colors.ink }}>
+      <Text
+        style={{
+          fontFamily: fonts.displayBold,
+          fontSize: 22,
+          color: bpm === null ? colors.line : accent ? colors.amber : colors.ink,
+        }}
+      >
         {bpm === null ? '—' : formatBpm(bpm)}
         {bpm === null ? null : <Text style={[type.small, { color: colors.muted }]}> BPM</Text>}
       </Text>
@@ -17,7 +23,15 @@ export function TempoLabel({ caption, bpm, accent }: { caption: string; bpm: num
 }
 
 /** A song's three tempos side by side. */
-export function SongTempos({ working, goal, chosen }: { working: number | null; goal: number | null; chosen: number | null }) {
+export function SongTempos({
+  working,
+  goal,
+  chosen,
+}: {
+  working: number | null;
+  goal: number | null;
+  chosen: number | null;
+}) {
   return (
     <View style={{ flexDirection: 'row', gap: 16, flexWrap: 'wrap' }}>
       <TempoLabel caption="Working" bpm={working} />

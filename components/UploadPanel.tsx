@@ -15,7 +15,15 @@ const kinds: { value: RecordingKind; label: string; hint: string }[] = [
   { value: 'reference', label: 'Reference', hint: 'Someone else’s recording you learn from.' },
 ];
 
-export function UploadPanel({ songId, onUploaded, takes = true }: { songId: string; onUploaded: (r: Recording) => void; /** False for a teacher: references only. */ takes?: boolean }) {
+export function UploadPanel({
+  songId,
+  onUploaded,
+  takes = true,
+}: {
+  songId: string;
+  onUploaded: (r: Recording) => void;
+  /** False for a teacher: references only. */ takes?: boolean;
+}) {
   const [file, setFile] = useState<File | null>(null);
   const [kind, setKind] = useState<RecordingKind>(takes ? 'take' : 'reference');
   const [label, setLabel] = useState('');
@@ -43,29 +51,41 @@ export function UploadPanel({ songId, onUploaded, takes = true }: { songId: stri
     <Card testID="upload-panel">
       <Heading level={3}>Add a recording</Heading>
       <FilePicker onPick={setFile} fileName={file?.name} testID="file-input" />
-      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }} role="radiogroup" aria-label="Whose recording">
-        {kinds.filter((k) => takes || k.value === 'reference').map((k) => (
-          <Pressable
-            key={k.value}
-            role="radio"
-            aria-checked={kind === k.value}
-            onPress={() => setKind(k.value)}
-            style={{
-              minHeight: layout.minTouch,
-              justifyContent: 'center',
-              paddingHorizontal: space.md,
-              borderRadius: radius.sm,
-              borderWidth: 1.5,
-              borderColor: kind === k.value ? colors.teal : colors.line,
-              backgroundColor: kind === k.value ? colors.tealSoft : colors.card,
-            }}
-          >
-            <Text style={[type.label, { color: colors.ink }]}>{k.label}</Text>
-          </Pressable>
-        ))}
+      <View
+        style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}
+        role="radiogroup"
+        aria-label="Whose recording"
+      >
+        {kinds
+          .filter((k) => takes || k.value === 'reference')
+          .map((k) => (
+            <Pressable
+              key={k.value}
+              role="radio"
+              aria-checked={kind === k.value}
+              onPress={() => setKind(k.value)}
+              style={{
+                minHeight: layout.minTouch,
+                justifyContent: 'center',
+                paddingHorizontal: space.md,
+                borderRadius: radius.sm,
+                borderWidth: 1.5,
+                borderColor: kind === k.value ? colors.teal : colors.line,
+                backgroundColor: kind === k.value ? colors.tealSoft : colors.card,
+              }}
+            >
+              <Text style={[type.label, { color: colors.ink }]}>{k.label}</Text>
+            </Pressable>
+          ))}
       </View>
       <Small>{kinds.find((k) => k.value === kind)!.hint}</Small>
-      <Field label="Label (optional)" value={label} onChangeText={setLabel} placeholder="e.g. Tuesday run-through" testID="recording-label" />
+      <Field
+        label="Label (optional)"
+        value={label}
+        onChangeText={setLabel}
+        placeholder="e.g. Tuesday run-through"
+        testID="recording-label"
+      />
       {progress !== null ? (
         <View style={{ gap: space.xs }}>
           <ProgressBar value={progress} label="Upload progress" testID="upload-progress" />

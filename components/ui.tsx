@@ -1,6 +1,16 @@
 // Small presentational building blocks shared by every screen.
 import React from 'react';
-import { ActivityIndicator, Pressable, ScrollView, StyleSheet, Text, TextInput, View, type TextInputProps, type ViewStyle } from 'react-native';
+import {
+  ActivityIndicator,
+  Pressable,
+  ScrollView,
+  StyleSheet,
+  Text,
+  TextInput,
+  View,
+  type TextInputProps,
+  type ViewStyle,
+} from 'react-native';
 import { colors, layout, radius, space, type } from './theme';
 
 /** A scrolling page with a capped reading width; `wide` pages (the player) may use more of a big screen. */
@@ -72,7 +82,11 @@ export function Button({
         (disabled || busy) && { opacity: 0.55 },
       ]}
     >
-      {busy ? <ActivityIndicator color={palette.fg} /> : <Text style={[type.label, { color: palette.fg }]}>{label}</Text>}
+      {busy ? (
+        <ActivityIndicator color={palette.fg} />
+      ) : (
+        <Text style={[type.label, { color: palette.fg }]}>{label}</Text>
+      )}
     </Pressable>
   );
 }
@@ -84,7 +98,12 @@ const buttonColors: Record<ButtonKind, { bg: string; fg: string; border: string;
   danger: { bg: colors.card, fg: colors.danger, border: colors.danger, active: colors.dangerSoft },
 };
 
-export function Field({ label, error, hint, ...input }: TextInputProps & { label: string; error?: string | null; hint?: string }) {
+export function Field({
+  label,
+  error,
+  hint,
+  ...input
+}: TextInputProps & { label: string; error?: string | null; hint?: string }) {
   return (
     <View style={{ gap: space.xs }}>
       <Text style={[type.label, { color: colors.ink }]}>{label}</Text>
@@ -105,8 +124,16 @@ export function Field({ label, error, hint, ...input }: TextInputProps & { label
   );
 }
 
-export function Notice({ children, tone = 'info' }: { children: React.ReactNode; tone?: 'info' | 'error' | 'success' | 'caution' }) {
-  const bg = { info: colors.tealSoft, success: colors.tealSoft, error: colors.dangerSoft, caution: colors.amberSoft }[tone];
+export function Notice({
+  children,
+  tone = 'info',
+}: {
+  children: React.ReactNode;
+  tone?: 'info' | 'error' | 'success' | 'caution';
+}) {
+  const bg = { info: colors.tealSoft, success: colors.tealSoft, error: colors.dangerSoft, caution: colors.amberSoft }[
+    tone
+  ];
   const fg = tone === 'error' ? colors.danger : colors.ink;
   return (
     <View role={tone === 'error' ? 'alert' : undefined} style={[styles.notice, { backgroundColor: bg }]}>
@@ -116,7 +143,23 @@ export function Notice({ children, tone = 'info' }: { children: React.ReactNode;
 }
 
 /** A compact button for steps, toggles and picks (large enough to hit on a phone); `selected` shows a toggle on. */
-export function Chip({ label, onPress, selected, disabled, testID, hint, compact }: { label: string; onPress: () => void; selected?: boolean; disabled?: boolean; testID?: string; hint?: string; compact?: boolean }) {
+export function Chip({
+  label,
+  onPress,
+  selected,
+  disabled,
+  testID,
+  hint,
+  compact,
+}: {
+  label: string;
+  onPress: () => void;
+  selected?: boolean;
+  disabled?: boolean;
+  testID?: string;
+  hint?: string;
+  compact?: boolean;
+}) {
   return (
     <Pressable
       role="button"
@@ -140,12 +183,28 @@ export function Chip({ label, onPress, selected, disabled, testID, hint, compact
 }
 
 /** Chips in a row that wraps. */
-export function Row({ children, gap = space.sm, align = 'center' }: { children: React.ReactNode; gap?: number; align?: 'center' | 'flex-end' | 'baseline' | 'flex-start' }) {
+export function Row({
+  children,
+  gap = space.sm,
+  align = 'center',
+}: {
+  children: React.ReactNode;
+  gap?: number;
+  align?: 'center' | 'flex-end' | 'baseline' | 'flex-start';
+}) {
   return <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap, alignItems: align }}>{children}</View>;
 }
 
 /** What a screen shows before there is anything in it: what this place is for and the first thing to do. */
-export function EmptyState({ title, children, action }: { title: string; children: React.ReactNode; action?: React.ReactNode }) {
+export function EmptyState({
+  title,
+  children,
+  action,
+}: {
+  title: string;
+  children: React.ReactNode;
+  action?: React.ReactNode;
+}) {
   return (
     <Card style={{ alignItems: 'flex-start', gap: space.md, paddingVertical: space.xl }}>
       <Heading level={3}>{title}</Heading>

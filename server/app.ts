@@ -43,7 +43,10 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
 
   if (config.devTools) app.use(devRouter);
   // The API described (server/openapi.ts); the readable page only where the development helpers are.
-  app.use('/api', openApiRouter(buildOpenApiDocument({ devTools: config.devTools }), { referencePage: config.devTools }));
+  app.use(
+    '/api',
+    openApiRouter(buildOpenApiDocument({ devTools: config.devTools }), { referencePage: config.devTools }),
+  );
 
   app.use('/api', loadUser);
   app.use('/api/me', meRouter);

@@ -119,7 +119,11 @@ function buildAdapter(transaction: Transaction | undefined): ReturnType<typeof c
       // Single-use tokens: lock the row, delete it, hand it back — at most one caller ever gets it.
       async consumeOne({ model, where }) {
         const run = async (t: Transaction) => {
-          const row = await modelFor(model).findOne({ where: toSequelizeWhere(where), transaction: t, lock: t.LOCK.UPDATE });
+          const row = await modelFor(model).findOne({
+            where: toSequelizeWhere(where),
+            transaction: t,
+            lock: t.LOCK.UPDATE,
+          });
           if (!row) return null;
           await row.destroy({ transaction: t });
           return plain(row);
@@ -128,7 +132,11 @@ function buildAdapter(transaction: Transaction | undefined): ReturnType<typeof c
       },
       async incrementOne({ model, where, increment, set }) {
         const run = async (t: Transaction) => {
-          const row = await modelFor(model).findOne({ where: toSequelizeWhere(where), transaction: t, lock: t.LOCK.UPDATE });
+          const row = await modelFor(model).findOne({
+            where: toSequelizeWhere(where),
+            transaction: t,
+            lock: t.LOCK.UPDATE,
+          });
           if (!row) return null;
           const values: Record<string, unknown> = { ...(set ?? {}) };
           for (const [field, delta] of Object.entries(increment)) values[field] = (Number(row.get(field)) || 0) + delta;

@@ -14,7 +14,12 @@ export const auth = betterAuth({
   baseURL: config.publicUrl,
   basePath: '/api/auth',
   secret: config.authSecret,
-  trustedOrigins: [config.publicUrl, 'http://localhost:8081', 'http://127.0.0.1:8081', ...(process.env.TACTUS_TRUSTED_ORIGINS?.split(',') ?? [])],
+  trustedOrigins: [
+    config.publicUrl,
+    'http://localhost:8081',
+    'http://127.0.0.1:8081',
+    ...(process.env.TACTUS_TRUSTED_ORIGINS?.split(',') ?? []),
+  ],
   database: sequelizeAdapter(),
   telemetry: { enabled: false },
   user: {

@@ -41,9 +41,18 @@ export const demoPeople: DemoPerson[] = [
         meter: '4/4',
         goalBpm: 112,
         workingBpm: 88,
-        recordings: [{ file: 'drums-bass-124.mp3', kind: 'reference', label: 'Band run-through, Pier Street rehearsal room' }],
+        recordings: [
+          { file: 'drums-bass-124.mp3', kind: 'reference', label: 'Band run-through, Pier Street rehearsal room' },
+        ],
       },
-      { title: 'Lanterns over Kessel Bay', composer: 'Ilya Brandt', meter: '6/8', goalBpm: 72, workingBpm: 72, chosenBpm: 70 },
+      {
+        title: 'Lanterns over Kessel Bay',
+        composer: 'Ilya Brandt',
+        meter: '6/8',
+        goalBpm: 72,
+        workingBpm: 72,
+        chosenBpm: 70,
+      },
     ],
   },
   {
@@ -57,7 +66,9 @@ export const demoPeople: DemoPerson[] = [
         meter: '3/4',
         goalBpm: 152,
         workingBpm: 126,
-        recordings: [{ file: 'waltz-150.mp3', kind: 'reference', label: 'Piano and strings, Harbour Lane recital 2025' }],
+        recordings: [
+          { file: 'waltz-150.mp3', kind: 'reference', label: 'Piano and strings, Harbour Lane recital 2025' },
+        ],
       },
     ],
   },

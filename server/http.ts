@@ -26,7 +26,8 @@ export function parseBody<T>(schema: ZodType<T>, body: unknown): T {
 }
 
 /** Express 5 passes rejected promises to the error handler; this only narrows the types. */
-export const handler = (fn: (req: Request, res: Response) => Promise<unknown> | unknown): RequestHandler =>
+export const handler =
+  (fn: (req: Request, res: Response) => Promise<unknown> | unknown): RequestHandler =>
   async (req, res, next) => {
     try {
       await fn(req, res);
@@ -38,16 +39,25 @@ export const handler = (fn: (req: Request, res: Response) => Promise<unknown> | 
 // Answers are always JSON, even when a route had already set another type (the audio route sets its own).
 export function errorHandler(err: unknown, _req: Request, res: Response, _next: NextFunction) {
   if (err instanceof HttpError) {
-    res.type('json').status(err.status).json({ error: { code: err.code, message: err.message, field: err.field, issues: err.issues } });
+    res
+      .type('json')
+      .status(err.status)
+      .json({ error: { code: err.code, message: err.message, field: err.field, issues: err.issues } });
     return;
   }
   const e = err as { type?: string; status?: number; message?: string };
   if (e?.type === 'entity.parse.failed') {
-    res.type('json').status(400).json({ error: { code: 'invalid_json', message: 'the request body is not valid JSON' } });
+    res
+      .type('json')
+      .status(400)
+      .json({ error: { code: 'invalid_json', message: 'the request body is not valid JSON' } });
     return;
   }
   if (e?.type === 'entity.too.large') {
-    res.type('json').status(413).json({ error: { code: 'too_large', message: 'the request body is too large' } });
+    res
+      .type('json')
+      .status(413)
+      .json({ error: { code: 'too_large', message: 'the request body is too large' } });
     return;
   }
   // Other refusals that Express and its body parser mark as the client's (an unknown charset or
@@ -57,13 +67,23 @@ export function errorHandler(err: unknown, _req: Request, res: Response, _next: 
   if (typeof status === 'number' && status >= 400 && status < 500) {
     const known: Record<string, [string, string]> = {
       'charset.unsupported': ['unsupported_charset', 'send the body as UTF-8'],
-      'encoding.unsupported': ['unsupported_encoding', 'send the body uncompressed, or compressed with gzip, deflate or br'],
+      'encoding.unsupported': [
+        'unsupported_encoding',
+        'send the body uncompressed, or compressed with gzip, deflate or br',
+      ],
       'request.aborted': ['aborted', 'the request was cut off before its body arrived'],
     };
-    const [code, message] = (e?.type && known[e.type]) || (err instanceof URIError ? ['bad_path', 'the address is not valid (it has a broken % escape)'] : ['bad_request', 'the request could not be read']);
+    const [code, message] =
+      (e?.type && known[e.type]) ||
+      (err instanceof URIError
+        ? ['bad_path', 'the address is not valid (it has a broken % escape)']
+        : ['bad_request', 'the request could not be read']);
     res.type('json').status(status).json({ error: { code, message } });
     return;
   }
   console.error('[tactus] unexpected error:', err);
-  res.type('json').status(500).json({ error: { code: 'internal', message: 'something went wrong on our side' } });
+  res
+    .type('json')
+    .status(500)
+    .json({ error: { code: 'internal', message: 'something went wrong on our side' } });
 }

@@ -26,7 +26,13 @@ async function main() {
   });
   const stop = () => {
     stopDigests();
-    server.close(() => void runner.stop().then(() => sequelize.close()).then(() => process.exit(0)));
+    server.close(
+      () =>
+        void runner
+          .stop()
+          .then(() => sequelize.close())
+          .then(() => process.exit(0)),
+    );
   };
   process.on('SIGTERM', stop);
   process.on('SIGINT', stop);

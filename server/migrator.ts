@@ -9,7 +9,11 @@ export const migrator = new Umzug({
     resolve: ({ name, path: file, context }) => {
       // eslint-disable-next-line @typescript-eslint/no-require-imports
       const migration = require(file!);
-      return { name: path.basename(name, path.extname(name)), up: () => migration.up({ context }), down: () => migration.down({ context }) };
+      return {
+        name: path.basename(name, path.extname(name)),
+        up: () => migration.up({ context }),
+        down: () => migration.down({ context }),
+      };
     },
   },
   context: sequelize.getQueryInterface(),
@@ -22,7 +26,10 @@ export const migrator = new Umzug({
  * processes from migrating at once.
  */
 export async function migrate(to?: string): Promise<string[]> {
-  const [[{ got }]] = (await sequelize.query("SELECT GET_LOCK('tactus_migrate', 60) AS got")) as [[{ got: number }], unknown];
+  const [[{ got }]] = (await sequelize.query("SELECT GET_LOCK('tactus_migrate', 60) AS got")) as [
+    [{ got: number }],
+    unknown,
+  ];
   if (got !== 1) throw new Error('could not take the migration lock within 60 s');
   try {
     const done = await migrator.up(to ? { to } : undefined);

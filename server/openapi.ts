@@ -98,7 +98,10 @@ const ERROR_MEANINGS: Record<number, string> = {
   416: 'The Range header cannot be served (one bytes range within the file).',
 };
 
-const json = (description: string, schema: ZodType): ResponseConfig => ({ description, content: { 'application/json': { schema } } });
+const json = (description: string, schema: ZodType): ResponseConfig => ({
+  description,
+  content: { 'application/json': { schema } },
+});
 const noContent = (description: string): ResponseConfig => ({ description });
 
 /** Every route of our own (better-auth's are in registerAuth); `devTools` adds the development helpers. */
@@ -106,236 +109,530 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
   const ops: Operation[] = [
     // ── Service ──
     {
-      method: 'get', path: '/api/health', tag: 'service', access: 'public', summary: 'Is the server up, and its database',
+      method: 'get',
+      path: '/api/health',
+      tag: 'service',
+      access: 'public',
+      summary: 'Is the server up, and its database',
       ok: { 200: json('Up, database reachable.', s.Health), 503: json('Degraded: the database is down.', s.Health) },
     },
     {
-      method: 'get', path: '/api/openapi.json', tag: 'service', access: 'public', summary: 'This document',
+      method: 'get',
+      path: '/api/openapi.json',
+      tag: 'service',
+      access: 'public',
+      summary: 'This document',
       ok: { 200: json('The OpenAPI document of this server.', z.record(z.string(), z.unknown())) },
     },
     // ── Who is asking ──
-    { method: 'get', path: '/api/me', tag: 'account', access: 'signed-in', summary: 'The signed-in user', ok: { 200: json('The user.', s.Me) } },
+    {
+      method: 'get',
+      path: '/api/me',
+      tag: 'account',
+      access: 'signed-in',
+      summary: 'The signed-in user',
+      ok: { 200: json('The user.', s.Me) },
+    },
 
     {
-      method: 'get', path: '/api/me/preferences', tag: 'account', access: 'signed-in', summary: 'My settings',
+      method: 'get',
+      path: '/api/me/preferences',
+      tag: 'account',
+      access: 'signed-in',
+      summary: 'My settings',
       ok: { 200: json('My settings.', s.Preferences) },
     },
     {
-      method: 'patch', path: '/api/me/preferences', tag: 'account', access: 'signed-in', summary: 'Change my settings (the e-mail digest of new notes)',
-      body: s.Preferences.partial(), ok: { 200: json('My settings as they are now.', s.Preferences) },
+      method: 'patch',
+      path: '/api/me/preferences',
+      tag: 'account',
+      access: 'signed-in',
+      summary: 'Change my settings (the e-mail digest of new notes)',
+      body: s.Preferences.partial(),
+      ok: { 200: json('My settings as they are now.', s.Preferences) },
     },
 
     // ── Songs ──
-    { method: 'get', path: '/api/songs', tag: 'songs', access: 'signed-in', summary: 'My songs', ok: { 200: json('The songs I own.', s.SongList) } },
     {
-      method: 'post', path: '/api/songs', tag: 'songs', access: 'signed-in', summary: 'Add a song', body: s.SongInput,
+      method: 'get',
+      path: '/api/songs',
+      tag: 'songs',
+      access: 'signed-in',
+      summary: 'My songs',
+      ok: { 200: json('The songs I own.', s.SongList) },
+    },
+    {
+      method: 'post',
+      path: '/api/songs',
+      tag: 'songs',
+      access: 'signed-in',
+      summary: 'Add a song',
+      body: s.SongInput,
       ok: { 201: json('The new song.', s.Song) },
     },
     {
-      method: 'get', path: '/api/songs/{id}', tag: 'songs', access: 'signed-in', summary: 'One song',
-      description: 'Its owner, the owner’s teachers and admins may read it.', ok: { 200: json('The song.', s.Song) },
+      method: 'get',
+      path: '/api/songs/{id}',
+      tag: 'songs',
+      access: 'signed-in',
+      summary: 'One song',
+      description: 'Its owner, the owner’s teachers and admins may read it.',
+      ok: { 200: json('The song.', s.Song) },
     },
     {
-      method: 'patch', path: '/api/songs/{id}', tag: 'songs', access: 'signed-in', summary: 'Change a song (owner only)', body: s.SongPatch,
+      method: 'patch',
+      path: '/api/songs/{id}',
+      tag: 'songs',
+      access: 'signed-in',
+      summary: 'Change a song (owner only)',
+      body: s.SongPatch,
       ok: { 200: json('The song as it is now.', s.Song) },
     },
     {
-      method: 'patch', path: '/api/songs/{id}/tempos', tag: 'songs', access: 'signed-in', summary: 'Set the working and goal tempo (owner or linked teacher)',
-      description: 'The song records who set each tempo and when.', body: s.SongTempos, ok: { 200: json('The song as it is now.', s.Song) },
+      method: 'patch',
+      path: '/api/songs/{id}/tempos',
+      tag: 'songs',
+      access: 'signed-in',
+      summary: 'Set the working and goal tempo (owner or linked teacher)',
+      description: 'The song records who set each tempo and when.',
+      body: s.SongTempos,
+      ok: { 200: json('The song as it is now.', s.Song) },
     },
     {
-      method: 'delete', path: '/api/songs/{id}', tag: 'songs', access: 'signed-in', summary: 'Delete a song with its recordings (owner only)',
+      method: 'delete',
+      path: '/api/songs/{id}',
+      tag: 'songs',
+      access: 'signed-in',
+      summary: 'Delete a song with its recordings (owner only)',
       ok: { 204: noContent('Deleted, stored files included.') },
     },
 
     // ── Recordings ──
     {
-      method: 'get', path: '/api/songs/{songId}/recordings', tag: 'recordings', access: 'signed-in', summary: 'The recordings of a song',
+      method: 'get',
+      path: '/api/songs/{songId}/recordings',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'The recordings of a song',
       ok: { 200: json('Newest first, each with its analysis when done.', s.RecordingList) },
     },
     {
-      method: 'post', path: '/api/songs/{songId}/recordings', tag: 'recordings', access: 'signed-in', summary: 'Upload a recording (owner only)',
-      description: 'Multipart form: the file in the field `file`, the text fields as described. The analysis runs in the background; poll the recording for its status.',
+      method: 'post',
+      path: '/api/songs/{songId}/recordings',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'Upload a recording (owner only)',
+      description:
+        'Multipart form: the file in the field `file`, the text fields as described. The analysis runs in the background; poll the recording for its status.',
       bodyType: 'multipart/form-data',
-      body: RecordingUploadFieldsSchema.extend({ file: z.string().meta({ format: 'binary', description: 'The audio file: MP3, WAV, FLAC, OGG or M4A.' }) }),
-      ok: { 201: json('Stored; its analysis is queued.', s.Recording) }, errors: [413, 415],
-    },
-    { method: 'get', path: '/api/recordings/{id}', tag: 'recordings', access: 'signed-in', summary: 'One recording', ok: { 200: json('The recording.', s.Recording) } },
-    {
-      method: 'patch', path: '/api/recordings/{id}', tag: 'recordings', access: 'signed-in', summary: 'Label it, correct its tempo or first beat (owner only)',
-      body: s.RecordingPatch, ok: { 200: json('The recording as it is now.', s.Recording) },
+      body: RecordingUploadFieldsSchema.extend({
+        file: z.string().meta({ format: 'binary', description: 'The audio file: MP3, WAV, FLAC, OGG or M4A.' }),
+      }),
+      ok: { 201: json('Stored; its analysis is queued.', s.Recording) },
+      errors: [413, 415],
     },
     {
-      method: 'delete', path: '/api/recordings/{id}', tag: 'recordings', access: 'signed-in', summary: 'Delete a recording and its file (owner only)',
+      method: 'get',
+      path: '/api/recordings/{id}',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'One recording',
+      ok: { 200: json('The recording.', s.Recording) },
+    },
+    {
+      method: 'patch',
+      path: '/api/recordings/{id}',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'Label it, correct its tempo or first beat (owner only)',
+      body: s.RecordingPatch,
+      ok: { 200: json('The recording as it is now.', s.Recording) },
+    },
+    {
+      method: 'delete',
+      path: '/api/recordings/{id}',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'Delete a recording and its file (owner only)',
       ok: { 204: noContent('Deleted.') },
     },
     {
-      method: 'get', path: '/api/recordings/{id}/peaks', tag: 'recordings', access: 'signed-in', summary: 'The waveform overview',
-      ok: { 200: json('Minimum and maximum per bucket.', s.Peaks) }, errors: [409],
+      method: 'get',
+      path: '/api/recordings/{id}/peaks',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'The waveform overview',
+      ok: { 200: json('Minimum and maximum per bucket.', s.Peaks) },
+      errors: [409],
     },
     {
-      method: 'get', path: '/api/recordings/{id}/audio', tag: 'recordings', access: 'signed-in', summary: 'The stored audio file',
+      method: 'get',
+      path: '/api/recordings/{id}/audio',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'The stored audio file',
       description: 'Answers HTTP ranges (RFC 9110 §14), so a player can seek without downloading the whole file.',
       ok: {
-        200: { description: 'The whole file.', content: { 'audio/*': { schema: { type: 'string', format: 'binary' } } } },
-        206: { description: 'The requested bytes range.', content: { 'audio/*': { schema: { type: 'string', format: 'binary' } } } },
+        200: {
+          description: 'The whole file.',
+          content: { 'audio/*': { schema: { type: 'string', format: 'binary' } } },
+        },
+        206: {
+          description: 'The requested bytes range.',
+          content: { 'audio/*': { schema: { type: 'string', format: 'binary' } } },
+        },
       },
       errors: [416],
     },
     {
-      method: 'post', path: '/api/recordings/{id}/retry', tag: 'recordings', access: 'signed-in', summary: 'Analyse a failed recording again (owner only)',
-      ok: { 202: json('Queued again.', s.Recording) }, errors: [409],
+      method: 'post',
+      path: '/api/recordings/{id}/retry',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'Analyse a failed recording again (owner only)',
+      ok: { 202: json('Queued again.', s.Recording) },
+      errors: [409],
     },
 
     // ── Notes ──
     {
-      method: 'get', path: '/api/recordings/{recordingId}/notes', tag: 'notes', access: 'signed-in', summary: 'The notes on a recording',
+      method: 'get',
+      path: '/api/recordings/{recordingId}/notes',
+      tag: 'notes',
+      access: 'signed-in',
+      summary: 'The notes on a recording',
       ok: { 200: json('In time order, each with its replies.', s.NoteList) },
     },
     {
-      method: 'post', path: '/api/recordings/{recordingId}/notes', tag: 'notes', access: 'signed-in', summary: 'Write a note at a moment or on a passage (owner or linked teacher)',
-      body: s.NoteInput, ok: { 201: json('The new note.', s.Note) },
+      method: 'post',
+      path: '/api/recordings/{recordingId}/notes',
+      tag: 'notes',
+      access: 'signed-in',
+      summary: 'Write a note at a moment or on a passage (owner or linked teacher)',
+      body: s.NoteInput,
+      ok: { 201: json('The new note.', s.Note) },
     },
     {
-      method: 'post', path: '/api/notes/{id}/replies', tag: 'notes', access: 'signed-in', summary: 'Reply to a note (owner or linked teacher)',
-      body: s.ReplyInput, ok: { 201: json('The reply.', s.NoteReply) },
+      method: 'post',
+      path: '/api/notes/{id}/replies',
+      tag: 'notes',
+      access: 'signed-in',
+      summary: 'Reply to a note (owner or linked teacher)',
+      body: s.ReplyInput,
+      ok: { 201: json('The reply.', s.NoteReply) },
     },
     {
-      method: 'patch', path: '/api/notes/{id}', tag: 'notes', access: 'signed-in', summary: 'Resolve or reopen a note (either side); change its words (its author only)',
-      body: s.NotePatch, ok: { 200: json('The note as it is now.', s.NoteReply.extend({ resolved: z.boolean() })) }, errors: [403],
+      method: 'patch',
+      path: '/api/notes/{id}',
+      tag: 'notes',
+      access: 'signed-in',
+      summary: 'Resolve or reopen a note (either side); change its words (its author only)',
+      body: s.NotePatch,
+      ok: { 200: json('The note as it is now.', s.NoteReply.extend({ resolved: z.boolean() })) },
+      errors: [403],
     },
     {
-      method: 'delete', path: '/api/notes/{id}', tag: 'notes', access: 'signed-in', summary: 'Delete a note with its replies, or a reply (its author only)',
-      ok: { 204: noContent('Deleted.') }, errors: [403],
+      method: 'delete',
+      path: '/api/notes/{id}',
+      tag: 'notes',
+      access: 'signed-in',
+      summary: 'Delete a note with its replies, or a reply (its author only)',
+      ok: { 204: noContent('Deleted.') },
+      errors: [403],
     },
 
     // ── Tempos and practice ──
     {
-      method: 'get', path: '/api/songs/{songId}/candidates', tag: 'tempos', access: 'signed-in', summary: 'The candidate tempos of a song',
+      method: 'get',
+      path: '/api/songs/{songId}/candidates',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'The candidate tempos of a song',
       ok: { 200: json('The candidates.', s.CandidateList) },
     },
     {
-      method: 'post', path: '/api/songs/{songId}/candidates', tag: 'tempos', access: 'signed-in', summary: 'Add a candidate tempo (owner only)',
-      body: s.CandidateInput, ok: { 201: json('The new candidate.', s.Candidate) },
+      method: 'post',
+      path: '/api/songs/{songId}/candidates',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'Add a candidate tempo (owner only)',
+      body: s.CandidateInput,
+      ok: { 201: json('The new candidate.', s.Candidate) },
     },
     {
-      method: 'post', path: '/api/songs/{songId}/choose', tag: 'tempos', access: 'signed-in', summary: 'Choose the tempo of a song, with a note (owner only)',
-      body: s.ChooseTempo, ok: { 200: json('The song with its chosen tempo.', s.Song) },
+      method: 'post',
+      path: '/api/songs/{songId}/choose',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'Choose the tempo of a song, with a note (owner only)',
+      body: s.ChooseTempo,
+      ok: { 200: json('The song with its chosen tempo.', s.Song) },
     },
     {
-      method: 'get', path: '/api/songs/{songId}/practice', tag: 'tempos', access: 'signed-in', summary: 'The practice log of a song',
+      method: 'get',
+      path: '/api/songs/{songId}/practice',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'The practice log of a song',
       ok: { 200: json('Its practice entries.', s.PracticeEntryList) },
     },
     {
-      method: 'post', path: '/api/songs/{songId}/practice', tag: 'tempos', access: 'signed-in', summary: 'Log a practice entry (owner only)',
-      body: s.PracticeInput, ok: { 201: json('The new entry.', s.PracticeEntry) },
+      method: 'post',
+      path: '/api/songs/{songId}/practice',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'Log a practice entry (owner only)',
+      body: s.PracticeInput,
+      ok: { 201: json('The new entry.', s.PracticeEntry) },
     },
     // ── Passages ──
     {
-      method: 'get', path: '/api/songs/{songId}/passages', tag: 'passages', access: 'signed-in', summary: 'The passages of a song’s recordings',
+      method: 'get',
+      path: '/api/songs/{songId}/passages',
+      tag: 'passages',
+      access: 'signed-in',
+      summary: 'The passages of a song’s recordings',
       ok: { 200: json('By recording, then by where they start.', s.PassageList) },
     },
     {
-      method: 'post', path: '/api/songs/{songId}/passages', tag: 'passages', access: 'signed-in', summary: 'Save a passage of one of the song’s recordings (owner only)',
-      body: s.PassageInput, ok: { 201: json('The new passage.', s.Passage) },
+      method: 'post',
+      path: '/api/songs/{songId}/passages',
+      tag: 'passages',
+      access: 'signed-in',
+      summary: 'Save a passage of one of the song’s recordings (owner only)',
+      body: s.PassageInput,
+      ok: { 201: json('The new passage.', s.Passage) },
     },
     {
-      method: 'patch', path: '/api/passages/{id}', tag: 'passages', access: 'signed-in', summary: 'Rename, move or retime a passage (owner only)',
-      body: s.PassagePatch, ok: { 200: json('The passage as it is now.', s.Passage) },
+      method: 'patch',
+      path: '/api/passages/{id}',
+      tag: 'passages',
+      access: 'signed-in',
+      summary: 'Rename, move or retime a passage (owner only)',
+      body: s.PassagePatch,
+      ok: { 200: json('The passage as it is now.', s.Passage) },
     },
     {
-      method: 'patch', path: '/api/passages/{id}/tempos', tag: 'passages', access: 'signed-in', summary: 'Set a passage’s working and goal tempo (owner or linked teacher)',
-      body: s.SongTempos, ok: { 200: json('The passage as it is now.', s.Passage) },
+      method: 'patch',
+      path: '/api/passages/{id}/tempos',
+      tag: 'passages',
+      access: 'signed-in',
+      summary: 'Set a passage’s working and goal tempo (owner or linked teacher)',
+      body: s.SongTempos,
+      ok: { 200: json('The passage as it is now.', s.Passage) },
     },
     {
-      method: 'delete', path: '/api/passages/{id}', tag: 'passages', access: 'signed-in', summary: 'Delete a passage (its practice entries keep what was played)',
+      method: 'delete',
+      path: '/api/passages/{id}',
+      tag: 'passages',
+      access: 'signed-in',
+      summary: 'Delete a passage (its practice entries keep what was played)',
       ok: { 204: noContent('Deleted.') },
     },
     {
-      method: 'patch', path: '/api/candidates/{id}', tag: 'tempos', access: 'signed-in', summary: 'Change a candidate tempo (owner only)',
-      body: s.CandidatePatch, ok: { 200: json('The candidate as it is now.', s.Candidate) },
+      method: 'patch',
+      path: '/api/candidates/{id}',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'Change a candidate tempo (owner only)',
+      body: s.CandidatePatch,
+      ok: { 200: json('The candidate as it is now.', s.Candidate) },
     },
     {
-      method: 'delete', path: '/api/candidates/{id}', tag: 'tempos', access: 'signed-in', summary: 'Delete a candidate tempo (owner only)',
+      method: 'delete',
+      path: '/api/candidates/{id}',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'Delete a candidate tempo (owner only)',
       ok: { 204: noContent('Deleted.') },
     },
 
     // ── Set lists ──
-    { method: 'get', path: '/api/set-lists', tag: 'set lists', access: 'signed-in', summary: 'My set lists', ok: { 200: json('Newest first.', s.SetListList) } },
     {
-      method: 'post', path: '/api/set-lists', tag: 'set lists', access: 'signed-in', summary: 'A new set list of my songs in playing order',
-      body: s.SetListInput, ok: { 201: json('The set list with each song’s click tempo and duration, and the total.', s.SetList) },
+      method: 'get',
+      path: '/api/set-lists',
+      tag: 'set lists',
+      access: 'signed-in',
+      summary: 'My set lists',
+      ok: { 200: json('Newest first.', s.SetListList) },
     },
-    { method: 'get', path: '/api/set-lists/{id}', tag: 'set lists', access: 'signed-in', summary: 'One set list', ok: { 200: json('The set list.', s.SetList) } },
     {
-      method: 'patch', path: '/api/set-lists/{id}', tag: 'set lists', access: 'signed-in', summary: 'Rename it or put its songs in a new order (owner only)',
-      body: s.SetListPatch, ok: { 200: json('The set list as it is now.', s.SetList) },
+      method: 'post',
+      path: '/api/set-lists',
+      tag: 'set lists',
+      access: 'signed-in',
+      summary: 'A new set list of my songs in playing order',
+      body: s.SetListInput,
+      ok: { 201: json('The set list with each song’s click tempo and duration, and the total.', s.SetList) },
     },
-    { method: 'delete', path: '/api/set-lists/{id}', tag: 'set lists', access: 'signed-in', summary: 'Delete a set list (owner only)', ok: { 204: noContent('Deleted; the songs stay.') } },
+    {
+      method: 'get',
+      path: '/api/set-lists/{id}',
+      tag: 'set lists',
+      access: 'signed-in',
+      summary: 'One set list',
+      ok: { 200: json('The set list.', s.SetList) },
+    },
+    {
+      method: 'patch',
+      path: '/api/set-lists/{id}',
+      tag: 'set lists',
+      access: 'signed-in',
+      summary: 'Rename it or put its songs in a new order (owner only)',
+      body: s.SetListPatch,
+      ok: { 200: json('The set list as it is now.', s.SetList) },
+    },
+    {
+      method: 'delete',
+      path: '/api/set-lists/{id}',
+      tag: 'set lists',
+      access: 'signed-in',
+      summary: 'Delete a set list (owner only)',
+      ok: { 204: noContent('Deleted; the songs stay.') },
+    },
 
     // ── Teaching ──
-    { method: 'get', path: '/api/students', tag: 'studio', access: ['teacher', 'admin'], summary: 'My students', ok: { 200: json('My students.', s.StudentList) } },
     {
-      method: 'delete', path: '/api/students/{studentId}', tag: 'studio', access: ['teacher', 'admin'], summary: 'Remove a student',
+      method: 'get',
+      path: '/api/students',
+      tag: 'studio',
+      access: ['teacher', 'admin'],
+      summary: 'My students',
+      ok: { 200: json('My students.', s.StudentList) },
+    },
+    {
+      method: 'delete',
+      path: '/api/students/{studentId}',
+      tag: 'studio',
+      access: ['teacher', 'admin'],
+      summary: 'Remove a student',
       ok: { 204: noContent('Removed.') },
     },
 
     {
-      method: 'get', path: '/api/teachers', tag: 'studio', access: 'signed-in', summary: 'My teachers (invitations I accepted)',
+      method: 'get',
+      path: '/api/teachers',
+      tag: 'studio',
+      access: 'signed-in',
+      summary: 'My teachers (invitations I accepted)',
       ok: { 200: json('My teachers.', s.TeacherList) },
     },
     {
-      method: 'delete', path: '/api/teachers/{teacherId}', tag: 'studio', access: 'signed-in', summary: 'End the link with a teacher',
-      description: 'The teacher loses access to my songs at once.', ok: { 204: noContent('Ended.') },
+      method: 'delete',
+      path: '/api/teachers/{teacherId}',
+      tag: 'studio',
+      access: 'signed-in',
+      summary: 'End the link with a teacher',
+      description: 'The teacher loses access to my songs at once.',
+      ok: { 204: noContent('Ended.') },
     },
     {
-      method: 'post', path: '/api/invitations', tag: 'studio', access: ['teacher', 'admin'], summary: 'Invite a student by e-mail',
-      description: 'Mails a one-time link that works for 7 days. The answer is the same whether or not an account uses the address.',
-      body: s.InviteStudent, ok: { 202: json('Sent.', s.Invitation) },
+      method: 'post',
+      path: '/api/invitations',
+      tag: 'studio',
+      access: ['teacher', 'admin'],
+      summary: 'Invite a student by e-mail',
+      description:
+        'Mails a one-time link that works for 7 days. The answer is the same whether or not an account uses the address.',
+      body: s.InviteStudent,
+      ok: { 202: json('Sent.', s.Invitation) },
     },
     {
-      method: 'get', path: '/api/invitations', tag: 'studio', access: ['teacher', 'admin'], summary: 'My pending invitations',
+      method: 'get',
+      path: '/api/invitations',
+      tag: 'studio',
+      access: ['teacher', 'admin'],
+      summary: 'My pending invitations',
       ok: { 200: json('Not yet answered, newest first (expired ones say so).', s.InvitationList) },
     },
     {
-      method: 'delete', path: '/api/invitations/{id}', tag: 'studio', access: ['teacher', 'admin'], summary: 'Withdraw a pending invitation',
+      method: 'delete',
+      path: '/api/invitations/{id}',
+      tag: 'studio',
+      access: ['teacher', 'admin'],
+      summary: 'Withdraw a pending invitation',
       ok: { 204: noContent('Withdrawn: the link no longer works.') },
     },
     {
-      method: 'get', path: '/api/invitations/token/{token}', tag: 'studio', access: 'public', summary: 'The invitation a mailed link points at',
-      ok: { 200: json('Who invites, to which address, and whether the signed-in account may answer.', s.ReceivedInvitation) },
+      method: 'get',
+      path: '/api/invitations/token/{token}',
+      tag: 'studio',
+      access: 'public',
+      summary: 'The invitation a mailed link points at',
+      ok: {
+        200: json('Who invites, to which address, and whether the signed-in account may answer.', s.ReceivedInvitation),
+      },
     },
     {
-      method: 'get', path: '/api/invitations/received', tag: 'studio', access: 'signed-in', summary: 'Pending invitations to my address',
+      method: 'get',
+      path: '/api/invitations/received',
+      tag: 'studio',
+      access: 'signed-in',
+      summary: 'Pending invitations to my address',
       ok: { 200: json('Newest first.', s.ReceivedInvitationList) },
     },
     {
-      method: 'post', path: '/api/invitations/{id}/accept', tag: 'studio', access: 'signed-in', summary: 'Accept an invitation (the invited address only)',
-      ok: { 200: json('The teacher now linked.', s.Teacher) }, errors: [403, 410],
+      method: 'post',
+      path: '/api/invitations/{id}/accept',
+      tag: 'studio',
+      access: 'signed-in',
+      summary: 'Accept an invitation (the invited address only)',
+      ok: { 200: json('The teacher now linked.', s.Teacher) },
+      errors: [403, 410],
     },
     {
-      method: 'post', path: '/api/invitations/{id}/decline', tag: 'studio', access: 'signed-in', summary: 'Decline an invitation (the invited address only)',
-      ok: { 204: noContent('Declined.') }, errors: [403, 410],
+      method: 'post',
+      path: '/api/invitations/{id}/decline',
+      tag: 'studio',
+      access: 'signed-in',
+      summary: 'Decline an invitation (the invited address only)',
+      ok: { 204: noContent('Declined.') },
+      errors: [403, 410],
     },
 
     // ── Administration ──
-    { method: 'get', path: '/api/admin/users', tag: 'admin', access: ['admin'], summary: 'Every user', ok: { 200: json('Every user, oldest first.', s.UserList) } },
     {
-      method: 'patch', path: '/api/admin/users/{id}/role', tag: 'admin', access: ['admin'], summary: 'Change a user’s role',
-      body: s.RoleChange, ok: { 200: json('The user as it is now.', s.UserSummary) },
+      method: 'get',
+      path: '/api/admin/users',
+      tag: 'admin',
+      access: ['admin'],
+      summary: 'Every user',
+      ok: { 200: json('Every user, oldest first.', s.UserList) },
+    },
+    {
+      method: 'patch',
+      path: '/api/admin/users/{id}/role',
+      tag: 'admin',
+      access: ['admin'],
+      summary: 'Change a user’s role',
+      body: s.RoleChange,
+      ok: { 200: json('The user as it is now.', s.UserSummary) },
     },
   ];
 
   if (devTools) {
     ops.push(
       {
-        method: 'get', path: '/api/dev/mail', tag: 'development', access: 'public', summary: 'Caught mail (development only)',
+        method: 'get',
+        path: '/api/dev/mail',
+        tag: 'development',
+        access: 'public',
+        summary: 'Caught mail (development only)',
         query: z.object({ to: z.string().optional().meta({ description: 'Only mail to this address.' }) }),
         ok: { 200: json('Every message the server sent, newest first.', s.CaughtMailList) },
       },
       {
-        method: 'get', path: '/api/docs', tag: 'development', access: 'public', summary: 'This document as a readable page (development only)',
-        ok: { 200: { description: 'The reference page (its scripts and styles are served below /api/docs/).', content: { 'text/html': { schema: { type: 'string' } } } } },
+        method: 'get',
+        path: '/api/docs',
+        tag: 'development',
+        access: 'public',
+        summary: 'This document as a readable page (development only)',
+        ok: {
+          200: {
+            description: 'The reference page (its scripts and styles are served below /api/docs/).',
+            content: { 'text/html': { schema: { type: 'string' } } },
+          },
+        },
       },
     );
   }
@@ -404,32 +701,77 @@ function registerAuth(registry: OpenAPIRegistry) {
   const AuthError = z
     .object({ code: z.string().optional(), message: z.string() })
     .meta({ id: 'AuthError', description: 'better-auth’s error shape (not ours).' });
-  const answer = z.record(z.string(), z.unknown()).meta({ description: 'better-auth’s answer; see its documentation.' });
+  const answer = z
+    .record(z.string(), z.unknown())
+    .meta({ description: 'better-auth’s answer; see its documentation.' });
   const externalDocs = { description: 'better-auth endpoints', url: BETTER_AUTH_DOCS };
-  const errors = { 400: { description: 'Refused by better-auth.', content: { 'application/json': { schema: AuthError } } } };
+  const errors = {
+    400: { description: 'Refused by better-auth.', content: { 'application/json': { schema: AuthError } } },
+  };
   const post = (path: string, summary: string, body: z.ZodObject, extra: Record<string, ResponseConfig> = {}) =>
     registry.registerPath({
-      method: 'post', path: `/api/auth${path}`, tags: ['auth'], summary, externalDocs,
+      method: 'post',
+      path: `/api/auth${path}`,
+      tags: ['auth'],
+      summary,
+      externalDocs,
       request: { body: { required: true, content: { 'application/json': { schema: body } } } },
-      responses: { 200: { description: 'Done.', content: { 'application/json': { schema: answer } } }, ...errors, ...extra },
+      responses: {
+        200: { description: 'Done.', content: { 'application/json': { schema: answer } } },
+        ...errors,
+        ...extra,
+      },
     });
   const callbackURL = z.string().optional().meta({ description: 'Where the confirmation link leads afterwards.' });
-  post('/sign-up/email', 'Create an account; a confirmation link is mailed', z.object({ name: z.string(), email: z.string(), password: z.string(), callbackURL }));
-  post('/sign-in/email', 'Sign in; sets the session cookie', z.object({ email: z.string(), password: z.string(), callbackURL, rememberMe: z.boolean().optional() }), {
-    401: { description: 'Wrong e-mail or password.', content: { 'application/json': { schema: AuthError } } },
-    403: { description: 'The e-mail is not confirmed yet (a new link is mailed).', content: { 'application/json': { schema: AuthError } } },
-  });
+  post(
+    '/sign-up/email',
+    'Create an account; a confirmation link is mailed',
+    z.object({ name: z.string(), email: z.string(), password: z.string(), callbackURL }),
+  );
+  post(
+    '/sign-in/email',
+    'Sign in; sets the session cookie',
+    z.object({ email: z.string(), password: z.string(), callbackURL, rememberMe: z.boolean().optional() }),
+    {
+      401: { description: 'Wrong e-mail or password.', content: { 'application/json': { schema: AuthError } } },
+      403: {
+        description: 'The e-mail is not confirmed yet (a new link is mailed).',
+        content: { 'application/json': { schema: AuthError } },
+      },
+    },
+  );
   post('/sign-out', 'Sign out; clears the session cookie', z.object({}));
-  post('/request-password-reset', 'Mail a password reset link', z.object({ email: z.string(), redirectTo: z.string().optional() }));
-  post('/reset-password', 'Set a new password with the token from the link', z.object({ newPassword: z.string(), token: z.string() }));
+  post(
+    '/request-password-reset',
+    'Mail a password reset link',
+    z.object({ email: z.string(), redirectTo: z.string().optional() }),
+  );
+  post(
+    '/reset-password',
+    'Set a new password with the token from the link',
+    z.object({ newPassword: z.string(), token: z.string() }),
+  );
   registry.registerPath({
-    method: 'get', path: '/api/auth/verify-email', tags: ['auth'], summary: 'Confirm an e-mail address (the link in the mail)', externalDocs,
+    method: 'get',
+    path: '/api/auth/verify-email',
+    tags: ['auth'],
+    summary: 'Confirm an e-mail address (the link in the mail)',
+    externalDocs,
     request: { query: z.object({ token: z.string(), callbackURL: z.string().optional() }) },
     responses: { 302: { description: 'Confirmed; on to callbackURL.' }, ...errors },
   });
   registry.registerPath({
-    method: 'get', path: '/api/auth/get-session', tags: ['auth'], summary: 'The current session, or null', externalDocs,
-    responses: { 200: { description: 'The session and its user, or null.', content: { 'application/json': { schema: answer.nullable() } } } },
+    method: 'get',
+    path: '/api/auth/get-session',
+    tags: ['auth'],
+    summary: 'The current session, or null',
+    externalDocs,
+    responses: {
+      200: {
+        description: 'The session and its user, or null.',
+        content: { 'application/json': { schema: answer.nullable() } },
+      },
+    },
   });
 }
 
@@ -489,7 +831,11 @@ export function buildOpenApiDocument(opts: { devTools: boolean }) {
         'An operation with `security` needs the session cookie; `x-roles` names the roles it allows when not every signed-in user may call it.',
     },
     tags: [
-      { name: 'auth', description: 'Sign-up, sign-in, sessions and password reset, served by better-auth.', externalDocs: { url: BETTER_AUTH_DOCS } },
+      {
+        name: 'auth',
+        description: 'Sign-up, sign-in, sessions and password reset, served by better-auth.',
+        externalDocs: { url: BETTER_AUTH_DOCS },
+      },
     ],
   });
 }

@@ -36,7 +36,8 @@ function walk(router: RouterWithList, prefix: string, out: RouteEntry[]) {
     throw new Error('listRoutes needs router >= 2.3 (express 5), whose routers have listRoutes()');
   }
   for (const entry of router.listRoutes()) {
-    if (typeof entry.path !== 'string') throw new Error(`a route is mounted on a RegExp (${String(entry.path)}): give it a path string`);
+    if (typeof entry.path !== 'string')
+      throw new Error(`a route is mounted on a RegExp (${String(entry.path)}): give it a path string`);
     const path = joinPath(prefix, entry.path);
     if (entry.router) {
       walk(entry.router, path, out);

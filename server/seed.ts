@@ -21,8 +21,25 @@ export async function seedDemo(): Promise<{ created: boolean }> {
   for (const person of demoPeople) {
     const now = new Date();
     const id = crypto.randomBytes(16).toString('hex');
-    const user = await User.create({ id, name: person.name, email: person.email, emailVerified: true, image: null, role: person.role, createdAt: now, updatedAt: now });
-    await Account.create({ id: crypto.randomBytes(16).toString('hex'), userId: id, accountId: id, providerId: 'credential', password: hash, createdAt: now, updatedAt: now });
+    const user = await User.create({
+      id,
+      name: person.name,
+      email: person.email,
+      emailVerified: true,
+      image: null,
+      role: person.role,
+      createdAt: now,
+      updatedAt: now,
+    });
+    await Account.create({
+      id: crypto.randomBytes(16).toString('hex'),
+      userId: id,
+      accountId: id,
+      providerId: 'credential',
+      password: hash,
+      createdAt: now,
+      updatedAt: now,
+    });
     for (const { recordings = [], ...input } of person.songs) {
       const me = { id: user.id, name: user.name, email: user.email, emailVerified: true, role: user.role };
       const song = await createSong(me, input);
@@ -41,7 +58,17 @@ export async function seedDemo(): Promise<{ created: boolean }> {
 async function addDemoRecording(song: Awaited<ReturnType<typeof createSong>>, ownerId: string, r: DemoRecording) {
   const file = path.join(DEMO_AUDIO, r.file);
   const audio = await checkAudio(file, config.uploads.maxDurationSec);
-  await storeRecording({ songId: song.id, ownerId, uploadedBy: null, kind: r.kind, label: r.label, originalName: r.file, spoolFile: file, sizeBytes: fs.statSync(file).size, audio });
+  await storeRecording({
+    songId: song.id,
+    ownerId,
+    uploadedBy: null,
+    kind: r.kind,
+    label: r.label,
+    originalName: r.file,
+    spoolFile: file,
+    sizeBytes: fs.statSync(file).size,
+    audio,
+  });
 }
 
 export function demoSignInTable(): string {

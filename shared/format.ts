@@ -29,7 +29,9 @@ export const formatDate = (iso: string | Date, locale?: string) =>
 
 /** A date with its time of day in the reader's locale ("2 Dec 2026, 14:05" or "Dec 2, 2026, 2:05 PM"). */
 export const formatDateTime = (iso: string | Date, locale?: string) =>
-  new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' }).format(typeof iso === 'string' ? new Date(iso) : iso);
+  new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' }).format(
+    typeof iso === 'string' ? new Date(iso) : iso,
+  );
 
 /**
  * Whose something is, as a label: "Your take" for one's own, "Ilya’s take" for someone else's (first name, an

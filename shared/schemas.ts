@@ -50,10 +50,20 @@ export type SongPatch = z.infer<typeof SongPatchSchema>;
 /** A person named on something they did (set a tempo, uploaded a reference). */
 export const PersonRefSchema = z.object({ id: z.string(), name: z.string() });
 /** Who set a working or goal tempo, and when (null: never set, or set before this was recorded). */
-const SetBySchema = { workingSetBy: PersonRefSchema.nullable(), workingSetAt: z.string().nullable(), goalSetBy: PersonRefSchema.nullable(), goalSetAt: z.string().nullable() };
+const SetBySchema = {
+  workingSetBy: PersonRefSchema.nullable(),
+  workingSetAt: z.string().nullable(),
+  goalSetBy: PersonRefSchema.nullable(),
+  goalSetAt: z.string().nullable(),
+};
 
 /** What the person asking may do with a song; the screens show only these controls. */
-export const SongPermissionsSchema = z.object({ edit: z.boolean(), setTempos: z.boolean(), addReference: z.boolean(), addTake: z.boolean() });
+export const SongPermissionsSchema = z.object({
+  edit: z.boolean(),
+  setTempos: z.boolean(),
+  addReference: z.boolean(),
+  addTake: z.boolean(),
+});
 export type SongPermissions = z.infer<typeof SongPermissionsSchema>;
 
 export const SongSchema = z.object({
@@ -76,7 +86,10 @@ export const SongSchema = z.object({
 });
 export type Song = z.infer<typeof SongSchema>;
 /** Working and goal tempo: the player's own, or set for them by their teacher. */
-export const SongTemposSchema = z.object({ workingBpm: BpmSchema.nullable(), goalBpm: BpmSchema.nullable() }).partial().strict();
+export const SongTemposSchema = z
+  .object({ workingBpm: BpmSchema.nullable(), goalBpm: BpmSchema.nullable() })
+  .partial()
+  .strict();
 export type SongTempos = z.infer<typeof SongTemposSchema>;
 export const SongListSchema = z.object({ songs: z.array(SongSchema) });
 
@@ -114,7 +127,9 @@ export const StudentListSchema = z.object({ students: z.array(StudentSchema) });
 
 // ── Invitations between a teacher and a student ────────────────────────────────────────────────────
 
-export const InviteStudentSchema = z.object({ email: z.string().trim().toLowerCase().email('enter an e-mail address such as name@example.com') }).strict();
+export const InviteStudentSchema = z
+  .object({ email: z.string().trim().toLowerCase().email('enter an e-mail address such as name@example.com') })
+  .strict();
 export const INVITATION_STATES = ['pending', 'accepted', 'declined', 'withdrawn', 'expired'] as const;
 /** An invitation as the teacher who sent it sees it. */
 export const InvitationSchema = z.object({
@@ -172,7 +187,9 @@ export const CaughtMailListSchema = z.object({ mails: z.array(CaughtMailSchema) 
 export const BeatLevelSchema = z.enum(['half', 'as-found', 'double']);
 export type BeatLevel = z.infer<typeof BeatLevelSchema>;
 
-export const RecordingKindSchema = z.enum(['reference', 'take'], { message: 'choose reference (someone else’s recording) or take (your own)' });
+export const RecordingKindSchema = z.enum(['reference', 'take'], {
+  message: 'choose reference (someone else’s recording) or take (your own)',
+});
 export type RecordingKind = z.infer<typeof RecordingKindSchema>;
 
 /** The text fields of an upload (multipart); the file itself is the field `file`. */
@@ -184,17 +201,32 @@ export const RecordingUploadFieldsSchema = z.object({
 export const RecordingPatchSchema = z
   .object({
     /** A name of spaces is no name: stored as none, not as an empty string. */
-    label: z.string().trim().max(200, 'use at most 200 characters').transform((v) => v || null).nullable().optional(),
+    label: z
+      .string()
+      .trim()
+      .max(200, 'use at most 200 characters')
+      .transform((v) => v || null)
+      .nullable()
+      .optional(),
     correctedBpm: BpmSchema.nullable().optional(),
     beatOffsetSec: z.number().min(0, 'must not be negative').max(3600).nullable().optional(),
     beatLevel: BeatLevelSchema.optional(),
-    barOneSec: z.number().min(0, 'must not be negative').max(24 * 3600).nullable().optional(),
+    barOneSec: z
+      .number()
+      .min(0, 'must not be negative')
+      .max(24 * 3600)
+      .nullable()
+      .optional(),
     /** Half a second either way is far more than any grid is off by; more is a mistake. */
-    nudgeMs: z.number().int('enter whole milliseconds').min(-500, 'must be at least −500 ms').max(500, 'must be at most 500 ms').optional(),
+    nudgeMs: z
+      .number()
+      .int('enter whole milliseconds')
+      .min(-500, 'must be at least −500 ms')
+      .max(500, 'must be at most 500 ms')
+      .optional(),
   })
   .strict();
 export type RecordingPatch = z.infer<typeof RecordingPatchSchema>;
-
 
 export const RecordingSchema = z.object({
   id: z.string(),
@@ -256,7 +288,10 @@ export const ChooseTempoSchema = z.object({ bpm: BpmSchema, note: z.string().tri
 
 // ── Passages ────────────────────────────────────────────────────────────────────────────────────────
 
-const SecondsSchema = z.number().min(0, 'times start at 0 s').max(24 * 3600);
+const SecondsSchema = z
+  .number()
+  .min(0, 'times start at 0 s')
+  .max(24 * 3600);
 const BarSchema = z.number().int().min(1, 'bars are numbered from 1').max(100_000);
 
 /** A named region of one of the song's recordings; bars as numbered on that recording's beat grid. */
@@ -322,7 +357,10 @@ export const PracticeInputSchema = z
     startBpm: BpmSchema,
     reachedBpm: BpmSchema,
     repetitions: z.number().int().min(1, 'must be at least 1').max(10_000),
-    minutes: z.number().min(0).max(24 * 60, 'must be at most a day (1440 minutes)'),
+    minutes: z
+      .number()
+      .min(0)
+      .max(24 * 60, 'must be at most a day (1440 minutes)'),
     clean: z.boolean(),
   })
   .strict();
@@ -365,7 +403,10 @@ export const NoteInputSchema = z
     message: 'a note is either at a moment (atSec) or on a passage (startSec and endSec)',
     path: ['atSec'],
   })
-  .refine((n) => n.startSec == null || n.endSec == null || n.endSec > n.startSec, { message: 'the passage must end after it starts', path: ['endSec'] });
+  .refine((n) => n.startSec == null || n.endSec == null || n.endSec > n.startSec, {
+    message: 'the passage must end after it starts',
+    path: ['endSec'],
+  });
 export type NoteInput = z.infer<typeof NoteInputSchema>;
 export const ReplyInputSchema = z.object({ text: NoteTextSchema }).strict();
 export const NotePatchSchema = z.object({ text: NoteTextSchema, resolved: z.boolean() }).partial().strict();
@@ -430,4 +471,3 @@ export const SetListSchema = z.object({
 });
 export type SetListDto = z.infer<typeof SetListSchema>;
 export const SetListListSchema = z.object({ setLists: z.array(SetListSchema) });
-

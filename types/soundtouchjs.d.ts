@@ -6,7 +6,9 @@ declare module 'soundtouchjs' {
   }
   export class SoundTouch {
     /** The overlap-add stage; setParameters(sampleRate, sequenceMs, seekWindowMs, overlapMs), 0 = automatic. */
-    readonly stretch: { setParameters(sampleRate: number, sequenceMs: number, seekWindowMs: number, overlapMs: number): void };
+    readonly stretch: {
+      setParameters(sampleRate: number, sequenceMs: number, seekWindowMs: number, overlapMs: number): void;
+    };
     tempo: number;
     rate: number;
     pitch: number;

@@ -10,10 +10,12 @@ export default function CheckEmail() {
       <ScreenTitle title="Check your e-mail" />
       <Heading>Check your e-mail</Heading>
       <Body>
-        We sent a confirmation link to {email ? <Body style={{ fontWeight: '700' }}>{email}</Body> : 'your address'}. Open it, then sign in.
+        We sent a confirmation link to {email ? <Body style={{ fontWeight: '700' }}>{email}</Body> : 'your address'}.
+        Open it, then sign in.
       </Body>
       <Body muted>
-        Nothing after a few minutes? Look in your spam folder, or <Link href="/sign-in">sign in</Link> to have it sent again.
+        Nothing after a few minutes? Look in your spam folder, or <Link href="/sign-in">sign in</Link> to have it sent
+        again.
       </Body>
     </Card>
   );

@@ -10,7 +10,11 @@ import { ScreenTitle } from '@/components/ScreenTitle';
 export default function ForgotPassword() {
   const [email, setEmail] = useState('');
   const [sent, setSent] = useState(false);
-  const { run: submit, busy, error } = useAction(async () => {
+  const {
+    run: submit,
+    busy,
+    error,
+  } = useAction(async () => {
     await requestPasswordReset(email.trim());
     setSent(true);
   });
@@ -20,10 +24,19 @@ export default function ForgotPassword() {
       <ScreenTitle title="Forgotten password" />
       <Heading>Reset your password</Heading>
       {sent ? (
-        <Notice tone="success">If an account uses that address, a reset link is on its way. It works for one hour.</Notice>
+        <Notice tone="success">
+          If an account uses that address, a reset link is on its way. It works for one hour.
+        </Notice>
       ) : (
         <View style={{ gap: space.md }}>
-          <Field label="E-mail" value={email} onChangeText={setEmail} inputMode="email" autoCapitalize="none" testID="email" />
+          <Field
+            label="E-mail"
+            value={email}
+            onChangeText={setEmail}
+            inputMode="email"
+            autoCapitalize="none"
+            testID="email"
+          />
           {error ? <Notice tone="error">{error}</Notice> : null}
           <Button label="Send reset link" onPress={submit} busy={busy} />
         </View>

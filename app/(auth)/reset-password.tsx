@@ -11,7 +11,11 @@ export default function ResetPassword() {
   const router = useRouter();
   const { token, error: linkError } = useLocalSearchParams<{ token?: string; error?: string }>();
   const [password, setPassword] = useState('');
-  const { run: submit, busy, error } = useAction(async () => {
+  const {
+    run: submit,
+    busy,
+    error,
+  } = useAction(async () => {
     if (!token) return;
     await resetPassword(token, password);
     router.replace({ pathname: '/sign-in', params: { reset: '1' } });
@@ -22,10 +26,19 @@ export default function ResetPassword() {
       <ScreenTitle title="New password" />
       <Heading>Choose a new password</Heading>
       {!token || linkError ? (
-        <Notice tone="error">This reset link has expired or was already used. Ask for a new one from the sign-in page.</Notice>
+        <Notice tone="error">
+          This reset link has expired or was already used. Ask for a new one from the sign-in page.
+        </Notice>
       ) : (
         <View style={{ gap: space.md }}>
-          <Field label="New password" value={password} onChangeText={setPassword} secureTextEntry hint="At least 8 characters." testID="password" />
+          <Field
+            label="New password"
+            value={password}
+            onChangeText={setPassword}
+            secureTextEntry
+            hint="At least 8 characters."
+            testID="password"
+          />
           {error ? <Notice tone="error">{error}</Notice> : null}
           <Button label="Save password" onPress={submit} busy={busy} />
         </View>

@@ -13,7 +13,11 @@ export default function SignIn() {
   const params = useLocalSearchParams<{ confirmed?: string; reset?: string; error?: string; next?: string }>();
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
-  const { run: submit, busy, error } = useAction(async () => {
+  const {
+    run: submit,
+    busy,
+    error,
+  } = useAction(async () => {
     await signIn(email.trim(), password);
     await clearCache();
     const next = safeNext(params.next);
@@ -25,17 +29,39 @@ export default function SignIn() {
     <Card>
       <ScreenTitle title="Sign in" />
       <Heading>Sign in</Heading>
-      {params.confirmed ? <Notice tone="success">Your e-mail is confirmed. Sign in to open your library.</Notice> : null}
+      {params.confirmed ? (
+        <Notice tone="success">Your e-mail is confirmed. Sign in to open your library.</Notice>
+      ) : null}
       {params.reset ? <Notice tone="success">Your password is changed. Sign in with the new one.</Notice> : null}
-      {params.error ? <Notice tone="error">That link has expired or was already used. Sign in to get a new one.</Notice> : null}
+      {params.error ? (
+        <Notice tone="error">That link has expired or was already used. Sign in to get a new one.</Notice>
+      ) : null}
       <View style={{ gap: space.md }}>
-        <Field label="E-mail" value={email} onChangeText={setEmail} autoComplete="email" inputMode="email" autoCapitalize="none" testID="email" />
-        <Field label="Password" value={password} onChangeText={setPassword} secureTextEntry autoComplete="current-password" onSubmitEditing={submit} testID="password" />
+        <Field
+          label="E-mail"
+          value={email}
+          onChangeText={setEmail}
+          autoComplete="email"
+          inputMode="email"
+          autoCapitalize="none"
+          testID="email"
+        />
+        <Field
+          label="Password"
+          value={password}
+          onChangeText={setPassword}
+          secureTextEntry
+          autoComplete="current-password"
+          onSubmitEditing={submit}
+          testID="password"
+        />
         {error ? <Notice tone="error">{error}</Notice> : null}
         <Button label="Sign in" onPress={submit} busy={busy} testID="sign-in" />
       </View>
       <Body muted>
-        New here? <Link href={{ pathname: '/sign-up', params: params.next ? { next: params.next } : {} }}>Create an account</Link> · <Link href="/forgot-password">Forgot your password?</Link>
+        New here?{' '}
+        <Link href={{ pathname: '/sign-up', params: params.next ? { next: params.next } : {} }}>Create an account</Link>{' '}
+        · <Link href="/forgot-password">Forgot your password?</Link>
       </Body>
     </Card>
   );

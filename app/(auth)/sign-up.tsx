@@ -13,7 +13,11 @@ export default function SignUp() {
   const [name, setName] = useState('');
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
-  const { run: submit, busy, error } = useAction(async () => {
+  const {
+    run: submit,
+    busy,
+    error,
+  } = useAction(async () => {
     if (!name.trim()) throw new Error('Tell us the name your teacher and bandmates know you by.');
     if (password.length < 8) throw new Error('Use at least 8 characters for your password.');
     await signUp(name.trim(), email.trim(), password, next);
@@ -26,7 +30,15 @@ export default function SignUp() {
       <Heading>Create your account</Heading>
       <View style={{ gap: space.md }}>
         <Field label="Name" value={name} onChangeText={setName} autoComplete="name" testID="name" />
-        <Field label="E-mail" value={email} onChangeText={setEmail} autoComplete="email" inputMode="email" autoCapitalize="none" testID="email" />
+        <Field
+          label="E-mail"
+          value={email}
+          onChangeText={setEmail}
+          autoComplete="email"
+          inputMode="email"
+          autoCapitalize="none"
+          testID="email"
+        />
         <Field
           label="Password"
           value={password}

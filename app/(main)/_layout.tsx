@@ -23,7 +23,9 @@ export default function MainLayout() {
   const items: NavItem[] = [
     { href: '/', label: 'Library', glyph: '♪' },
     { href: '/practice', label: 'Practice', glyph: '◴' },
-    ...(me.role === 'teacher' || me.role === 'admin' ? [{ href: '/students', label: 'Students', glyph: '☰' } as const] : []),
+    ...(me.role === 'teacher' || me.role === 'admin'
+      ? [{ href: '/students', label: 'Students', glyph: '☰' } as const]
+      : []),
     { href: '/account', label: 'Account', glyph: '○' },
   ];
 

@@ -17,9 +17,19 @@ export default function Library() {
   return (
     <Screen testID="library">
       <ScreenTitle title="Library" />
-      <View style={{ flexDirection: 'row', justifyContent: 'space-between', alignItems: 'center', flexWrap: 'wrap', gap: space.md }}>
+      <View
+        style={{
+          flexDirection: 'row',
+          justifyContent: 'space-between',
+          alignItems: 'center',
+          flexWrap: 'wrap',
+          gap: space.md,
+        }}
+      >
         <Heading>Library</Heading>
-        {songs?.length && !adding ? <Button label="Add a song" kind="secondary" onPress={() => setAdding(true)} /> : null}
+        {songs?.length && !adding ? (
+          <Button label="Add a song" kind="secondary" onPress={() => setAdding(true)} />
+        ) : null}
       </View>
       <TeachersCard invitationsOnly />
       {error ? <Notice tone="error">Your songs could not be loaded: {error.message}</Notice> : null}
@@ -38,11 +48,13 @@ export default function Library() {
           title="Your library is empty"
           action={<Button label="Add your first song" onPress={() => setAdding(true)} testID="add-first-song" />}
         >
-          Start with a piece you are working on now. Give it a goal tempo; next you will add a recording, hear it at other
-          tempos with a click, and mark the tempo that feels right.
+          Start with a piece you are working on now. Give it a goal tempo; next you will add a recording, hear it at
+          other tempos with a click, and mark the tempo that feels right.
         </EmptyState>
       ) : null}
-      {songs?.map((song) => <SongCard key={song.id} song={song} />)}
+      {songs?.map((song) => (
+        <SongCard key={song.id} song={song} />
+      ))}
       {songs && songs.length > 0 ? <Body muted>{plural(songs.length, 'song')}</Body> : null}
     </Screen>
   );

@@ -16,8 +16,8 @@ export default function Practice() {
       <Heading>Practice</Heading>
       {withGoal.length === 0 ? (
         <EmptyState title="Nothing to practise toward yet">
-          Give a song a goal tempo and a working tempo in your library. Your progress from one to the other shows here, session by
-          session.
+          Give a song a goal tempo and a working tempo in your library. Your progress from one to the other shows here,
+          session by session.
         </EmptyState>
       ) : (
         withGoal.map((s) => (
@@ -28,8 +28,8 @@ export default function Practice() {
       )}
       <MetronomePanel />
       <Notice tone="caution">
-        Long, repetitive practice strains hands, arms and ears. Warm up, take a short break every 20–30 minutes, and stop if
-        anything hurts; your teacher or a health professional can advise you on a routine that suits you.
+        Long, repetitive practice strains hands, arms and ears. Warm up, take a short break every 20–30 minutes, and
+        stop if anything hurts; your teacher or a health professional can advise you on a routine that suits you.
       </Notice>
     </Screen>
   );

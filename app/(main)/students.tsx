@@ -3,10 +3,30 @@
 import React, { useState } from 'react';
 import { Pressable, View } from 'react-native';
 import { useRouter } from 'expo-router';
-import { Body, Button, Card, Chip, EmptyState, Field, Heading, Loading, Notice, Row, Screen, Small } from '@/components/ui';
+import {
+  Body,
+  Button,
+  Card,
+  Chip,
+  EmptyState,
+  Field,
+  Heading,
+  Loading,
+  Notice,
+  Row,
+  Screen,
+  Small,
+} from '@/components/ui';
 import { ProgressToGoal } from '@/components/TempoProgress';
 import { colors, space } from '@/components/theme';
-import { inviteStudent, removeStudent, useMe, useSentInvitations, useStudents, withdrawInvitation } from '@/client/hooks';
+import {
+  inviteStudent,
+  removeStudent,
+  useMe,
+  useSentInvitations,
+  useStudents,
+  withdrawInvitation,
+} from '@/client/hooks';
 import { useAction } from '@/client/useAction';
 import { ScreenTitle } from '@/components/ScreenTitle';
 import { formatDate, plural } from '@/shared/format';
@@ -19,7 +39,11 @@ export default function Students() {
   const { invitations } = useSentInvitations(allowed);
   const [email, setEmail] = useState('');
   const [sentTo, setSentTo] = useState<string | null>(null);
-  const { run: submit, busy, error } = useAction(async () => {
+  const {
+    run: submit,
+    busy,
+    error,
+  } = useAction(async () => {
     await inviteStudent(email.trim());
     setSentTo(email.trim());
     setEmail('');
@@ -43,16 +67,32 @@ export default function Students() {
           Invite a student by e-mail. Once they accept, you see their songs, takes and practice log here.
         </EmptyState>
       ) : null}
-      {students?.map((s) => <StudentCard key={s.id} student={s} />)}
+      {students?.map((s) => (
+        <StudentCard key={s.id} student={s} />
+      ))}
       <Card testID="invite-student">
         <Heading level={3}>Invite a student</Heading>
         <Small>
-          They get an e-mail with a link that works for 7 days. Nothing of theirs is shared with you unless they accept, and
-          either of you can end it at any time.
+          They get an e-mail with a link that works for 7 days. Nothing of theirs is shared with you unless they accept,
+          and either of you can end it at any time.
         </Small>
         <View style={{ gap: space.md }}>
-          <Field label="Their e-mail address" value={email} onChangeText={setEmail} inputMode="email" autoCapitalize="none" error={error} testID="invite-email" />
-          <Button label="Send invitation" onPress={submit} busy={busy} disabled={!email.trim()} testID="send-invitation" />
+          <Field
+            label="Their e-mail address"
+            value={email}
+            onChangeText={setEmail}
+            inputMode="email"
+            autoCapitalize="none"
+            error={error}
+            testID="invite-email"
+          />
+          <Button
+            label="Send invitation"
+            onPress={submit}
+            busy={busy}
+            disabled={!email.trim()}
+            testID="send-invitation"
+          />
           {sentTo ? <Notice tone="success">Invitation sent to {sentTo}.</Notice> : null}
         </View>
       </Card>
@@ -63,7 +103,11 @@ export default function Students() {
             <Row key={i.id} align="center">
               <View style={{ flex: 1 }}>
                 <Body>{i.email}</Body>
-                <Small>{i.status === 'expired' ? 'Expired: send a new one' : `Sent ${formatDate(i.createdAt)} · works until ${formatDate(i.expiresAt)}`}</Small>
+                <Small>
+                  {i.status === 'expired'
+                    ? 'Expired: send a new one'
+                    : `Sent ${formatDate(i.createdAt)} · works until ${formatDate(i.expiresAt)}`}
+                </Small>
               </View>
               <Button label="Withdraw" kind="quiet" onPress={() => withdrawInvitation(i.id)} />
             </Row>
@@ -85,15 +129,32 @@ function StudentCard({ student: s }: { student: Student }) {
       </Small>
       {s.songs.map((song) => (
         <View key={song.id} style={{ gap: space.xs, paddingVertical: space.xs }} testID="student-song">
-          <Pressable role="link" onPress={() => router.navigate(`/songs/${song.id}`)} accessibilityLabel={`Open ${song.title}`}>
+          <Pressable
+            role="link"
+            onPress={() => router.navigate(`/songs/${song.id}`)}
+            accessibilityLabel={`Open ${song.title}`}
+          >
             <Body style={{ fontWeight: '700', color: colors.teal }}>{song.title}</Body>
           </Pressable>
-          {song.goalBpm ? <ProgressToGoal working={song.workingBpm} goal={song.goalBpm} /> : <Small>No goal tempo yet</Small>}
-          <Small>{song.lastPracticedAt ? `Last practised ${formatDate(song.lastPracticedAt)}` : 'Not practised in Tactus yet'}</Small>
+          {song.goalBpm ? (
+            <ProgressToGoal working={song.workingBpm} goal={song.goalBpm} />
+          ) : (
+            <Small>No goal tempo yet</Small>
+          )}
+          <Small>
+            {song.lastPracticedAt
+              ? `Last practised ${formatDate(song.lastPracticedAt)}`
+              : 'Not practised in Tactus yet'}
+          </Small>
           {song.recentTakes.length ? (
             <Row>
               {song.recentTakes.map((t) => (
-                <Chip key={t.id} compact label={`${t.label ?? 'Take'} · ${formatDate(t.createdAt)}`} onPress={() => router.navigate(`/recordings/${t.id}`)} />
+                <Chip
+                  key={t.id}
+                  compact
+                  label={`${t.label ?? 'Take'} · ${formatDate(t.createdAt)}`}
+                  onPress={() => router.navigate(`/recordings/${t.id}`)}
+                />
               ))}
             </Row>
           ) : null}

@@ -37,11 +37,14 @@ export default function InvitationScreen() {
 
   let body: React.ReactNode;
   if (isLoading) body = <Loading />;
-  else if (error || !inv) body = <Notice tone="error">This invitation link is not valid. Check that the whole link was copied.</Notice>;
+  else if (error || !inv)
+    body = <Notice tone="error">This invitation link is not valid. Check that the whole link was copied.</Notice>;
   else if (done === 'accept')
     body = (
       <>
-        <Notice tone="success">You are now {inv.teacherName}’s student. You can end this at any time on your Account page.</Notice>
+        <Notice tone="success">
+          You are now {inv.teacherName}’s student. You can end this at any time on your Account page.
+        </Notice>
         <Button label="Go to your library" onPress={() => router.replace('/')} testID="to-library" />
       </>
     );
@@ -51,23 +54,38 @@ export default function InvitationScreen() {
     body = (
       <>
         <Body>
-          <Body style={{ fontWeight: '700' }}>{inv.teacherName}</Body> invites <Body style={{ fontWeight: '700' }}>{inv.email}</Body> to be
-          their student on Tactus. Your teacher would see your songs, takes and practice log, leave notes on your takes and set
-          working and goal tempos for you. Nothing is shared unless you accept, and you can end it at any time.
+          <Body style={{ fontWeight: '700' }}>{inv.teacherName}</Body> invites{' '}
+          <Body style={{ fontWeight: '700' }}>{inv.email}</Body> to be their student on Tactus. Your teacher would see
+          your songs, takes and practice log, leave notes on your takes and set working and goal tempos for you. Nothing
+          is shared unless you accept, and you can end it at any time.
         </Body>
         <Small>This invitation works until {formatDate(inv.expiresAt)}.</Small>
         {signedOut ? (
           <Row>
-            <Button label="Sign in to answer" onPress={() => router.push({ pathname: '/sign-in', params: { next: here } })} testID="invitation-sign-in" />
-            <Button label="Create an account" kind="secondary" onPress={() => router.push({ pathname: '/sign-up', params: { next: here } })} testID="invitation-sign-up" />
+            <Button
+              label="Sign in to answer"
+              onPress={() => router.push({ pathname: '/sign-in', params: { next: here } })}
+              testID="invitation-sign-in"
+            />
+            <Button
+              label="Create an account"
+              kind="secondary"
+              onPress={() => router.push({ pathname: '/sign-up', params: { next: here } })}
+              testID="invitation-sign-up"
+            />
           </Row>
         ) : inv.forYou === false ? (
           <Notice tone="caution">
-            You are signed in as {me?.email}. This invitation is for {inv.email}: sign out and sign in with that address to answer it.
+            You are signed in as {me?.email}. This invitation is for {inv.email}: sign out and sign in with that address
+            to answer it.
           </Notice>
         ) : (
           <Row>
-            <Button label={`Accept ${inv.teacherName} as my teacher`} onPress={() => answer('accept')} testID="accept-invitation" />
+            <Button
+              label={`Accept ${inv.teacherName} as my teacher`}
+              onPress={() => answer('accept')}
+              testID="accept-invitation"
+            />
             <Button label="Decline" kind="quiet" onPress={() => answer('decline')} testID="decline-invitation" />
           </Row>
         )}
@@ -76,7 +94,10 @@ export default function InvitationScreen() {
     );
 
   return (
-    <ScrollView style={{ flex: 1, backgroundColor: colors.paper }} contentContainerStyle={{ padding: space.lg, paddingTop: space.xxl }}>
+    <ScrollView
+      style={{ flex: 1, backgroundColor: colors.paper }}
+      contentContainerStyle={{ padding: space.lg, paddingTop: space.xxl }}
+    >
       <ScreenTitle title="An invitation" />
       <View style={{ width: '100%', maxWidth: 520, alignSelf: 'center', gap: space.lg }}>
         <Wordmark />

@@ -53,7 +53,10 @@ export function beatPScore(reference: number[], estimated: number[], threshold =
   const est = estimated.map((b) => Math.ceil((b - offset) * rate - 1e-9));
   const refSet = new Set(ref);
   const refIdx = [...refSet].sort((a, b) => a - b);
-  const intervals = refIdx.slice(1).map((x, i) => x - refIdx[i]!).sort((a, b) => a - b);
+  const intervals = refIdx
+    .slice(1)
+    .map((x, i) => x - refIdx[i]!)
+    .sort((a, b) => a - b);
   const mid = intervals.length >> 1;
   const medianInterval = intervals.length % 2 ? intervals[mid]! : (intervals[mid - 1]! + intervals[mid]!) / 2;
   const win = roundHalfEven(threshold * medianInterval);
@@ -79,11 +82,19 @@ export interface TempoDetection {
  * mir_eval.tempo.detection: two reference tempi with the weight of the first, two estimated tempi; a
  * reference tempo is hit when some estimate is within `tolerance` (8 %) of it.
  */
-export function tempoDetection(referenceTempi: [number, number], referenceWeight: number, estimatedTempi: [number, number], tolerance = 0.08): TempoDetection {
+export function tempoDetection(
+  referenceTempi: [number, number],
+  referenceWeight: number,
+  estimatedTempi: [number, number],
+  tolerance = 0.08,
+): TempoDetection {
   if (!(referenceWeight >= 0 && referenceWeight <= 1)) throw new RangeError('reference weight must lie in [0, 1]');
-  if ([...referenceTempi, ...estimatedTempi].some((t) => !(t >= 0))) throw new RangeError('tempi must be non-negative numbers');
+  if ([...referenceTempi, ...estimatedTempi].some((t) => !(t >= 0)))
+    throw new RangeError('tempi must be non-negative numbers');
   if (!(tolerance >= 0 && tolerance <= 1)) throw new RangeError('tolerance must lie in [0, 1]');
-  const hits = referenceTempi.map((ref) => ref > 0 && Math.min(...estimatedTempi.map((e) => Math.abs(ref - e) / ref)) <= tolerance);
+  const hits = referenceTempi.map(
+    (ref) => ref > 0 && Math.min(...estimatedTempi.map((e) => Math.abs(ref - e) / ref)) <= tolerance,
+  );
   return {
     pScore: referenceWeight * Number(hits[0]) + (1 - referenceWeight) * Number(hits[1]),
     oneCorrect: hits.some(Boolean),

@@ -87,7 +87,12 @@ export function onsetRate(envelope: Float32Array, frameRate: number): number {
 }
 
 /** The candidate tempos of a recording and their features (in LEVEL_FEATURES order). */
-export function levelCandidates(curve: PeriodicityCurve, strength: Float32Array, low: Float32Array, ruleBasedBpm: number): LevelCandidate[] {
+export function levelCandidates(
+  curve: PeriodicityCurve,
+  strength: Float32Array,
+  low: Float32Array,
+  ruleBasedBpm: number,
+): LevelCandidate[] {
   const { bpm, score, frameRate } = curve;
   const peaks: number[] = [];
   for (let i = 1; i < score.length - 1; i++) {
@@ -118,13 +123,19 @@ export function levelCandidates(curve: PeriodicityCurve, strength: Float32Array,
   return raw.map((r) => {
     const x = Math.log2(r.bpm / 120);
     const d = Math.log2(r.bpm / 60 / rate);
-    return { bpm: r.bpm, features: [x, x * x, r.comb / combTop, r.pulse / pulseTop, r.bass / bassTop, r.sub, d, d * d], ruleBased: Math.abs(r.bpm / ruleBasedBpm - 1) <= SAME_TEMPO };
+    return {
+      bpm: r.bpm,
+      features: [x, x * x, r.comb / combTop, r.pulse / pulseTop, r.bass / bassTop, r.sub, d, d * d],
+      ruleBased: Math.abs(r.bpm / ruleBasedBpm - 1) <= SAME_TEMPO,
+    };
   });
 }
 
 /** The model's probability for each candidate (softmax of the linear scores). */
 export function levelProbabilities(candidates: LevelCandidate[], model: LevelModel): number[] {
-  const u = candidates.map((c) => c.features.reduce((s, f, k) => s + (model.weights[k]! * (f - model.mean[k]!)) / model.scale[k]!, 0));
+  const u = candidates.map((c) =>
+    c.features.reduce((s, f, k) => s + (model.weights[k]! * (f - model.mean[k]!)) / model.scale[k]!, 0),
+  );
   const m = Math.max(...u);
   const e = u.map((v) => Math.exp(v - m));
   const z = e.reduce((a, b) => a + b, 0);
@@ -164,5 +175,9 @@ export function chooseLevel(cands: LevelCandidate[], model: LevelModel): LevelCh
   if (rival >= 0) levels.push({ bpm: round(cands[rival]!.bpm, 1), strength: round(p[rival]!, 3) });
   const slower = rival >= 0 && cands[rival]!.bpm < b ? rival : best;
   const distinct = rival >= 0 && cands[slower]!.features[LEVEL_FEATURES.indexOf('subdivision')]! < SAME_AS_FASTER;
-  return { bpm: b, ambiguous: distinct && Math.max(p[rival]!, p[best]!) <= AMBIGUOUS_ODDS * Math.min(p[rival]!, p[best]!), levels };
+  return {
+    bpm: b,
+    ambiguous: distinct && Math.max(p[rival]!, p[best]!) <= AMBIGUOUS_ODDS * Math.min(p[rival]!, p[best]!),
+    levels,
+  };
 }

@@ -26,25 +26,31 @@ export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetE
   const low = new Float32Array(frames);
   let prev = new Float32Array(bins);
   let cur = new Float32Array(bins);
-  forEachSpectrum(samples, FRAME_SIZE, HOP, (f, mags) => {
-    for (let k = 0; k < bins; k++) cur[k] = Math.log1p(COMPRESSION * mags[k]!);
-    if (f > 0) {
-      let all = 0;
-      let bass = 0;
-      for (let k = 1; k < bins; k++) {
-        const d = cur[k]! - prev[k]!;
-        if (d > 0) {
-          all += d;
-          if (k < lowBins) bass += d;
+  forEachSpectrum(
+    samples,
+    FRAME_SIZE,
+    HOP,
+    (f, mags) => {
+      for (let k = 0; k < bins; k++) cur[k] = Math.log1p(COMPRESSION * mags[k]!);
+      if (f > 0) {
+        let all = 0;
+        let bass = 0;
+        for (let k = 1; k < bins; k++) {
+          const d = cur[k]! - prev[k]!;
+          if (d > 0) {
+            all += d;
+            if (k < lowBins) bass += d;
+          }
         }
+        strength[f] = all;
+        low[f] = bass;
       }
-      strength[f] = all;
-      low[f] = bass;
-    }
-    const t = prev;
-    prev = cur;
-    cur = t;
-  }, FRAME_SIZE);
+      const t = prev;
+      prev = cur;
+      cur = t;
+    },
+    FRAME_SIZE,
+  );
   const frameRate = sampleRate / HOP;
   return {
     strength: removeTrend(strength, Math.round(frameRate * 0.4)),

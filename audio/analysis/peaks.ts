@@ -13,7 +13,11 @@ export const PEAKS_PER_SECOND = 25;
 /** Short clips keep at least this many buckets (the resolution every recording had before zooming). */
 const MIN_BUCKETS = 1200;
 
-export function waveformPeaks(samples: Float32Array, sampleRate: number, buckets = Math.max(MIN_BUCKETS, Math.ceil((samples.length / sampleRate) * PEAKS_PER_SECOND))): Peaks {
+export function waveformPeaks(
+  samples: Float32Array,
+  sampleRate: number,
+  buckets = Math.max(MIN_BUCKETS, Math.ceil((samples.length / sampleRate) * PEAKS_PER_SECOND)),
+): Peaks {
   const n = Math.max(1, Math.min(buckets, samples.length));
   const minMax: number[] = new Array(2 * n);
   for (let b = 0; b < n; b++) {

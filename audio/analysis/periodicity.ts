@@ -50,7 +50,8 @@ export function globalPeriodicity(envelope: Float32Array, frameRate: number): Pe
  */
 export function peakNear(acf: Float32Array, lag: number): number {
   let best = 0;
-  for (let j = Math.max(0, Math.floor(lag - 1)); j <= Math.ceil(lag + 1) && j < acf.length; j++) if (acf[j]! > best) best = acf[j]!;
+  for (let j = Math.max(0, Math.floor(lag - 1)); j <= Math.ceil(lag + 1) && j < acf.length; j++)
+    if (acf[j]! > best) best = acf[j]!;
   return best;
 }
 
@@ -92,7 +93,14 @@ export interface Tempogram {
   values: Float32Array[];
 }
 
-export function localTempogram(envelope: Float32Array, frameRate: number, minLag: number, maxLag: number, windowSec = 8, hopSec = 1): Tempogram {
+export function localTempogram(
+  envelope: Float32Array,
+  frameRate: number,
+  minLag: number,
+  maxLag: number,
+  windowSec = 8,
+  hopSec = 1,
+): Tempogram {
   const win = Math.min(envelope.length, Math.round(windowSec * frameRate));
   const hop = Math.max(1, Math.round(hopSec * frameRate));
   const centres: number[] = [];

@@ -17,7 +17,10 @@ export function resample(input: Float32Array, fromRate: number, toRate: number =
   for (let i = 0; i < table.length; i++) {
     const x = i / tableRes;
     const sinc = x === 0 ? 1 : Math.sin(Math.PI * cutoff * x) / (Math.PI * cutoff * x);
-    const w = x >= halfTaps ? 0 : 0.42 + 0.5 * Math.cos((Math.PI * x) / halfTaps) + 0.08 * Math.cos((2 * Math.PI * x) / halfTaps);
+    const w =
+      x >= halfTaps
+        ? 0
+        : 0.42 + 0.5 * Math.cos((Math.PI * x) / halfTaps) + 0.08 * Math.cos((2 * Math.PI * x) / halfTaps);
     table[i] = cutoff * sinc * w;
   }
   const kernel = (d: number) => {

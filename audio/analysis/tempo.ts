@@ -32,7 +32,6 @@ export function relationTo(bpm: number, primary: number): TempoRelation {
 const FASTEST_PREFERRED_BPM = 210;
 const COMPLETE_PULSE = 0.9;
 
-
 export interface TempoEstimate {
   bpm: number;
   /** Raw periodicity at the chosen tempo (0…~1). */
@@ -44,7 +43,11 @@ export interface TempoEstimate {
  * @param pulseAt strength of the plain pulse at a tempo (see localPulse), used to decide between a tempo and
  *   its double.
  */
-export function estimateTempo(curve: PeriodicityCurve, pulseAt: (bpm: number) => number, maxCandidates = 5): TempoEstimate | null {
+export function estimateTempo(
+  curve: PeriodicityCurve,
+  pulseAt: (bpm: number) => number,
+  maxCandidates = 5,
+): TempoEstimate | null {
   const { bpm, score } = curve;
   const peaks: { i: number; s: number }[] = [];
   for (let i = 1; i < score.length - 1; i++) {
@@ -74,7 +77,11 @@ export function estimateTempo(curve: PeriodicityCurve, pulseAt: (bpm: number) =>
   return {
     bpm: primary,
     strength: best.s,
-    candidates: chosen.map((c) => ({ bpm: round(c.bpm, 1), score: round(c.s / top, 3), relation: relationTo(c.bpm, primary) })),
+    candidates: chosen.map((c) => ({
+      bpm: round(c.bpm, 1),
+      score: round(c.s / top, 3),
+      relation: relationTo(c.bpm, primary),
+    })),
   };
 }
 

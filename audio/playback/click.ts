@@ -74,7 +74,14 @@ export interface Click {
  * The clicks to schedule between context times [from, to): the recording's beats mapped through the playback.
  * With a loop the map runs on the loop's straight timeline (audio/practice/passage.ts) and the region's beats repeat.
  */
-export function clicksBetween(map: PlaybackMap, beats: number[], downbeats: number[], from: number, to: number, loop: Passage | null = null): Click[] {
+export function clicksBetween(
+  map: PlaybackMap,
+  beats: number[],
+  downbeats: number[],
+  from: number,
+  to: number,
+  loop: Passage | null = null,
+): Click[] {
   const out: Click[] = [];
   for (const b of beatsBetween({ beats, downbeats }, loop, map.recordingTime(from) - 1e-6, map.recordingTime(to))) {
     const time = map.contextTime(b.at);
@@ -89,7 +96,11 @@ export function clicksBetween(map: PlaybackMap, beats: number[], downbeats: numb
  */
 export function countIn(start: number, beatsPerBar: number, playbackBpm: number): Click[] {
   const beat = 60 / playbackBpm;
-  return Array.from({ length: beatsPerBar }, (_, i) => ({ time: start - (beatsPerBar - i) * beat, accent: i === 0, beat: -1 }));
+  return Array.from({ length: beatsPerBar }, (_, i) => ({
+    time: start - (beatsPerBar - i) * beat,
+    accent: i === 0,
+    beat: -1,
+  }));
 }
 
 /** Beats per bar of a meter such as "3/4" or "6/8" (6/8 counts its two dotted beats as the click does). */
@@ -142,7 +153,12 @@ export class MetronomeTimeline {
   clicksBetween(from: number, to: number): Click[] {
     const out: Click[] = [];
     for (let k = this.nextBeat(from); this.beatTime(k) < to; k++) {
-      out.push({ time: this.beatTime(k), accent: (k - this.barStart) % this.perBar === 0, beat: k, inBar: (k - this.barStart) % this.perBar });
+      out.push({
+        time: this.beatTime(k),
+        accent: (k - this.barStart) % this.perBar === 0,
+        beat: k,
+        inBar: (k - this.barStart) % this.perBar,
+      });
     }
     return out;
   }

@@ -6,11 +6,20 @@ import type { Passage } from '@/audio/practice/passage';
 import { formatBpm, tenth } from '@/shared/format';
 
 /** The passage (or everything) at `tempo` × the recording's own speed. */
-export function renderAtTempo(audio: StereoBuffer, sampleRate: number, tempo: number, passage: Passage | null = null): StereoBuffer {
+export function renderAtTempo(
+  audio: StereoBuffer,
+  sampleRate: number,
+  tempo: number,
+  passage: Passage | null = null,
+): StereoBuffer {
   const from = passage ? Math.max(0, Math.round(passage.start * sampleRate)) : 0;
   const to = passage ? Math.min(audio.left.length, Math.round(passage.end * sampleRate)) : audio.left.length;
   if (!(to > from)) throw new RangeError('the passage is empty');
-  return stretchOffline({ left: audio.left.subarray(from, to), right: audio.right.subarray(from, to) }, tempo, sampleRate);
+  return stretchOffline(
+    { left: audio.left.subarray(from, to), right: audio.right.subarray(from, to) },
+    tempo,
+    sampleRate,
+  );
 }
 
 /** Float samples (−1…1) to 16-bit integers; out-of-range values are clipped rather than wrapped. */
@@ -32,7 +41,11 @@ export function encodeWav(audio: StereoBuffer, sampleRate: number): Uint8Array {
 
 /** The download's name: the title, the tempo and, for a passage, which one. */
 export function exportFileName(title: string, bpm: number, passageLabel: string | null): string {
-  const safe = title.replace(/[\\/:*?"<>|]+/g, ' ').replace(/\s+/g, ' ').trim() || 'recording';
+  const safe =
+    title
+      .replace(/[\\/:*?"<>|]+/g, ' ')
+      .replace(/\s+/g, ' ')
+      .trim() || 'recording';
   const tempo = `${formatBpm(tenth(bpm))} BPM`;
   return `${safe} - ${passageLabel ? `${passageLabel} - ` : ''}${tempo}.wav`;
 }

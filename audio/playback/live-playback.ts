@@ -102,7 +102,8 @@ export class LivePlayback {
     if (!this.begun) {
       this.begun = true;
       // A late first block (the start message came after its time) picks up where the timeline already is.
-      if (at > this.startsAt + 1 / sr) this.stretcher = this.newStretcher(this.map.recordingTime(at), this.stretcher.tempo);
+      if (at > this.startsAt + 1 / sr)
+        this.stretcher = this.newStretcher(this.map.recordingTime(at), this.stretcher.tempo);
     }
     let fadeFrames = 0;
     if (this.pending) {
@@ -142,7 +143,10 @@ export class LivePlayback {
   private newStretcher(fromSec: number, speed: number): Stretcher {
     const sr = this.sampleRate;
     const source = this.loop
-      ? loopedSource(this.audio, { startFrame: Math.round(this.loop.start * sr), endFrame: Math.round(this.loop.end * sr) })
+      ? loopedSource(this.audio, {
+          startFrame: Math.round(this.loop.start * sr),
+          endFrame: Math.round(this.loop.end * sr),
+        })
       : planarSource(this.audio);
     const s = new Stretcher(source, speed, sr);
     s.seek(fromSec * sr);

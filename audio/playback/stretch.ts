@@ -55,7 +55,10 @@ export function planarSource(audio: StereoBuffer): FrameSource & { frames: numbe
  * Planar channels with a passage repeated end to start: source frame p past the passage's end reads frame
  * start + (p − start) mod length, so a stretcher fed from it loops seamlessly (its overlap-add smooths the seam).
  */
-export function loopedSource(audio: StereoBuffer, loop: { startFrame: number; endFrame: number } | null): FrameSource & { frames: number } {
+export function loopedSource(
+  audio: StereoBuffer,
+  loop: { startFrame: number; endFrame: number } | null,
+): FrameSource & { frames: number } {
   if (!loop) return planarSource(audio);
   const { startFrame, endFrame } = loop;
   const len = endFrame - startFrame;

@@ -34,4 +34,5 @@ export const secondsFor = (beats: number, bpm: number) => (beats * 60) / bpm;
 export const bpmToFit = (beats: number, seconds: number) => (beats * 60) / seconds;
 
 /** How many bars of `beatsPerBarCount` beats fit in `seconds` at `bpm`. */
-export const barsIn = (seconds: number, bpm: number, beatsPerBarCount: number) => (seconds * bpm) / 60 / beatsPerBarCount;
+export const barsIn = (seconds: number, bpm: number, beatsPerBarCount: number) =>
+  (seconds * bpm) / 60 / beatsPerBarCount;

@@ -17,7 +17,8 @@ export function nextMarkUp(bpm: number): number {
 
 /** The next mark strictly below `bpm` (the bottom mark stays the bottom mark). */
 export function nextMarkDown(bpm: number): number {
-  for (let i = METRONOME_MARKS.length - 1; i >= 0; i--) if (METRONOME_MARKS[i]! < bpm - 1e-9) return METRONOME_MARKS[i]!;
+  for (let i = METRONOME_MARKS.length - 1; i >= 0; i--)
+    if (METRONOME_MARKS[i]! < bpm - 1e-9) return METRONOME_MARKS[i]!;
   return METRONOME_MARKS[0]!;
 }
 

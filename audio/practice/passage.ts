@@ -74,7 +74,8 @@ export function barContaining(t: number, grid: Grid): Passage | null {
   return { start: bounds[i]!, end: bounds[i + 1]! };
 }
 
-const nearest = (xs: number[], t: number) => xs.reduce((best, x) => (Math.abs(x - t) < Math.abs(best - t) ? x : best), xs[0]!);
+const nearest = (xs: number[], t: number) =>
+  xs.reduce((best, x) => (Math.abs(x - t) < Math.abs(best - t) ? x : best), xs[0]!);
 
 /**
  * A region between `a` and `b` (either order) snapped to the nearest bar or beat boundaries; at least one unit
@@ -86,7 +87,10 @@ export function snapPassage(grid: Grid, a: number, b: number, unit: 'bar' | 'bea
   const lo = Math.min(a, b);
   const hi = Math.max(a, b);
   let start = nearest(bounds.slice(0, -1), lo);
-  let end = nearest(bounds.filter((x) => x > start + 1e-6), hi);
+  let end = nearest(
+    bounds.filter((x) => x > start + 1e-6),
+    hi,
+  );
   if (!(end > start)) {
     start = bounds[bounds.length - 2]!;
     end = bounds[bounds.length - 1]!;
@@ -127,7 +131,12 @@ export interface GridBeat {
 }
 
 /** The beats heard between virtual times [from, to): the grid, repeated pass after pass inside a loop. */
-export function beatsBetween(grid: Pick<Grid, 'beats' | 'downbeats'>, loop: Passage | null, from: number, to: number): GridBeat[] {
+export function beatsBetween(
+  grid: Pick<Grid, 'beats' | 'downbeats'>,
+  loop: Passage | null,
+  from: number,
+  to: number,
+): GridBeat[] {
   const down = new Set(grid.downbeats.map((d) => Math.round(d * 1000)));
   const out: GridBeat[] = [];
   const push = (b: number, i: number, shift: number) => {
@@ -156,7 +165,12 @@ export function beatsBetween(grid: Pick<Grid, 'beats' | 'downbeats'>, loop: Pass
  * downbeat of the first to the downbeat after the last (the end of the recording after the last bar). Null
  * when the grid has no such bars.
  */
-export function barsToRegion(first: number, last: number, downbeats: number[], durationSec: number): { start: number; end: number } | null {
+export function barsToRegion(
+  first: number,
+  last: number,
+  downbeats: number[],
+  durationSec: number,
+): { start: number; end: number } | null {
   if (first < 1 || last < first || first > downbeats.length) return null;
   const start = downbeats[first - 1]!;
   const end = last < downbeats.length ? downbeats[last]! : durationSec;

@@ -30,9 +30,11 @@ export function validatePlan(p: StepUpPlan): string | null {
   if (!(p.startBpm > 0 && p.goalBpm > 0)) return 'start and goal tempos are needed';
   if (p.goalBpm < p.startBpm) return 'the goal must not be below the start tempo';
   if (!(p.stepBpm > 0)) return 'the step must be more than 0 BPM';
-  if (!(Number.isInteger(p.repsPerStep) && p.repsPerStep >= 1)) return 'repetitions per step must be a whole number, at least 1';
+  if (!(Number.isInteger(p.repsPerStep) && p.repsPerStep >= 1))
+    return 'repetitions per step must be a whole number, at least 1';
   if (p.repsPerStep > 100) return 'at most 100 repetitions per step';
-  if ((p.goalBpm - p.startBpm) / p.stepBpm > MAX_STEPS) return `that is more than ${MAX_STEPS} steps: take a larger step`;
+  if ((p.goalBpm - p.startBpm) / p.stepBpm > MAX_STEPS)
+    return `that is more than ${MAX_STEPS} steps: take a larger step`;
   return null;
 }
 

@@ -16,7 +16,10 @@ export const MIN_TAPS = 4;
 export function tapTempo(taps: number[]): TapTempo | null {
   const t = [...taps].sort((a, b) => a - b);
   if (t.length < MIN_TAPS) return null;
-  const intervals = t.slice(1).map((x, i) => x - t[i]!).filter((d) => d > 0);
+  const intervals = t
+    .slice(1)
+    .map((x, i) => x - t[i]!)
+    .filter((d) => d > 0);
   if (intervals.length < MIN_TAPS - 1) return null;
   // The beat period: the median interval, then the median of the intervals near it (an extra tap splits one
   // interval in two, which moves the median less than the mean).

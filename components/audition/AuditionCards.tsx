@@ -23,7 +23,17 @@ import { SoundLevels } from './SoundLevels';
 /** Sticky is a web-only position value React Native's types do not list. */
 export const sticky = (edge: 'top' | 'bottom') => ({ position: 'sticky', [edge]: 0, zIndex: 2 }) as object;
 
-export function PlayerCard({ s, peaks, song, wide }: { s: AuditionSession; peaks: PeaksDto | undefined; song: Song | undefined; wide: boolean }) {
+export function PlayerCard({
+  s,
+  peaks,
+  song,
+  wide,
+}: {
+  s: AuditionSession;
+  peaks: PeaksDto | undefined;
+  song: Song | undefined;
+  wide: boolean;
+}) {
   const { audition, felt, grid, stepUp } = s;
   return (
     <Card testID="audition" style={wide ? (sticky('top') as object) : undefined}>
@@ -46,28 +56,62 @@ export function PlayerCard({ s, peaks, song, wide }: { s: AuditionSession; peaks
         />
       ) : null}
       <Small>
-        Amber lines start bars, thin lines are beats (shown when zoomed in enough to read). Tap to move, drag to mark a passage,
-        pinch, scroll or use − + to zoom.
+        Amber lines start bars, thin lines are beats (shown when zoomed in enough to read). Tap to move, drag to mark a
+        passage, pinch, scroll or use − + to zoom.
       </Small>
-      <PositionReadout getPosition={audition.getPosition} beats={felt.beats} downbeats={felt.downbeats} durationSec={grid.durationSec} />
+      <PositionReadout
+        getPosition={audition.getPosition}
+        beats={felt.beats}
+        downbeats={felt.downbeats}
+        durationSec={grid.durationSec}
+      />
       <Transport audition={audition} />
       {!audition.ready && !audition.failure ? <Small>Loading the audio…</Small> : null}
-      {wide ? <Small>Keys: space plays and pauses, ← → skip a bar, ↑ ↓ change the tempo by 1 BPM, 1–9 pick a candidate.</Small> : null}
+      {wide ? (
+        <Small>
+          Keys: space plays and pauses, ← → skip a bar, ↑ ↓ change the tempo by 1 BPM, 1–9 pick a candidate.
+        </Small>
+      ) : null}
       <TempoControl bpm={audition.bpm} originalBpm={felt.bpm} song={song} onChange={audition.setBpm} />
     </Card>
   );
 }
 
-export function BeatFeelCard({ s, recording, canEdit }: { s: AuditionSession; recording: Recording; canEdit: boolean }) {
+export function BeatFeelCard({
+  s,
+  recording,
+  canEdit,
+}: {
+  s: AuditionSession;
+  recording: Recording;
+  canEdit: boolean;
+}) {
   return (
     <Card>
       <Heading level={3}>The beat you feel</Heading>
-      <BeatFeel recording={recording} analysis={s.a} beats={s.felt.beats} getPosition={s.audition.getPosition} canEdit={canEdit} onListen={s.listen} />
+      <BeatFeel
+        recording={recording}
+        analysis={s.a}
+        beats={s.felt.beats}
+        getPosition={s.audition.getPosition}
+        canEdit={canEdit}
+        onListen={s.listen}
+      />
     </Card>
   );
 }
 
-export function PassagesCard({ s, song, recording, canEdit }: { s: AuditionSession; song: Song | undefined; recording: Recording; canEdit: boolean }) {
+export function PassagesCard({
+  s,
+  song,
+  recording,
+  canEdit,
+}: {
+  s: AuditionSession;
+  song: Song | undefined;
+  recording: Recording;
+  canEdit: boolean;
+}) {
   const { audition, stepUp } = s;
   return (
     <Card>
@@ -115,7 +159,17 @@ export function PassagesCard({ s, song, recording, canEdit }: { s: AuditionSessi
   );
 }
 
-export function CandidatesCard({ s, song, canEdit, wide }: { s: AuditionSession; song: Song | undefined; canEdit: boolean; wide: boolean }) {
+export function CandidatesCard({
+  s,
+  song,
+  canEdit,
+  wide,
+}: {
+  s: AuditionSession;
+  song: Song | undefined;
+  canEdit: boolean;
+  wide: boolean;
+}) {
   if (!song) return null;
   return (
     <Card>

@@ -9,7 +9,19 @@ import { addCandidate, changeCandidate, chooseTempo, removeCandidate, useCandida
 import { useAction } from '@/client/useAction';
 import type { Candidate, Song } from '@/shared/schemas';
 
-export function CandidateTempos({ song, bpm, canEdit, wide, onHop }: { song: Song; bpm: number; canEdit: boolean; wide: boolean; onHop: (bpm: number) => void }) {
+export function CandidateTempos({
+  song,
+  bpm,
+  canEdit,
+  wide,
+  onHop,
+}: {
+  song: Song;
+  bpm: number;
+  canEdit: boolean;
+  wide: boolean;
+  onHop: (bpm: number) => void;
+}) {
   const { candidates } = useCandidates(song.id);
   const add = useAction(async () => {
     await addCandidate(song.id, tenth(bpm));
@@ -29,10 +41,21 @@ export function CandidateTempos({ song, bpm, canEdit, wide, onHop }: { song: Son
             onPress={() => onHop(c.bpm)}
           />
         ))}
-        {canEdit ? <Button label={`Add ${formatBpm(tenth(bpm))} as a candidate`} kind="secondary" busy={add.busy} disabled={already} onPress={add.run} testID="add-candidate" /> : null}
+        {canEdit ? (
+          <Button
+            label={`Add ${formatBpm(tenth(bpm))} as a candidate`}
+            kind="secondary"
+            busy={add.busy}
+            disabled={already}
+            onPress={add.run}
+            testID="add-candidate"
+          />
+        ) : null}
       </Row>
       {add.error ? <Notice tone="error">{add.error}</Notice> : null}
-      {list.length === 0 ? <Small>Try a few tempos, add the ones worth comparing, then hop between them while the music plays.</Small> : null}
+      {list.length === 0 ? (
+        <Small>Try a few tempos, add the ones worth comparing, then hop between them while the music plays.</Small>
+      ) : null}
       {wide && list.length > 1 ? <Small>Keys 1–9 hop between candidates; the music keeps its place.</Small> : null}
       {list.map((c) => (
         <CandidateRow key={c.id} candidate={c} song={song} canEdit={canEdit} current={Math.abs(c.bpm - bpm) < 0.05} />
@@ -41,7 +64,17 @@ export function CandidateTempos({ song, bpm, canEdit, wide, onHop }: { song: Son
   );
 }
 
-function CandidateRow({ candidate: c, song, canEdit, current }: { candidate: Candidate; song: Song; canEdit: boolean; current: boolean }) {
+function CandidateRow({
+  candidate: c,
+  song,
+  canEdit,
+  current,
+}: {
+  candidate: Candidate;
+  song: Song;
+  canEdit: boolean;
+  current: boolean;
+}) {
   const [note, setNote] = useState(c.note ?? '');
   const [choosing, setChoosing] = useState(false);
   const [why, setWhy] = useState(song.chosenNote ?? '');
@@ -52,7 +85,16 @@ function CandidateRow({ candidate: c, song, canEdit, current }: { candidate: Can
   });
   const chosen = song.chosenBpm === c.bpm;
   return (
-    <View testID={`candidate-${formatBpm(c.bpm)}`} style={{ borderWidth: 1, borderColor: current ? colors.teal : colors.line, borderRadius: radius.sm, padding: space.md, gap: space.sm }}>
+    <View
+      testID={`candidate-${formatBpm(c.bpm)}`}
+      style={{
+        borderWidth: 1,
+        borderColor: current ? colors.teal : colors.line,
+        borderRadius: radius.sm,
+        padding: space.md,
+        gap: space.sm,
+      }}
+    >
       <Row>
         <Text style={[type.h3, { color: chosen ? colors.amber : colors.ink }]}>{formatBpm(c.bpm)} BPM</Text>
         {chosen ? <Text style={[type.label, { color: colors.amber }]}>Chosen tempo</Text> : null}
@@ -76,10 +118,24 @@ function CandidateRow({ candidate: c, song, canEdit, current }: { candidate: Can
       </Row>
       {canEdit ? (
         <>
-          <Field label="A line on this tempo" value={note} onChangeText={setNote} onBlur={() => note !== (c.note ?? '') && saveNote.run()} onSubmitEditing={saveNote.run}
-            placeholder="e.g. the turns breathe here" testID={`candidate-note-${formatBpm(c.bpm)}`} />
+          <Field
+            label="A line on this tempo"
+            value={note}
+            onChangeText={setNote}
+            onBlur={() => note !== (c.note ?? '') && saveNote.run()}
+            onSubmitEditing={saveNote.run}
+            placeholder="e.g. the turns breathe here"
+            testID={`candidate-note-${formatBpm(c.bpm)}`}
+          />
           <Row>
-            {!chosen ? <Button label="Choose this tempo" kind="secondary" onPress={() => setChoosing(true)} testID={`choose-${formatBpm(c.bpm)}`} /> : null}
+            {!chosen ? (
+              <Button
+                label="Choose this tempo"
+                kind="secondary"
+                onPress={() => setChoosing(true)}
+                testID={`choose-${formatBpm(c.bpm)}`}
+              />
+            ) : null}
             <Button label="Remove" kind="quiet" onPress={() => void removeCandidate(c)} />
           </Row>
         </>
@@ -88,9 +144,20 @@ function CandidateRow({ candidate: c, song, canEdit, current }: { candidate: Can
       ) : null}
       {choosing ? (
         <View style={{ gap: space.sm }}>
-          <Field label="Why this tempo? (a note for later)" value={why} onChangeText={setWhy} multiline testID="chosen-note" />
+          <Field
+            label="Why this tempo? (a note for later)"
+            value={why}
+            onChangeText={setWhy}
+            multiline
+            testID="chosen-note"
+          />
           <Row>
-            <Button label={`Mark ${formatBpm(c.bpm)} BPM as the chosen tempo`} busy={choose.busy} onPress={choose.run} testID="confirm-choice" />
+            <Button
+              label={`Mark ${formatBpm(c.bpm)} BPM as the chosen tempo`}
+              busy={choose.busy}
+              onPress={choose.run}
+              testID="confirm-choice"
+            />
             <Button label="Cancel" kind="quiet" onPress={() => setChoosing(false)} />
           </Row>
         </View>

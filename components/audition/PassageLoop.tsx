@@ -48,14 +48,25 @@ export function PassageLoop({
   const [problem, setProblem] = useState<string | null>(null);
   const num = (s: string) => Number(s.replace(',', '.'));
   const start = () => {
-    const p: StepUpPlan = { startBpm: num(plan.startBpm), stepBpm: num(plan.stepBpm), repsPerStep: num(plan.repsPerStep), goalBpm: num(plan.goalBpm) };
+    const p: StepUpPlan = {
+      startBpm: num(plan.startBpm),
+      stepBpm: num(plan.stepBpm),
+      repsPerStep: num(plan.repsPerStep),
+      goalBpm: num(plan.goalBpm),
+    };
     const why = validatePlan(p);
     setProblem(why);
     if (!why) onStartStepUp(p);
   };
   const field = (key: keyof typeof plan, label: string) => (
     <View style={{ flexBasis: '40%', flexGrow: 1 }}>
-      <Field label={label} value={plan[key]} inputMode="decimal" onChangeText={(v) => setPlan({ ...plan, [key]: v })} testID={`stepup-${key}`} />
+      <Field
+        label={label}
+        value={plan[key]}
+        inputMode="decimal"
+        onChangeText={(v) => setPlan({ ...plan, [key]: v })}
+        testID={`stepup-${key}`}
+      />
     </View>
   );
 
@@ -80,7 +91,9 @@ export function PassageLoop({
 
       {loop && !stepUp ? (
         <View style={{ gap: space.sm }}>
-          <Text style={[type.label, { color: colors.ink }]}>Step up: raise the tempo after each set of clean repetitions</Text>
+          <Text style={[type.label, { color: colors.ink }]}>
+            Step up: raise the tempo after each set of clean repetitions
+          </Text>
           <Row align="flex-end">
             {field('startBpm', 'Start (BPM)')}
             {field('stepBpm', 'Step (BPM)')}
@@ -102,14 +115,16 @@ export function PassageLoop({
           <Text style={[type.label, { color: colors.muted }]} testID="stepup-ladder">
             {stepUpTempos(stepUp.plan).map((t, i, all) => (
               <Text key={t}>
-                <Text style={t === stepUp.bpm && !stepUp.done ? { color: colors.teal, fontWeight: '700' } : undefined}>{formatBpm(t)}</Text>
+                <Text style={t === stepUp.bpm && !stepUp.done ? { color: colors.teal, fontWeight: '700' } : undefined}>
+                  {formatBpm(t)}
+                </Text>
                 {i < all.length - 1 ? ' → ' : ''}
               </Text>
             ))}
           </Text>
           <Small>
-            {plural(stepUp.repetitions, 'repetition')} so far · goal {formatBpm(stepUp.plan.goalBpm)} BPM. Every pass counts as clean unless you
-            press “That one was not clean” while it plays.
+            {plural(stepUp.repetitions, 'repetition')} so far · goal {formatBpm(stepUp.plan.goalBpm)} BPM. Every pass
+            counts as clean unless you press “That one was not clean” while it plays.
           </Small>
           {!stepUp.done ? (
             <Row>
@@ -122,7 +137,9 @@ export function PassageLoop({
         </View>
       ) : null}
       {lastLogged ? <Notice tone="success">{lastLogged}</Notice> : null}
-      {!canLog && stepUp ? <Small>Only the song’s owner can write to its practice log; this run is not saved.</Small> : null}
+      {!canLog && stepUp ? (
+        <Small>Only the song’s owner can write to its practice log; this run is not saved.</Small>
+      ) : null}
     </View>
   );
 }

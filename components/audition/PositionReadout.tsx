@@ -9,7 +9,17 @@ import { formatClock } from '@/shared/format';
 /** How often the readout looks at the player: 20 times a second, faster than the tenths it shows are read. */
 const POLL_MS = 50;
 
-export function PositionReadout({ getPosition, beats, downbeats, durationSec }: { getPosition: () => number; beats: number[]; downbeats: number[]; durationSec: number }) {
+export function PositionReadout({
+  getPosition,
+  beats,
+  downbeats,
+  durationSec,
+}: {
+  getPosition: () => number;
+  beats: number[];
+  downbeats: number[];
+  durationSec: number;
+}) {
   const t = usePolled(getPosition, POLL_MS);
   const bar = barAt(t, downbeats);
   const beat = beatInBar(t, beats, downbeats);
@@ -20,7 +30,10 @@ export function PositionReadout({ getPosition, beats, downbeats, durationSec }: 
       {beat > 0 ? <Text style={{ color: colors.muted }}>{` · beat ${beat}`}</Text> : null}
       <Text style={{ color: colors.muted }}>
         {'  ·  '}
-        <Text testID="playback-position" accessibilityLabel={`${t.toFixed(1)} seconds`}>{formatClock(t)}</Text> / {formatClock(durationSec)}
+        <Text testID="playback-position" accessibilityLabel={`${t.toFixed(1)} seconds`}>
+          {formatClock(t)}
+        </Text>{' '}
+        / {formatClock(durationSec)}
       </Text>
     </Text>
   );

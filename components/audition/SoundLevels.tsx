@@ -7,7 +7,17 @@ import { colors, space, type } from '@/components/theme';
 const STEP = 0.05;
 const pct = (v: number) => `${Math.round(v * 100)} %`;
 
-export function Level({ label, value, onChange, testID }: { label: string; value: number; onChange: (v: number) => void; testID: string }) {
+export function Level({
+  label,
+  value,
+  onChange,
+  testID,
+}: {
+  label: string;
+  value: number;
+  onChange: (v: number) => void;
+  testID: string;
+}) {
   const set = (v: number) => onChange(Math.round(Math.max(0, Math.min(1, v)) * 100) / 100);
   return (
     <Row>
@@ -39,14 +49,24 @@ export function SoundLevels({
   return (
     <View style={{ gap: space.sm }}>
       <Row>
-        <Chip label={clickOn ? 'Click on' : 'Click off'} selected={clickOn} onPress={() => onClickOn(!clickOn)} testID="click-toggle" />
-        <Chip label={musicLevel === 0 ? 'Music muted: click only' : 'Mute the music'} hint="Mute the music and keep the click" selected={musicLevel === 0} onPress={() => onMusicLevel(musicLevel === 0 ? 1 : 0)} />
+        <Chip
+          label={clickOn ? 'Click on' : 'Click off'}
+          selected={clickOn}
+          onPress={() => onClickOn(!clickOn)}
+          testID="click-toggle"
+        />
+        <Chip
+          label={musicLevel === 0 ? 'Music muted: click only' : 'Mute the music'}
+          hint="Mute the music and keep the click"
+          selected={musicLevel === 0}
+          onPress={() => onMusicLevel(musicLevel === 0 ? 1 : 0)}
+        />
       </Row>
       <Level label="Click" value={clickLevel} onChange={onClickLevel} testID="click-level" />
       <Level label="Music" value={musicLevel} onChange={onMusicLevel} testID="music-level" />
       <Notice tone="caution">
-        Mind your ears: long practice at high headphone levels harms hearing (WHO–ITU H.870, safe listening). The click starts at a
-        quarter of full level; keep it and the music moderate, and take listening breaks.
+        Mind your ears: long practice at high headphone levels harms hearing (WHO–ITU H.870, safe listening). The click
+        starts at a quarter of full level; keep it and the music moderate, and take listening breaks.
       </Notice>
     </View>
   );

@@ -8,8 +8,17 @@ import { formatBpm, tenth } from '@/shared/format';
 import { nextMarkDown, nextMarkUp } from '@/audio/practice/metronome';
 import type { Song } from '@/shared/schemas';
 
-
-export function TempoControl({ bpm, originalBpm, song, onChange }: { bpm: number; originalBpm: number; song: Song | undefined; onChange: (bpm: number) => void }) {
+export function TempoControl({
+  bpm,
+  originalBpm,
+  song,
+  onChange,
+}: {
+  bpm: number;
+  originalBpm: number;
+  song: Song | undefined;
+  onChange: (bpm: number) => void;
+}) {
   const [typed, setTyped] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
   const low = tenth(originalBpm * 0.4);
@@ -17,7 +26,10 @@ export function TempoControl({ bpm, originalBpm, song, onChange }: { bpm: number
   const submit = () => {
     const v = Number(typed.replace(',', '.'));
     if (!typed.trim() || !Number.isFinite(v)) return setProblem('Type a tempo in BPM, such as 96 or 96.5.');
-    if (v < low || v > high) return setProblem(`This recording plays from ${formatBpm(low)} to ${formatBpm(high)} BPM (40–200 % of its tempo).`);
+    if (v < low || v > high)
+      return setProblem(
+        `This recording plays from ${formatBpm(low)} to ${formatBpm(high)} BPM (40–200 % of its tempo).`,
+      );
     setProblem(null);
     onChange(v);
   };
@@ -25,7 +37,9 @@ export function TempoControl({ bpm, originalBpm, song, onChange }: { bpm: number
     { label: 'Goal', value: song?.goalBpm },
     { label: 'Working', value: song?.workingBpm },
     { label: 'Chosen', value: song?.chosenBpm },
-  ].filter((s): s is { label: string; value: number } => typeof s.value === 'number' && s.value >= low && s.value <= high);
+  ].filter(
+    (s): s is { label: string; value: number } => typeof s.value === 'number' && s.value >= low && s.value <= high,
+  );
 
   return (
     <View style={{ gap: space.sm }}>
@@ -50,13 +64,27 @@ export function TempoControl({ bpm, originalBpm, song, onChange }: { bpm: number
         <Row>
           <Small>Saved:</Small>
           {saved.map((s) => (
-            <Chip key={s.label} label={`${s.label} ${formatBpm(s.value)}`} selected={Math.abs(s.value - bpm) < 0.05} onPress={() => onChange(s.value)} testID={`saved-${s.label.toLowerCase()}`} />
+            <Chip
+              key={s.label}
+              label={`${s.label} ${formatBpm(s.value)}`}
+              selected={Math.abs(s.value - bpm) < 0.05}
+              onPress={() => onChange(s.value)}
+              testID={`saved-${s.label.toLowerCase()}`}
+            />
           ))}
         </Row>
       ) : null}
       <Row align="flex-end">
         <View style={{ flex: 1, minWidth: 160, maxWidth: 280 }}>
-          <Field label="Exact tempo (BPM)" value={typed} onChangeText={setTyped} inputMode="decimal" testID="exact-bpm" error={problem} onSubmitEditing={submit} />
+          <Field
+            label="Exact tempo (BPM)"
+            value={typed}
+            onChangeText={setTyped}
+            inputMode="decimal"
+            testID="exact-bpm"
+            error={problem}
+            onSubmitEditing={submit}
+          />
         </View>
         <Button label="Set" kind="secondary" onPress={submit} testID="set-bpm" />
       </Row>

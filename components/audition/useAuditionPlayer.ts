@@ -28,9 +28,17 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   // Web Audio exists only in the browser, and only after the first render (static rendering has no window).
   useEffect(() => {
     if (Platform.OS !== 'web') return;
-    const p = new AuditionPlayer(audioUrl, { beats: grid.beats, downbeats: grid.downbeats, originalBpm, meter: grid.meter });
+    const p = new AuditionPlayer(audioUrl, {
+      beats: grid.beats,
+      downbeats: grid.downbeats,
+      originalBpm,
+      meter: grid.meter,
+    });
     player.current = p;
-    p.load().then(() => setReady(true), (e: Error) => setFailure(e.message));
+    p.load().then(
+      () => setReady(true),
+      (e: Error) => setFailure(e.message),
+    );
     p.onEnded = () => setPlaying(false);
     p.onLoopPass = () => onLoopPassRef.current?.();
     // The player benchmark (fixtures/bench-player.ts) reads the player's figures from here.
@@ -44,11 +52,14 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   const getCountInBeat = useCallback(() => player.current?.countInBeat() ?? null, []);
 
   /** Playback tempo in BPM, within the player's range, to a tenth. */
-  const setBpm = useCallback((next: number) => {
-    const v = tenth(Math.max(originalBpm * MIN_SPEED, Math.min(originalBpm * MAX_SPEED, next)));
-    setBpmState(v);
-    player.current?.setBpm(v);
-  }, [originalBpm]);
+  const setBpm = useCallback(
+    (next: number) => {
+      const v = tenth(Math.max(originalBpm * MIN_SPEED, Math.min(originalBpm * MAX_SPEED, next)));
+      setBpmState(v);
+      player.current?.setBpm(v);
+    },
+    [originalBpm],
+  );
 
   const play = useCallback(() => {
     const p = player.current;
@@ -92,9 +103,12 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
       p.clickOnGrid(null);
     }, seconds * 1000);
   };
-  useEffect(() => () => {
-    if (listenTimer.current) clearTimeout(listenTimer.current);
-  }, []);
+  useEffect(
+    () => () => {
+      if (listenTimer.current) clearTimeout(listenTimer.current);
+    },
+    [],
+  );
 
   const setCountIn = (on: boolean) => {
     if (player.current) player.current.countInOn = on;
@@ -114,7 +128,31 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   };
 
   return {
-    player, onLoopPassRef, ready, failure, setFailure, playing, play, pause, togglePlay, getPosition, getCountInBeat, seek, skip,
-    bpm, setBpm, loop, setLoop, listen, countInOn, setCountIn, clickOn, setClickOn, clickLevel, setClickLevel, musicLevel, setMusicLevel,
+    player,
+    onLoopPassRef,
+    ready,
+    failure,
+    setFailure,
+    playing,
+    play,
+    pause,
+    togglePlay,
+    getPosition,
+    getCountInBeat,
+    seek,
+    skip,
+    bpm,
+    setBpm,
+    loop,
+    setLoop,
+    listen,
+    countInOn,
+    setCountIn,
+    clickOn,
+    setClickOn,
+    clickLevel,
+    setClickLevel,
+    musicLevel,
+    setMusicLevel,
   };
 }

@@ -1,7 +1,7 @@
 // Everything the audition player on one recording needs, joined: the beat grid as the player feels it, the
 // player itself, the last loop kept across reloads, the song's saved passages on this recording, the step-up
 // run and its logging, keys, candidate tempos and export. AuditionPanel only lays the parts out.
-import { useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useCandidates, usePassages } from '@/client/hooks';
 import { keepLastLoop, readLastLoop } from '@/client/last-loop';
 import { describePassage, type Passage as Region } from '@/audio/practice/passage';
@@ -19,17 +19,41 @@ import { useWavExport } from './useWavExport';
 const LISTEN_SEC = 7;
 /** Loop edges within a millisecond of a saved passage's are that passage. */
 const SAME_EDGE_SEC = 1e-3;
-const samePlace = (a: Region, p: Passage) => Math.abs(a.start - p.startSec) < SAME_EDGE_SEC && Math.abs(a.end - p.endSec) < SAME_EDGE_SEC;
+const samePlace = (a: Region, p: Passage) =>
+  Math.abs(a.start - p.startSec) < SAME_EDGE_SEC && Math.abs(a.end - p.endSec) < SAME_EDGE_SEC;
 
-export function useAuditionSession({ recording, song, canEdit, audioUrl }: { recording: Recording; song: Song | undefined; canEdit: boolean; audioUrl: string }) {
+export function useAuditionSession({
+  recording,
+  song,
+  canEdit,
+  audioUrl,
+}: {
+  recording: Recording;
+  song: Song | undefined;
+  canEdit: boolean;
+  audioUrl: string;
+}) {
   const a = recording.analysis!;
   const meter = a.meter ?? song?.meter ?? null;
   const { beatLevel, barOneSec, nudgeMs } = recording;
-  const feltAt = (level: BeatLevel) =>
-    feltGrid({ beats: a.beats, downbeats: a.downbeats, bpm: recording.originalBpm! }, { beatLevel: level, barOneSec, nudgeMs }, beatsPerBar(meter));
-  // eslint-disable-next-line react-hooks/exhaustive-deps
-  const felt = useMemo(() => feltAt(beatLevel), [a.beats, a.downbeats, recording.originalBpm, beatLevel, barOneSec, nudgeMs, meter]);
-  const grid = { beats: felt.beats, downbeats: felt.downbeats, durationSec: recording.durationSec || a.durationSec, originalBpm: felt.bpm, meter };
+  const originalBpm = recording.originalBpm!;
+  const feltAt = useCallback(
+    (level: BeatLevel) =>
+      feltGrid(
+        { beats: a.beats, downbeats: a.downbeats, bpm: originalBpm },
+        { beatLevel: level, barOneSec, nudgeMs },
+        beatsPerBar(meter),
+      ),
+    [a.beats, a.downbeats, originalBpm, barOneSec, nudgeMs, meter],
+  );
+  const felt = useMemo(() => feltAt(beatLevel), [feltAt, beatLevel]);
+  const grid = {
+    beats: felt.beats,
+    downbeats: felt.downbeats,
+    durationSec: recording.durationSec || a.durationSec,
+    originalBpm: felt.bpm,
+    meter,
+  };
   const audition = useAuditionPlayer(audioUrl, grid);
   const { loop, bpm, setBpm, skip } = audition;
 
@@ -47,13 +71,28 @@ export function useAuditionSession({ recording, song, canEdit, audioUrl }: { rec
   const { passages: all } = usePassages(song?.id);
   const passages = useMemo(() => (all ?? []).filter((p) => p.recordingId === recording.id), [all, recording.id]);
   const saved = loop ? (passages.find((p) => samePlace(loop, p)) ?? null) : null;
-  const stepUp = useStepUpRun({ audition, song, recordingId: recording.id, saved, canLog: canEdit, downbeats: felt.downbeats, originalBpm: felt.bpm });
+  const stepUp = useStepUpRun({
+    audition,
+    song,
+    recordingId: recording.id,
+    saved,
+    canLog: canEdit,
+    downbeats: felt.downbeats,
+    originalBpm: felt.bpm,
+  });
   const { candidates } = useCandidates(song?.id);
   usePlayerKeys({ togglePlay: audition.togglePlay, skip, bpm, setBpm, candidateBpms: candidates?.map((c) => c.bpm) });
-  const wav = useWavExport({ audition, downbeats: felt.downbeats, name: recording.label || song?.title || recording.originalName || 'recording' });
+  const wav = useWavExport({
+    audition,
+    downbeats: felt.downbeats,
+    name: recording.label || song?.title || recording.originalName || 'recording',
+  });
   const [unit, setUnit] = useState<SnapUnit>('bar');
   const loopLabel = loop ? (saved?.name ?? describePassage(loop, felt.downbeats)) : null;
-  const marked = useMemo(() => passages.map((p) => ({ id: p.id, name: p.name, start: p.startSec, end: p.endSec })), [passages]);
+  const marked = useMemo(
+    () => passages.map((p) => ({ id: p.id, name: p.name, start: p.startSec, end: p.endSec })),
+    [passages],
+  );
   const listen = (level: BeatLevel) => audition.listen(feltAt(level), LISTEN_SEC);
   const clearLoop = () => {
     keepLastLoop(recording.id, null);

@@ -3,7 +3,13 @@
 import { useEffect, useRef } from 'react';
 import { Platform } from 'react-native';
 
-export function usePlayerKeys({ togglePlay, skip, bpm, setBpm, candidateBpms }: {
+export function usePlayerKeys({
+  togglePlay,
+  skip,
+  bpm,
+  setBpm,
+  candidateBpms,
+}: {
   togglePlay: () => void;
   skip: (dir: 1 | -1) => void;
   bpm: number;

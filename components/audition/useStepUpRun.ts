@@ -20,12 +20,25 @@ const DEFAULT_STEP_BPM = 4;
 const DEFAULT_REPS_PER_STEP = 3;
 
 /** What a practice entry on `loop` refers to: the saved passage it is, or the recording's region and its bars. */
-export function entryRegion(loop: Passage, recordingId: string, downbeats: number[], saved: SavedPassage | null): Partial<PracticeInput> {
+export function entryRegion(
+  loop: Passage,
+  recordingId: string,
+  downbeats: number[],
+  saved: SavedPassage | null,
+): Partial<PracticeInput> {
   if (saved) return { passageId: saved.id };
   return { recordingId, startSec: loop.start, endSec: loop.end, ...barsOf(loop, downbeats) };
 }
 
-export function useStepUpRun({ audition, song, recordingId, saved, canLog, downbeats, originalBpm }: {
+export function useStepUpRun({
+  audition,
+  song,
+  recordingId,
+  saved,
+  canLog,
+  downbeats,
+  originalBpm,
+}: {
   audition: AuditionPlayerState;
   song: Song | undefined;
   recordingId: string;
@@ -51,8 +64,18 @@ export function useStepUpRun({ audition, song, recordingId, saved, canLog, downb
     const reached = s.reachedBpm ?? s.plan.startBpm;
     if (!canLog) return;
     try {
-      await logPractice(song.id, { ...region, passage, startBpm: s.plan.startBpm, reachedBpm: reached, repetitions: s.repetitions, minutes, clean: s.done });
-      setLogged(`Logged: ${passage ?? 'the recording'}, ${formatBpm(s.plan.startBpm)} → ${formatBpm(reached)} BPM, ${plural(s.repetitions, 'repetition')}, ${minutes} min.`);
+      await logPractice(song.id, {
+        ...region,
+        passage,
+        startBpm: s.plan.startBpm,
+        reachedBpm: reached,
+        repetitions: s.repetitions,
+        minutes,
+        clean: s.done,
+      });
+      setLogged(
+        `Logged: ${passage ?? 'the recording'}, ${formatBpm(s.plan.startBpm)} → ${formatBpm(reached)} BPM, ${plural(s.repetitions, 'repetition')}, ${minutes} min.`,
+      );
     } catch (e) {
       setLogged(null);
       setFailure(`The practice entry was not saved: ${(e as Error).message}`);
@@ -100,7 +123,9 @@ export function useStepUpRun({ audition, song, recordingId, saved, canLog, downb
   };
 
   const defaultPlan: StepUpPlan = {
-    startBpm: tenth(Math.max(originalBpm * MIN_SPEED, saved?.workingBpm ?? song?.workingBpm ?? originalBpm * DEFAULT_START_SHARE)),
+    startBpm: tenth(
+      Math.max(originalBpm * MIN_SPEED, saved?.workingBpm ?? song?.workingBpm ?? originalBpm * DEFAULT_START_SHARE),
+    ),
     stepBpm: DEFAULT_STEP_BPM,
     repsPerStep: DEFAULT_REPS_PER_STEP,
     goalBpm: tenth(Math.min(originalBpm * MAX_SPEED, saved?.goalBpm ?? song?.goalBpm ?? originalBpm)),

@@ -10,7 +10,15 @@ const REVOKE_AFTER_MS = 60_000;
 /** Long enough for the button to be painted busy before the render, which blocks the page, begins. */
 const PAINT_FIRST_MS = 30;
 
-export function useWavExport({ audition, downbeats, name }: { audition: AuditionPlayerState; downbeats: number[]; name: string }) {
+export function useWavExport({
+  audition,
+  downbeats,
+  name,
+}: {
+  audition: AuditionPlayerState;
+  downbeats: number[];
+  name: string;
+}) {
   const { player, bpm, setFailure } = audition;
   /** What is being rendered ("the recording", "bar 2"), or null. */
   const [exporting, setExporting] = useState<string | null>(null);

@@ -29,7 +29,8 @@ function formatOf(container: string | undefined, codec: string | undefined): Aud
   if (c === 'wave') return 'wav';
   if (c === 'flac') return 'flac';
   if (c === 'ogg' && (k.includes('vorbis') || k.includes('opus'))) return 'ogg';
-  if ((c.startsWith('m4a') || c.startsWith('mp4') || c.includes('isom') || c.includes('mp42')) && k.includes('aac')) return 'm4a';
+  if ((c.startsWith('m4a') || c.startsWith('mp4') || c.includes('isom') || c.includes('mp42')) && k.includes('aac'))
+    return 'm4a';
   return null;
 }
 
@@ -49,7 +50,10 @@ export async function checkAudio(file: string, maxDurationSec: number): Promise<
     await fs.promises.link(file, named);
     meta = await parseFile(named, { duration: true, skipCovers: true });
   } catch {
-    throw refuse(`this ${sniffed.ext.toUpperCase()} file is not audio Tactus can read (MP3, WAV, FLAC, OGG or M4A)`, 415);
+    throw refuse(
+      `this ${sniffed.ext.toUpperCase()} file is not audio Tactus can read (MP3, WAV, FLAC, OGG or M4A)`,
+      415,
+    );
   } finally {
     await fs.promises.rm(named, { force: true });
   }
@@ -64,7 +68,10 @@ export async function checkAudio(file: string, maxDurationSec: number): Promise<
     throw refuse('the file’s header is damaged (it declares no audio channels or no length)', 415);
   }
   if (declared > maxDurationSec) {
-    throw refuse(`the recording is ${Math.round(declared / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`, 413);
+    throw refuse(
+      `the recording is ${Math.round(declared / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`,
+      413,
+    );
   }
   // Decode once, counting what is really there without keeping it (memory stays flat).
   let decodedSec: number;
@@ -76,10 +83,15 @@ export async function checkAudio(file: string, maxDurationSec: number): Promise<
   }
   if (decodedSec < 0.2) throw refuse('the file holds no audio');
   if (declared > 1 && decodedSec < 0.9 * declared) {
-    throw refuse(`the file is cut short: its header promises ${declared.toFixed(1)} s but it holds ${decodedSec.toFixed(1)} s`);
+    throw refuse(
+      `the file is cut short: its header promises ${declared.toFixed(1)} s but it holds ${decodedSec.toFixed(1)} s`,
+    );
   }
   if (decodedSec > maxDurationSec) {
-    throw refuse(`the recording is ${Math.round(decodedSec / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`, 413);
+    throw refuse(
+      `the recording is ${Math.round(decodedSec / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`,
+      413,
+    );
   }
   return { format, mimeType: MIME[format], durationSec: Math.round(decodedSec * 1000) / 1000 };
 }

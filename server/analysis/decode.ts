@@ -20,11 +20,30 @@ export function decodedSeconds(file: string, sampleRate = 8000): Promise<number>
   return runDecoder(file, sampleRate, false).then(({ frames }) => frames / sampleRate);
 }
 
-function runDecoder(file: string, sampleRate: number, keep: boolean): Promise<{ samples: Float32Array | null; frames: number }> {
+function runDecoder(
+  file: string,
+  sampleRate: number,
+  keep: boolean,
+): Promise<{ samples: Float32Array | null; frames: number }> {
   return new Promise((resolve, reject) => {
     const ff = spawn(
       process.env.TACTUS_FFMPEG ?? 'ffmpeg',
-      ['-v', 'error', '-nostdin', '-i', file, '-map', '0:a:0', '-ac', '1', '-ar', String(sampleRate), '-f', 'f32le', '-'],
+      [
+        '-v',
+        'error',
+        '-nostdin',
+        '-i',
+        file,
+        '-map',
+        '0:a:0',
+        '-ac',
+        '1',
+        '-ar',
+        String(sampleRate),
+        '-f',
+        'f32le',
+        '-',
+      ],
       { stdio: ['ignore', 'pipe', 'pipe'] },
     );
     const chunks: Buffer[] = [];

@@ -39,8 +39,12 @@ async function main(argv: string[]) {
 }
 
 function humanReport(file: string, a: Analysis): string {
-  if (a.bpm === null) return `${file}: no steady beat found (${a.durationSec.toFixed(1)} s analysed in ${a.analysisMs} ms)`;
-  const others = a.candidates.slice(1).map((c) => `${c.bpm} (${c.relation})`).join(', ');
+  if (a.bpm === null)
+    return `${file}: no steady beat found (${a.durationSec.toFixed(1)} s analysed in ${a.analysisMs} ms)`;
+  const others = a.candidates
+    .slice(1)
+    .map((c) => `${c.bpm} (${c.relation})`)
+    .join(', ');
   return [
     `${file}`,
     `  tempo      ${a.bpm} BPM (confidence ${(a.confidence * 100).toFixed(0)} %)`,

@@ -7,9 +7,16 @@ import { config } from '@/server/config';
 const S3rver = require('s3rver');
 
 const port = Number(new URL(config.storage.s3.endpoint).port || 4569);
-const directory = process.env.TACTUS_FAKE_S3_DIR ?? path.join(process.env.TACTUS_STATE ?? path.join(config.root, '.tactus'), 'fake-s3');
+const directory =
+  process.env.TACTUS_FAKE_S3_DIR ?? path.join(process.env.TACTUS_STATE ?? path.join(config.root, '.tactus'), 'fake-s3');
 
-new S3rver({ port, address: '127.0.0.1', directory, silent: true, configureBuckets: [{ name: config.storage.s3.bucket }] })
+new S3rver({
+  port,
+  address: '127.0.0.1',
+  directory,
+  silent: true,
+  configureBuckets: [{ name: config.storage.s3.bucket }],
+})
   .run()
   .then(() => console.log(`[tactus] fake S3 on http://127.0.0.1:${port}, bucket ${config.storage.s3.bucket}`))
   .catch((err: NodeJS.ErrnoException) => {

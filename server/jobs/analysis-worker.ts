@@ -17,7 +17,13 @@ export interface WorkRequest {
 }
 export type WorkMessage =
   | { type: 'progress'; value: number }
-  | { type: 'done'; result: ReturnType<typeof analyse>; peaks: ReturnType<typeof waveformPeaks>; engineMs: number; engineVersion: number }
+  | {
+      type: 'done';
+      result: ReturnType<typeof analyse>;
+      peaks: ReturnType<typeof waveformPeaks>;
+      engineMs: number;
+      engineVersion: number;
+    }
   | { type: 'failed'; reason: string };
 
 const post = (m: WorkMessage) => parentPort!.postMessage(m);
@@ -36,7 +42,13 @@ parentPort!.on('message', async ({ storageKey }: WorkRequest) => {
     const started = performance.now();
     const result = analyse(samples, sampleRate);
     const peaks = waveformPeaks(samples, sampleRate);
-    post({ type: 'done', result, peaks, engineMs: Math.round(performance.now() - started), engineVersion: ENGINE_VERSION });
+    post({
+      type: 'done',
+      result,
+      peaks,
+      engineMs: Math.round(performance.now() - started),
+      engineVersion: ENGINE_VERSION,
+    });
   } catch (err) {
     post({ type: 'failed', reason: `analysis failed: ${(err as Error).message}` });
   } finally {

@@ -45,8 +45,15 @@ export async function claimNext(): Promise<ClaimedJob | null> {
     if (!recording) return null;
     const background = row.priority === BACKGROUND_PRIORITY;
     if (row.attempts >= config.analysis.maxAttempts) {
-      await AnalysisJob.update({ status: 'failed', lastError: 'gave up after repeated interruptions' }, { where: { id: row.id }, transaction: t });
-      if (!background) await recording.update({ status: 'failed', error: 'the analysis was interrupted too many times; retry it' }, { transaction: t });
+      await AnalysisJob.update(
+        { status: 'failed', lastError: 'gave up after repeated interruptions' },
+        { where: { id: row.id }, transaction: t },
+      );
+      if (!background)
+        await recording.update(
+          { status: 'failed', error: 'the analysis was interrupted too many times; retry it' },
+          { transaction: t },
+        );
       return null;
     }
     await AnalysisJob.update(
@@ -54,27 +61,54 @@ export async function claimNext(): Promise<ClaimedJob | null> {
       { where: { id: row.id }, transaction: t },
     );
     if (!background) await recording.update({ status: 'running', progress: 0, error: null }, { transaction: t });
-    return { jobId: row.id, recordingId: row.recordingId, storageKey: recording.storageKey, attempt: row.attempts + 1, background };
+    return {
+      jobId: row.id,
+      recordingId: row.recordingId,
+      storageKey: recording.storageKey,
+      attempt: row.attempts + 1,
+      background,
+    };
   });
 }
 
 /** Keeps a running job ours; also records its progress. False when the job is no longer ours. */
 export async function heartbeat(job: ClaimedJob, progress: number): Promise<boolean> {
-  const [n] = await AnalysisJob.update({ heartbeatAt: new Date() }, { where: { id: job.jobId, lockedBy: processName, status: 'running' } });
+  const [n] = await AnalysisJob.update(
+    { heartbeatAt: new Date() },
+    { where: { id: job.jobId, lockedBy: processName, status: 'running' } },
+  );
   if (n && !job.background) await Recording.update({ progress }, { where: { id: job.recordingId } });
   return n > 0;
 }
 
 /** Stores the result once: only while the job is still locked by this process. */
-export async function complete(job: ClaimedJob, result: unknown, peaks: unknown, engineMs: number, engineVersion: number): Promise<boolean> {
+export async function complete(
+  job: ClaimedJob,
+  result: unknown,
+  peaks: unknown,
+  engineMs: number,
+  engineVersion: number,
+): Promise<boolean> {
   return sequelize.transaction(async (t) => {
     const [n] = await AnalysisJob.update(
       { status: 'done', finishedBy: processName, heartbeatAt: new Date(), lastError: null },
       { where: { id: job.jobId, lockedBy: processName, status: 'running' }, transaction: t },
     );
     if (!n) return false;
-    await Analysis.upsert({ recordingId: job.recordingId, result: JSON.stringify(result), peaks: JSON.stringify(peaks), engineMs, engineVersion }, { transaction: t });
-    await Recording.update({ status: 'done', progress: 1, error: null }, { where: { id: job.recordingId }, transaction: t });
+    await Analysis.upsert(
+      {
+        recordingId: job.recordingId,
+        result: JSON.stringify(result),
+        peaks: JSON.stringify(peaks),
+        engineMs,
+        engineVersion,
+      },
+      { transaction: t },
+    );
+    await Recording.update(
+      { status: 'done', progress: 1, error: null },
+      { where: { id: job.recordingId }, transaction: t },
+    );
     return true;
   });
 }
@@ -86,7 +120,8 @@ export async function fail(job: ClaimedJob, reason: string): Promise<void> {
       { where: { id: job.jobId, lockedBy: processName }, transaction: t },
     );
     // A failed re-analysis keeps the result the recording already has.
-    if (n && !job.background) await Recording.update({ status: 'failed', error: reason }, { where: { id: job.recordingId }, transaction: t });
+    if (n && !job.background)
+      await Recording.update({ status: 'failed', error: reason }, { where: { id: job.recordingId }, transaction: t });
   });
 }
 
@@ -97,7 +132,11 @@ export async function retry(recordingId: string): Promise<boolean> {
       { status: 'queued', attempts: 0, lockedBy: null, lastError: null },
       { where: { recordingId, status: 'failed' }, transaction: t },
     );
-    if (n) await Recording.update({ status: 'queued', progress: 0, error: null }, { where: { id: recordingId }, transaction: t });
+    if (n)
+      await Recording.update(
+        { status: 'queued', progress: 0, error: null },
+        { where: { id: recordingId }, transaction: t },
+      );
     return n > 0;
   });
 }
@@ -108,7 +147,8 @@ export async function release(job: ClaimedJob, reason: string): Promise<void> {
     { status: 'queued', lockedBy: null, lastError: reason },
     { where: { id: job.jobId, lockedBy: processName, status: 'running' } },
   );
-  if (n && !job.background) await Recording.update({ status: 'queued', progress: 0 }, { where: { id: job.recordingId } });
+  if (n && !job.background)
+    await Recording.update({ status: 'queued', progress: 0 }, { where: { id: job.recordingId } });
 }
 
 /**

@@ -23,7 +23,14 @@ export async function sendMail(mail: OutgoingMail): Promise<void> {
 const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 /** A plain message with one button-like link, in both text and HTML. */
-export function linkMail(to: string, subject: string, greeting: string, body: string, label: string, url: string): OutgoingMail {
+export function linkMail(
+  to: string,
+  subject: string,
+  greeting: string,
+  body: string,
+  label: string,
+  url: string,
+): OutgoingMail {
   return {
     to,
     subject,

@@ -33,7 +33,8 @@ export const requireRole =
   (...roles: Role[]) =>
   (req: Request, _res: Response, next: NextFunction) => {
     if (!req.user) return next(new HttpError(401, 'unauthenticated', 'sign in first'));
-    if (!roles.includes(req.user.role)) return next(new HttpError(403, 'forbidden', `this needs the ${roles.join(' or ')} role`));
+    if (!roles.includes(req.user.role))
+      return next(new HttpError(403, 'forbidden', `this needs the ${roles.join(' or ')} role`));
     next();
   };
 

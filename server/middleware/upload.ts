@@ -55,17 +55,32 @@ const megabytes = (n: number) => `${Math.round(n / (1024 * 1024))} MB`;
 
 /** Parses `multipart/form-data` with one `file`; turns multer's errors into clear API errors. */
 export function receiveUpload(req: Request, res: Response, next: NextFunction) {
-  if (!req.is('multipart/form-data')) return next(new HttpError(400, 'invalid_body', 'send the recording as multipart/form-data with the field "file"', 'file'));
+  if (!req.is('multipart/form-data'))
+    return next(
+      new HttpError(400, 'invalid_body', 'send the recording as multipart/form-data with the field "file"', 'file'),
+    );
   parser(req, res, (err: unknown) => {
     if (!err) return next();
     if (err instanceof multer.MulterError) {
       if (err.code === 'LIMIT_FILE_SIZE') {
         // The rest of the body is not wanted: say so and close the connection after the answer.
         res.setHeader('Connection', 'close');
-        return next(new HttpError(413, 'too_large', `the file is larger than the ${megabytes(config.uploads.maxBytes)} limit`, 'file'));
+        return next(
+          new HttpError(
+            413,
+            'too_large',
+            `the file is larger than the ${megabytes(config.uploads.maxBytes)} limit`,
+            'file',
+          ),
+        );
       }
-      if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(new HttpError(400, 'invalid_body', `send one file, in the field "file" (got "${err.field}")`, 'file'));
-      return next(new HttpError(400, 'invalid_body', `the upload could not be read: ${err.message}`, err.field ?? 'file'));
+      if (err.code === 'LIMIT_UNEXPECTED_FILE')
+        return next(
+          new HttpError(400, 'invalid_body', `send one file, in the field "file" (got "${err.field}")`, 'file'),
+        );
+      return next(
+        new HttpError(400, 'invalid_body', `the upload could not be read: ${err.message}`, err.field ?? 'file'),
+      );
     }
     next(new HttpError(400, 'invalid_body', `the upload could not be read: ${(err as Error).message}`, 'file'));
   });

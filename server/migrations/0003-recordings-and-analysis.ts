@@ -11,7 +11,12 @@ export async function up({ context: qi }: { context: QueryInterface }) {
   await qi.createTable('recordings', {
     id: { type: DataTypes.UUID, primaryKey: true, allowNull: false },
     songId: { type: DataTypes.UUID, allowNull: false, references: { model: 'songs', key: 'id' }, onDelete: 'CASCADE' },
-    ownerId: { type: DataTypes.STRING(64), allowNull: false, references: { model: 'users', key: 'id' }, onDelete: 'CASCADE' },
+    ownerId: {
+      type: DataTypes.STRING(64),
+      allowNull: false,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     kind: { type: DataTypes.ENUM('reference', 'take'), allowNull: false },
     label: { type: DataTypes.STRING(200), allowNull: true },
     originalName: { type: DataTypes.STRING(255), allowNull: true },
@@ -29,7 +34,13 @@ export async function up({ context: qi }: { context: QueryInterface }) {
   });
   await qi.addIndex('recordings', ['songId', 'createdAt']);
   await qi.createTable('analyses', {
-    recordingId: { type: DataTypes.UUID, primaryKey: true, allowNull: false, references: { model: 'recordings', key: 'id' }, onDelete: 'CASCADE' },
+    recordingId: {
+      type: DataTypes.UUID,
+      primaryKey: true,
+      allowNull: false,
+      references: { model: 'recordings', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     result: { type: DataTypes.TEXT('long'), allowNull: false },
     peaks: { type: DataTypes.TEXT('long'), allowNull: false },
     engineMs: { type: DataTypes.INTEGER, allowNull: false },
@@ -37,7 +48,13 @@ export async function up({ context: qi }: { context: QueryInterface }) {
   });
   await qi.createTable('analysis_jobs', {
     id: { type: DataTypes.UUID, primaryKey: true, allowNull: false },
-    recordingId: { type: DataTypes.UUID, allowNull: false, unique: true, references: { model: 'recordings', key: 'id' }, onDelete: 'CASCADE' },
+    recordingId: {
+      type: DataTypes.UUID,
+      allowNull: false,
+      unique: true,
+      references: { model: 'recordings', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     status: { type: DataTypes.ENUM('queued', 'running', 'done', 'failed'), allowNull: false, defaultValue: 'queued' },
     attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     lastError: { type: DataTypes.TEXT, allowNull: true },

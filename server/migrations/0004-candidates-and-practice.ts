@@ -6,7 +6,12 @@ const timestamps = {
   createdAt: { type: DataTypes.DATE(3), allowNull: false },
   updatedAt: { type: DataTypes.DATE(3), allowNull: false },
 };
-const songRef = { type: DataTypes.UUID, allowNull: false, references: { model: 'songs', key: 'id' }, onDelete: 'CASCADE' };
+const songRef = {
+  type: DataTypes.UUID,
+  allowNull: false,
+  references: { model: 'songs', key: 'id' },
+  onDelete: 'CASCADE',
+};
 
 export async function up({ context: qi }: { context: QueryInterface }) {
   await qi.addColumn('songs', 'chosenNote', { type: DataTypes.TEXT, allowNull: true });
@@ -22,7 +27,12 @@ export async function up({ context: qi }: { context: QueryInterface }) {
   await qi.createTable('practice_entries', {
     id: { type: DataTypes.UUID, primaryKey: true, allowNull: false },
     songId: songRef,
-    userId: { type: DataTypes.STRING(64), allowNull: false, references: { model: 'users', key: 'id' }, onDelete: 'CASCADE' },
+    userId: {
+      type: DataTypes.STRING(64),
+      allowNull: false,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     passage: { type: DataTypes.STRING(200), allowNull: true },
     startBpm: { type: DataTypes.DECIMAL(6, 2), allowNull: false },
     reachedBpm: { type: DataTypes.DECIMAL(6, 2), allowNull: false },

@@ -12,7 +12,12 @@ export async function up({ context: qi }: { context: QueryInterface }) {
   await qi.createTable('passages', {
     id: { type: DataTypes.UUID, primaryKey: true, allowNull: false },
     songId: { type: DataTypes.UUID, allowNull: false, references: { model: 'songs', key: 'id' }, onDelete: 'CASCADE' },
-    recordingId: { type: DataTypes.UUID, allowNull: false, references: { model: 'recordings', key: 'id' }, onDelete: 'CASCADE' },
+    recordingId: {
+      type: DataTypes.UUID,
+      allowNull: false,
+      references: { model: 'recordings', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     name: { type: DataTypes.STRING(120), allowNull: false },
     startSec: { type: DataTypes.DOUBLE, allowNull: false },
     endSec: { type: DataTypes.DOUBLE, allowNull: false },
@@ -41,6 +46,7 @@ export async function up({ context: qi }: { context: QueryInterface }) {
 }
 
 export async function down({ context: qi }: { context: QueryInterface }) {
-  for (const column of ['endBar', 'startBar', 'endSec', 'startSec', 'recordingId', 'passageId']) await qi.removeColumn('practice_entries', column);
+  for (const column of ['endBar', 'startBar', 'endSec', 'startSec', 'recordingId', 'passageId'])
+    await qi.removeColumn('practice_entries', column);
   await qi.dropTable('passages');
 }

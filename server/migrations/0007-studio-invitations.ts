@@ -9,13 +9,27 @@ const INVITATION_DAYS = 7;
 export async function up({ context: qi }: { context: QueryInterface }) {
   await qi.createTable('studio_invitations', {
     id: { type: DataTypes.UUID, primaryKey: true, allowNull: false },
-    teacherId: { type: DataTypes.STRING(64), allowNull: false, references: { model: 'users', key: 'id' }, onDelete: 'CASCADE' },
+    teacherId: {
+      type: DataTypes.STRING(64),
+      allowNull: false,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     email: { type: DataTypes.STRING(255), allowNull: false },
     /** SHA-256 of the one-time token in the mailed link; the token itself is never stored. */
     tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
-    status: { type: DataTypes.ENUM('pending', 'accepted', 'declined', 'withdrawn'), allowNull: false, defaultValue: 'pending' },
+    status: {
+      type: DataTypes.ENUM('pending', 'accepted', 'declined', 'withdrawn'),
+      allowNull: false,
+      defaultValue: 'pending',
+    },
     expiresAt: { type: DataTypes.DATE(3), allowNull: false },
-    answeredBy: { type: DataTypes.STRING(64), allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' },
+    answeredBy: {
+      type: DataTypes.STRING(64),
+      allowNull: true,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'SET NULL',
+    },
     answeredAt: { type: DataTypes.DATE(3), allowNull: true },
     createdAt: { type: DataTypes.DATE(3), allowNull: false },
     updatedAt: { type: DataTypes.DATE(3), allowNull: false },

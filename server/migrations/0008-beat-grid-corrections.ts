@@ -4,7 +4,11 @@
 import { DataTypes, type QueryInterface } from 'sequelize';
 
 export async function up({ context: qi }: { context: QueryInterface }) {
-  await qi.addColumn('recordings', 'beatLevel', { type: DataTypes.ENUM('half', 'as-found', 'double'), allowNull: false, defaultValue: 'as-found' });
+  await qi.addColumn('recordings', 'beatLevel', {
+    type: DataTypes.ENUM('half', 'as-found', 'double'),
+    allowNull: false,
+    defaultValue: 'as-found',
+  });
   await qi.addColumn('recordings', 'barOneSec', { type: DataTypes.DOUBLE, allowNull: true });
   await qi.addColumn('recordings', 'nudgeMs', { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 });
 }

@@ -5,9 +5,24 @@ import { DataTypes, type QueryInterface } from 'sequelize';
 export async function up({ context: qi }: { context: QueryInterface }) {
   await qi.createTable('recording_notes', {
     id: { type: DataTypes.UUID, primaryKey: true, allowNull: false },
-    recordingId: { type: DataTypes.UUID, allowNull: false, references: { model: 'recordings', key: 'id' }, onDelete: 'CASCADE' },
-    authorId: { type: DataTypes.STRING(64), allowNull: false, references: { model: 'users', key: 'id' }, onDelete: 'CASCADE' },
-    parentId: { type: DataTypes.UUID, allowNull: true, references: { model: 'recording_notes', key: 'id' }, onDelete: 'CASCADE' },
+    recordingId: {
+      type: DataTypes.UUID,
+      allowNull: false,
+      references: { model: 'recordings', key: 'id' },
+      onDelete: 'CASCADE',
+    },
+    authorId: {
+      type: DataTypes.STRING(64),
+      allowNull: false,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'CASCADE',
+    },
+    parentId: {
+      type: DataTypes.UUID,
+      allowNull: true,
+      references: { model: 'recording_notes', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     atSec: { type: DataTypes.DOUBLE, allowNull: true },
     startSec: { type: DataTypes.DOUBLE, allowNull: true },
     endSec: { type: DataTypes.DOUBLE, allowNull: true },

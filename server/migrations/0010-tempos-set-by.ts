@@ -2,7 +2,12 @@
 // uploaded a recording, when it was not its owner (a teacher adding a reference to a student's song).
 import { DataTypes, type QueryInterface } from 'sequelize';
 
-const userRef = { type: DataTypes.STRING(64), allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' };
+const userRef = {
+  type: DataTypes.STRING(64),
+  allowNull: true,
+  references: { model: 'users', key: 'id' },
+  onDelete: 'SET NULL',
+};
 const when = { type: DataTypes.DATE(3), allowNull: true };
 
 export async function up({ context: qi }: { context: QueryInterface }) {
@@ -18,6 +23,7 @@ export async function up({ context: qi }: { context: QueryInterface }) {
 export async function down({ context: qi }: { context: QueryInterface }) {
   await qi.removeColumn('recordings', 'uploadedBy');
   for (const table of ['songs', 'passages']) {
-    for (const column of ['goalSetAt', 'goalSetBy', 'workingSetAt', 'workingSetBy']) await qi.removeColumn(table, column);
+    for (const column of ['goalSetAt', 'goalSetBy', 'workingSetAt', 'workingSetBy'])
+      await qi.removeColumn(table, column);
   }
 }

@@ -9,14 +9,24 @@ const timestamps = {
 export async function up({ context: qi }: { context: QueryInterface }) {
   await qi.createTable('set_lists', {
     id: { type: DataTypes.UUID, primaryKey: true, allowNull: false },
-    ownerId: { type: DataTypes.STRING(64), allowNull: false, references: { model: 'users', key: 'id' }, onDelete: 'CASCADE' },
+    ownerId: {
+      type: DataTypes.STRING(64),
+      allowNull: false,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     name: { type: DataTypes.STRING(120), allowNull: false },
     ...timestamps,
   });
   await qi.addIndex('set_lists', ['ownerId', 'updatedAt']);
   await qi.createTable('set_list_items', {
     id: { type: DataTypes.UUID, primaryKey: true, allowNull: false },
-    setListId: { type: DataTypes.UUID, allowNull: false, references: { model: 'set_lists', key: 'id' }, onDelete: 'CASCADE' },
+    setListId: {
+      type: DataTypes.UUID,
+      allowNull: false,
+      references: { model: 'set_lists', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     songId: { type: DataTypes.UUID, allowNull: false, references: { model: 'songs', key: 'id' }, onDelete: 'CASCADE' },
     position: { type: DataTypes.INTEGER, allowNull: false },
     ...timestamps,

@@ -47,7 +47,13 @@ Recording.init(
     storageKey: { type: DataTypes.STRING(100).BINARY, allowNull: false, unique: true },
     format: { type: DataTypes.ENUM('mp3', 'wav', 'flac', 'ogg', 'm4a'), allowNull: false },
     mimeType: { type: DataTypes.STRING(64), allowNull: false },
-    sizeBytes: { type: DataTypes.BIGINT, allowNull: false, get(this: Recording) { return Number(this.getDataValue('sizeBytes')); } },
+    sizeBytes: {
+      type: DataTypes.BIGINT,
+      allowNull: false,
+      get(this: Recording) {
+        return Number(this.getDataValue('sizeBytes'));
+      },
+    },
     durationSec: { type: DataTypes.DOUBLE, allowNull: false },
     status: { type: DataTypes.ENUM('queued', 'running', 'done', 'failed'), allowNull: false, defaultValue: 'queued' },
     progress: { type: DataTypes.FLOAT, allowNull: false, defaultValue: 0 },

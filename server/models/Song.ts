@@ -2,7 +2,6 @@ import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, t
 import { sequelize } from '@/server/db';
 import { decimalBpm as bpmColumn } from './decimal';
 
-
 /** A piece a player is working on, with the tempos that matter for it. */
 export class Song extends Model<InferAttributes<Song>, InferCreationAttributes<Song>> {
   declare id: CreationOptional<string>;

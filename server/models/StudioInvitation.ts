@@ -4,7 +4,10 @@ import { sequelize } from '@/server/db';
 export type InvitationStatus = 'pending' | 'accepted' | 'declined' | 'withdrawn';
 
 /** A teacher's invitation to an e-mail address; accepting it (signed in with that address) makes the link. */
-export class StudioInvitation extends Model<InferAttributes<StudioInvitation>, InferCreationAttributes<StudioInvitation>> {
+export class StudioInvitation extends Model<
+  InferAttributes<StudioInvitation>,
+  InferCreationAttributes<StudioInvitation>
+> {
   declare id: CreationOptional<string>;
   declare teacherId: string;
   /** Lower case, as typed by the teacher. */
@@ -23,7 +26,11 @@ StudioInvitation.init(
     teacherId: { type: DataTypes.STRING(64), allowNull: false },
     email: { type: DataTypes.STRING(255), allowNull: false },
     tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
-    status: { type: DataTypes.ENUM('pending', 'accepted', 'declined', 'withdrawn'), allowNull: false, defaultValue: 'pending' },
+    status: {
+      type: DataTypes.ENUM('pending', 'accepted', 'declined', 'withdrawn'),
+      allowNull: false,
+      defaultValue: 'pending',
+    },
     expiresAt: { type: DataTypes.DATE(3), allowNull: false },
     answeredBy: { type: DataTypes.STRING(64), allowNull: true },
     answeredAt: { type: DataTypes.DATE(3), allowNull: true },

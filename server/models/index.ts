@@ -32,4 +32,21 @@ Passage.belongsTo(Recording, { foreignKey: 'recordingId', as: 'recording' });
 /** better-auth's model names (after our modelName mapping) → the Sequelize model that stores them. */
 export const authModels = { users: User, sessions: Session, accounts: Account, verifications: Verification } as const;
 
-export { User, Session, Account, Verification, Song, StudioLink, Recording, Analysis, AnalysisJob, CandidateTempo, PracticeEntry, Passage, StudioInvitation, RecordingNote, SetList, SetListItem };
+export {
+  User,
+  Session,
+  Account,
+  Verification,
+  Song,
+  StudioLink,
+  Recording,
+  Analysis,
+  AnalysisJob,
+  CandidateTempo,
+  PracticeEntry,
+  Passage,
+  StudioInvitation,
+  RecordingNote,
+  SetList,
+  SetListItem,
+};

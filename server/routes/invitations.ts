@@ -16,35 +16,62 @@ import {
 export const invitationsRouter = Router();
 
 /** The mailed link's page asks this before anyone signs in: the token is the key. */
-invitationsRouter.get('/token/:token', handler(async (req, res) => {
-  res.json(await invitationByToken(String(req.params.token), req.user ?? null));
-}));
+invitationsRouter.get(
+  '/token/:token',
+  handler(async (req, res) => {
+    res.json(await invitationByToken(String(req.params.token), req.user ?? null));
+  }),
+);
 
-invitationsRouter.get('/received', requireUser, handler(async (req, res) => {
-  res.json({ invitations: await listReceivedInvitations(currentUser(req)) });
-}));
+invitationsRouter.get(
+  '/received',
+  requireUser,
+  handler(async (req, res) => {
+    res.json({ invitations: await listReceivedInvitations(currentUser(req)) });
+  }),
+);
 
-invitationsRouter.post('/:id/accept', requireUser, handler(async (req, res) => {
-  res.json(await acceptInvitation(currentUser(req), String(req.params.id)));
-}));
+invitationsRouter.post(
+  '/:id/accept',
+  requireUser,
+  handler(async (req, res) => {
+    res.json(await acceptInvitation(currentUser(req), String(req.params.id)));
+  }),
+);
 
-invitationsRouter.post('/:id/decline', requireUser, handler(async (req, res) => {
-  await declineInvitation(currentUser(req), String(req.params.id));
-  res.status(204).end();
-}));
+invitationsRouter.post(
+  '/:id/decline',
+  requireUser,
+  handler(async (req, res) => {
+    await declineInvitation(currentUser(req), String(req.params.id));
+    res.status(204).end();
+  }),
+);
 
 const teachers = requireRole('teacher', 'admin');
 
-invitationsRouter.get('/', teachers, handler(async (req, res) => {
-  res.json({ invitations: await listSentInvitations(currentUser(req)) });
-}));
+invitationsRouter.get(
+  '/',
+  teachers,
+  handler(async (req, res) => {
+    res.json({ invitations: await listSentInvitations(currentUser(req)) });
+  }),
+);
 
-invitationsRouter.post('/', teachers, handler(async (req, res) => {
-  const { email } = parseBody(InviteStudentSchema, req.body);
-  res.status(202).json(await inviteStudent(currentUser(req), email));
-}));
+invitationsRouter.post(
+  '/',
+  teachers,
+  handler(async (req, res) => {
+    const { email } = parseBody(InviteStudentSchema, req.body);
+    res.status(202).json(await inviteStudent(currentUser(req), email));
+  }),
+);
 
-invitationsRouter.delete('/:id', teachers, handler(async (req, res) => {
-  await withdrawInvitation(currentUser(req), String(req.params.id));
-  res.status(204).end();
-}));
+invitationsRouter.delete(
+  '/:id',
+  teachers,
+  handler(async (req, res) => {
+    await withdrawInvitation(currentUser(req), String(req.params.id));
+    res.status(204).end();
+  }),
+);

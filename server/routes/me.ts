@@ -11,10 +11,16 @@ meRouter.get('/', (req, res) => {
   res.json(currentUser(req));
 });
 
-meRouter.get('/preferences', handler(async (req, res) => {
-  res.json(await getPreferences(currentUser(req)));
-}));
+meRouter.get(
+  '/preferences',
+  handler(async (req, res) => {
+    res.json(await getPreferences(currentUser(req)));
+  }),
+);
 
-meRouter.patch('/preferences', handler(async (req, res) => {
-  res.json(await setPreferences(currentUser(req), parseBody(PreferencesSchema.partial(), req.body)));
-}));
+meRouter.patch(
+  '/preferences',
+  handler(async (req, res) => {
+    res.json(await setPreferences(currentUser(req), parseBody(PreferencesSchema.partial(), req.body)));
+  }),
+);

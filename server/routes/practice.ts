@@ -8,11 +8,17 @@ import { listPractice, logPractice } from '@/server/services/practice';
 export const songPracticeRouter = Router({ mergeParams: true });
 songPracticeRouter.use(requireUser);
 
-songPracticeRouter.get('/', handler(async (req, res) => {
-  res.json({ entries: await listPractice(currentUser(req), String(req.params.songId)) });
-}));
+songPracticeRouter.get(
+  '/',
+  handler(async (req, res) => {
+    res.json({ entries: await listPractice(currentUser(req), String(req.params.songId)) });
+  }),
+);
 
-songPracticeRouter.post('/', handler(async (req, res) => {
-  const input = parseBody(PracticeInputSchema, req.body);
-  res.status(201).json(await logPractice(currentUser(req), String(req.params.songId), input));
-}));
+songPracticeRouter.post(
+  '/',
+  handler(async (req, res) => {
+    const input = parseBody(PracticeInputSchema, req.body);
+    res.status(201).json(await logPractice(currentUser(req), String(req.params.songId), input));
+  }),
+);

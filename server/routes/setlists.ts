@@ -8,23 +8,38 @@ import { createSetList, deleteSetList, getSetList, listSetLists, updateSetList }
 export const setListsRouter = Router();
 setListsRouter.use(requireUser);
 
-setListsRouter.get('/', handler(async (req, res) => {
-  res.json({ setLists: await listSetLists(currentUser(req)) });
-}));
+setListsRouter.get(
+  '/',
+  handler(async (req, res) => {
+    res.json({ setLists: await listSetLists(currentUser(req)) });
+  }),
+);
 
-setListsRouter.post('/', handler(async (req, res) => {
-  res.status(201).json(await createSetList(currentUser(req), parseBody(SetListInputSchema, req.body)));
-}));
+setListsRouter.post(
+  '/',
+  handler(async (req, res) => {
+    res.status(201).json(await createSetList(currentUser(req), parseBody(SetListInputSchema, req.body)));
+  }),
+);
 
-setListsRouter.get('/:id', handler(async (req, res) => {
-  res.json(await getSetList(currentUser(req), String(req.params.id)));
-}));
+setListsRouter.get(
+  '/:id',
+  handler(async (req, res) => {
+    res.json(await getSetList(currentUser(req), String(req.params.id)));
+  }),
+);
 
-setListsRouter.patch('/:id', handler(async (req, res) => {
-  res.json(await updateSetList(currentUser(req), String(req.params.id), parseBody(SetListPatchSchema, req.body)));
-}));
+setListsRouter.patch(
+  '/:id',
+  handler(async (req, res) => {
+    res.json(await updateSetList(currentUser(req), String(req.params.id), parseBody(SetListPatchSchema, req.body)));
+  }),
+);
 
-setListsRouter.delete('/:id', handler(async (req, res) => {
-  await deleteSetList(currentUser(req), String(req.params.id));
-  res.status(204).end();
-}));
+setListsRouter.delete(
+  '/:id',
+  handler(async (req, res) => {
+    await deleteSetList(currentUser(req), String(req.params.id));
+    res.status(204).end();
+  }),
+);

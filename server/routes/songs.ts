@@ -7,31 +7,49 @@ import { createSong, deleteSong, getSong, listSongs, setSongTempos, updateSong }
 export const songsRouter = Router();
 songsRouter.use(requireUser);
 
-songsRouter.get('/', handler(async (req, res) => {
-  res.json({ songs: await listSongs(currentUser(req)) });
-}));
+songsRouter.get(
+  '/',
+  handler(async (req, res) => {
+    res.json({ songs: await listSongs(currentUser(req)) });
+  }),
+);
 
-songsRouter.post('/', handler(async (req, res) => {
-  const input = parseBody(SongInputSchema, req.body);
-  res.status(201).json(await createSong(currentUser(req), input));
-}));
+songsRouter.post(
+  '/',
+  handler(async (req, res) => {
+    const input = parseBody(SongInputSchema, req.body);
+    res.status(201).json(await createSong(currentUser(req), input));
+  }),
+);
 
-songsRouter.get('/:id', handler(async (req, res) => {
-  res.json(await getSong(currentUser(req), String(req.params.id)));
-}));
+songsRouter.get(
+  '/:id',
+  handler(async (req, res) => {
+    res.json(await getSong(currentUser(req), String(req.params.id)));
+  }),
+);
 
-songsRouter.patch('/:id', handler(async (req, res) => {
-  const patch = parseBody(SongPatchSchema, req.body);
-  res.json(await updateSong(currentUser(req), String(req.params.id), patch));
-}));
+songsRouter.patch(
+  '/:id',
+  handler(async (req, res) => {
+    const patch = parseBody(SongPatchSchema, req.body);
+    res.json(await updateSong(currentUser(req), String(req.params.id), patch));
+  }),
+);
 
-songsRouter.delete('/:id', handler(async (req, res) => {
-  await deleteSong(currentUser(req), String(req.params.id));
-  res.status(204).end();
-}));
+songsRouter.delete(
+  '/:id',
+  handler(async (req, res) => {
+    await deleteSong(currentUser(req), String(req.params.id));
+    res.status(204).end();
+  }),
+);
 
 /** Working and goal tempo: the player's, or set for them by their linked teacher. */
-songsRouter.patch('/:id/tempos', handler(async (req, res) => {
-  const tempos = parseBody(SongTemposSchema, req.body);
-  res.json(await setSongTempos(currentUser(req), String(req.params.id), tempos));
-}));
+songsRouter.patch(
+  '/:id/tempos',
+  handler(async (req, res) => {
+    const tempos = parseBody(SongTemposSchema, req.body);
+    res.json(await setSongTempos(currentUser(req), String(req.params.id), tempos));
+  }),
+);

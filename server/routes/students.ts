@@ -7,24 +7,36 @@ import { endLink, listStudents, listTeachers } from '@/server/services/studio';
 export const studentsRouter = Router();
 studentsRouter.use(requireRole('teacher', 'admin'));
 
-studentsRouter.get('/', handler(async (req, res) => {
-  res.json({ students: await listStudents(currentUser(req).id) });
-}));
+studentsRouter.get(
+  '/',
+  handler(async (req, res) => {
+    res.json({ students: await listStudents(currentUser(req).id) });
+  }),
+);
 
-studentsRouter.delete('/:studentId', handler(async (req, res) => {
-  await endLink(currentUser(req).id, String(req.params.studentId));
-  res.status(204).end();
-}));
+studentsRouter.delete(
+  '/:studentId',
+  handler(async (req, res) => {
+    await endLink(currentUser(req).id, String(req.params.studentId));
+    res.status(204).end();
+  }),
+);
 
 /** Mounted at /api/teachers: the teachers a player accepted, and ending a link from the student's side. */
 export const teachersRouter = Router();
 teachersRouter.use(requireUser);
 
-teachersRouter.get('/', handler(async (req, res) => {
-  res.json({ teachers: await listTeachers(currentUser(req).id) });
-}));
+teachersRouter.get(
+  '/',
+  handler(async (req, res) => {
+    res.json({ teachers: await listTeachers(currentUser(req).id) });
+  }),
+);
 
-teachersRouter.delete('/:teacherId', handler(async (req, res) => {
-  await endLink(String(req.params.teacherId), currentUser(req).id);
-  res.status(204).end();
-}));
+teachersRouter.delete(
+  '/:teacherId',
+  handler(async (req, res) => {
+    await endLink(String(req.params.teacherId), currentUser(req).id);
+    res.status(204).end();
+  }),
+);

@@ -8,30 +8,45 @@ import { addCandidate, chooseTempo, deleteCandidate, listCandidates, updateCandi
 export const songTemposRouter = Router({ mergeParams: true });
 songTemposRouter.use(requireUser);
 
-songTemposRouter.get('/candidates', handler(async (req, res) => {
-  res.json({ candidates: await listCandidates(currentUser(req), String(req.params.songId)) });
-}));
+songTemposRouter.get(
+  '/candidates',
+  handler(async (req, res) => {
+    res.json({ candidates: await listCandidates(currentUser(req), String(req.params.songId)) });
+  }),
+);
 
-songTemposRouter.post('/candidates', handler(async (req, res) => {
-  const input = parseBody(CandidateInputSchema, req.body);
-  res.status(201).json(await addCandidate(currentUser(req), String(req.params.songId), input));
-}));
+songTemposRouter.post(
+  '/candidates',
+  handler(async (req, res) => {
+    const input = parseBody(CandidateInputSchema, req.body);
+    res.status(201).json(await addCandidate(currentUser(req), String(req.params.songId), input));
+  }),
+);
 
-songTemposRouter.post('/choose', handler(async (req, res) => {
-  const { bpm, note } = parseBody(ChooseTempoSchema, req.body);
-  res.json(await chooseTempo(currentUser(req), String(req.params.songId), bpm, note ?? null));
-}));
+songTemposRouter.post(
+  '/choose',
+  handler(async (req, res) => {
+    const { bpm, note } = parseBody(ChooseTempoSchema, req.body);
+    res.json(await chooseTempo(currentUser(req), String(req.params.songId), bpm, note ?? null));
+  }),
+);
 
 /** Mounted at /api/candidates. */
 export const candidatesRouter = Router();
 candidatesRouter.use(requireUser);
 
-candidatesRouter.patch('/:id', handler(async (req, res) => {
-  const patch = parseBody(CandidatePatchSchema, req.body);
-  res.json(await updateCandidate(currentUser(req), String(req.params.id), patch));
-}));
+candidatesRouter.patch(
+  '/:id',
+  handler(async (req, res) => {
+    const patch = parseBody(CandidatePatchSchema, req.body);
+    res.json(await updateCandidate(currentUser(req), String(req.params.id), patch));
+  }),
+);
 
-candidatesRouter.delete('/:id', handler(async (req, res) => {
-  await deleteCandidate(currentUser(req), String(req.params.id));
-  res.status(204).end();
-}));
+candidatesRouter.delete(
+  '/:id',
+  handler(async (req, res) => {
+    await deleteCandidate(currentUser(req), String(req.params.id));
+    res.status(204).end();
+  }),
+);

@@ -7,7 +7,11 @@ import { ENGINE_VERSION } from '@/audio/analysis/version';
 
 const all = process.argv.includes('--all');
 queueReanalyses(ENGINE_VERSION, { all })
-  .then((n) => console.log(`[tactus] ${n} recording(s) queued for re-analysis by engine version ${ENGINE_VERSION}${all ? ' (all)' : ''}`))
+  .then((n) =>
+    console.log(
+      `[tactus] ${n} recording(s) queued for re-analysis by engine version ${ENGINE_VERSION}${all ? ' (all)' : ''}`,
+    ),
+  )
   .catch((err) => {
     console.error(`[tactus] could not queue re-analyses: ${(err as Error).message}`);
     process.exitCode = 1;

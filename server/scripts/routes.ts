@@ -4,6 +4,8 @@ import { createApp } from '@/server/app';
 import { listRoutes } from '@/server/route-table';
 
 const routes = listRoutes(createApp());
-const text = process.argv.includes('--json') ? `${JSON.stringify(routes)}\n` : routes.map((r) => `${r.method} ${r.path}\n`).join('');
+const text = process.argv.includes('--json')
+  ? `${JSON.stringify(routes)}\n`
+  : routes.map((r) => `${r.method} ${r.path}\n`).join('');
 // better-auth and Sequelize may hold handles open although nothing was connected; the listing is all we came for.
 process.stdout.write(text, () => process.exit(0));

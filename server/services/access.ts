@@ -7,7 +7,17 @@ import type { Me } from '@/shared/schemas';
 
 /** How the person asking stands to the owner of the thing. */
 export type Relation = 'owner' | 'linked-teacher' | 'admin' | 'other-user' | 'anonymous';
-export type ThingKind = 'song' | 'song-tempos' | 'reference' | 'take' | 'recording' | 'candidate' | 'practice-entry' | 'passage' | 'note' | 'set-list';
+export type ThingKind =
+  | 'song'
+  | 'song-tempos'
+  | 'reference'
+  | 'take'
+  | 'recording'
+  | 'candidate'
+  | 'practice-entry'
+  | 'passage'
+  | 'note'
+  | 'set-list';
 export type Action = 'read' | 'write';
 
 /**
@@ -50,19 +60,30 @@ export async function relationTo(user: Me | null | undefined, ownerId: string): 
   if (!user) return 'anonymous';
   if (user.id === ownerId) return 'owner';
   if (user.role === 'admin') return 'admin';
-  if (user.role === 'teacher' && (await StudioLink.count({ where: { teacherId: user.id, studentId: ownerId } })) > 0) return 'linked-teacher';
+  if (user.role === 'teacher' && (await StudioLink.count({ where: { teacherId: user.id, studentId: ownerId } })) > 0)
+    return 'linked-teacher';
   return 'other-user';
 }
 
 /** The table's answer for a relation already known (to ask several questions about one owner with one lookup). */
 export const allows = (relation: Relation, action: Action, kind: ThingKind) => ACCESS[kind][action].includes(relation);
 
-export async function may(user: Me | null | undefined, action: Action, kind: ThingKind, ownerId: string): Promise<boolean> {
+export async function may(
+  user: Me | null | undefined,
+  action: Action,
+  kind: ThingKind,
+  ownerId: string,
+): Promise<boolean> {
   return allows(await relationTo(user, ownerId), action, kind);
 }
 
 /** Passes when `user` may do `action` to a `kind` owned by `ownerId`; otherwise "not found". */
-export async function assertMay(user: Me, action: Action, kind: ThingKind, ownerId: string | null | undefined): Promise<void> {
+export async function assertMay(
+  user: Me,
+  action: Action,
+  kind: ThingKind,
+  ownerId: string | null | undefined,
+): Promise<void> {
   if (!ownerId || !(await may(user, action, kind, ownerId))) throw notFound(NAMES[kind]);
 }
 
@@ -71,5 +92,6 @@ export const missing = (kind: ThingKind) => notFound(NAMES[kind]);
 
 /** Words are their author's: only the author changes or deletes what they wrote. */
 export function assertAuthor(user: Me, authorId: string): void {
-  if (user.id !== authorId) throw new HttpError(403, 'not_author', 'only the person who wrote this can change or delete it');
+  if (user.id !== authorId)
+    throw new HttpError(403, 'not_author', 'only the person who wrote this can change or delete it');
 }

@@ -23,7 +23,10 @@ export function pokeDigests() {
 
 /** Also looks on a slow interval, so notes written through another process (or before a restart) go out too. */
 export function startDigests() {
-  interval ??= setInterval(() => void sendDueDigests().catch((err) => console.error('[tactus] digest run failed:', err)), config.digests.pollMs);
+  interval ??= setInterval(
+    () => void sendDueDigests().catch((err) => console.error('[tactus] digest run failed:', err)),
+    config.digests.pollMs,
+  );
   interval.unref?.();
 }
 
@@ -56,7 +59,10 @@ async function digestFor(ownerId: string, now: Date): Promise<boolean> {
   );
   if (!claimed) return false;
   const owner = (await User.findByPk(ownerId))!;
-  const recordings = await Recording.findAll({ where: { ownerId }, attributes: ['id', 'songId', 'label', 'originalName', 'kind'] });
+  const recordings = await Recording.findAll({
+    where: { ownerId },
+    attributes: ['id', 'songId', 'label', 'originalName', 'kind'],
+  });
   const notes = await RecordingNote.findAll({
     where: { recordingId: recordings.map((r) => r.id), mailedAt: null, authorId: { [Op.ne]: ownerId } },
     include: [{ model: User, as: 'author', attributes: ['name'] }],
@@ -65,11 +71,21 @@ async function digestFor(ownerId: string, now: Date): Promise<boolean> {
   if (!notes.length) return false;
   await RecordingNote.update({ mailedAt: now }, { where: { id: notes.map((n) => n.id) } });
   if (!owner.noteDigests) return false;
-  const songs = new Map((await Song.findAll({ where: { id: [...new Set(recordings.map((r) => r.songId))] }, attributes: ['id', 'title'] })).map((s) => [s.id, s.title]));
+  const songs = new Map(
+    (
+      await Song.findAll({ where: { id: [...new Set(recordings.map((r) => r.songId))] }, attributes: ['id', 'title'] })
+    ).map((s) => [s.id, s.title]),
+  );
   const byId = new Map(recordings.map((r) => [r.id, r]));
   const lines = notes.map((n) => {
     const r = byId.get(n.recordingId)!;
-    const where = n.parentId ? 'replied' : n.atSec != null ? `at ${formatClock(n.atSec)}` : n.startBar != null ? `on bars ${n.startBar}–${n.endBar}` : `from ${formatClock(n.startSec ?? 0)}`;
+    const where = n.parentId
+      ? 'replied'
+      : n.atSec != null
+        ? `at ${formatClock(n.atSec)}`
+        : n.startBar != null
+          ? `on bars ${n.startBar}–${n.endBar}`
+          : `from ${formatClock(n.startSec ?? 0)}`;
     const name = (n as RecordingNote & { author?: User }).author?.name ?? 'Someone';
     const what = `${songs.get(r.songId) ?? 'a song'} (${r.label || r.originalName || (r.kind === 'take' ? 'a take' : 'a reference')})`;
     return { text: `${name} on ${what}, ${where}: “${n.text}”`, url: `${config.publicUrl}/recordings/${r.id}` };

@@ -54,7 +54,13 @@ export async function addNote(user: Me, recordingId: string, input: NoteInput): 
   const r = await recordingFor(user, 'read', recordingId);
   await assertMay(user, 'write', 'note', r.ownerId);
   const end = input.endSec ?? input.atSec ?? 0;
-  if (end > r.durationSec + 0.5) throw new HttpError(400, 'invalid_body', `${input.atSec != null ? 'atSec' : 'endSec'}: must lie within the recording`, input.atSec != null ? 'atSec' : 'endSec');
+  if (end > r.durationSec + 0.5)
+    throw new HttpError(
+      400,
+      'invalid_body',
+      `${input.atSec != null ? 'atSec' : 'endSec'}: must lie within the recording`,
+      input.atSec != null ? 'atSec' : 'endSec',
+    );
   const n = await RecordingNote.create({
     recordingId: r.id,
     authorId: user.id,
@@ -82,7 +88,17 @@ async function noteFor(user: Me, action: Action, id: string): Promise<{ note: Re
 export async function replyToNote(user: Me, noteId: string, text: string): Promise<NoteReply> {
   const { note, recording } = await noteFor(user, 'write', noteId);
   if (note.parentId) throw new HttpError(400, 'invalid_body', 'reply to the note itself, not to a reply');
-  const reply = await RecordingNote.create({ recordingId: note.recordingId, authorId: user.id, parentId: note.id, atSec: null, startSec: null, endSec: null, startBar: null, endBar: null, text });
+  const reply = await RecordingNote.create({
+    recordingId: note.recordingId,
+    authorId: user.id,
+    parentId: note.id,
+    atSec: null,
+    startSec: null,
+    endSec: null,
+    startBar: null,
+    endBar: null,
+    text,
+  });
   if (user.id !== recording.ownerId) pokeDigests();
   return toReplyDto(Object.assign(reply, { author: { name: user.name } as User }), user);
 }
@@ -91,10 +107,14 @@ export async function replyToNote(user: Me, noteId: string, text: string): Promi
 export async function updateNote(user: Me, id: string, patch: NotePatch): Promise<NoteReply & { resolved: boolean }> {
   const { note } = await noteFor(user, 'write', id);
   if (patch.text !== undefined) assertAuthor(user, note.authorId);
-  if (patch.resolved !== undefined && note.parentId) throw new HttpError(400, 'invalid_body', 'resolved: a reply is resolved with its note', 'resolved');
+  if (patch.resolved !== undefined && note.parentId)
+    throw new HttpError(400, 'invalid_body', 'resolved: a reply is resolved with its note', 'resolved');
   await note.update(patch);
   const author = await User.findByPk(note.authorId, { attributes: ['name'] });
-  return { ...toReplyDto(Object.assign(note, { author: author ?? undefined }), user), resolved: Boolean(note.resolved) };
+  return {
+    ...toReplyDto(Object.assign(note, { author: author ?? undefined }), user),
+    resolved: Boolean(note.resolved),
+  };
 }
 
 export async function deleteNote(user: Me, id: string): Promise<void> {

@@ -29,12 +29,19 @@ const toPassageDto = (p: Passage, names: Map<string, string>): PassageDto => ({
 });
 
 /** The region must lie in a recording of this song; bars, when given, run forwards. */
-async function checkRegion(songId: string, recordingId: string, region: { startSec: number; endSec: number; startBar?: number | null; endBar?: number | null }) {
+async function checkRegion(
+  songId: string,
+  recordingId: string,
+  region: { startSec: number; endSec: number; startBar?: number | null; endBar?: number | null },
+) {
   const recording = await Recording.findByPk(recordingId, { attributes: ['id', 'songId', 'durationSec'] });
-  if (!recording || recording.songId !== songId) throw new HttpError(400, 'invalid_body', 'recordingId: choose a recording of this song', 'recordingId');
-  if (region.endSec <= region.startSec) throw new HttpError(400, 'invalid_body', 'endSec: the passage must end after it starts', 'endSec');
+  if (!recording || recording.songId !== songId)
+    throw new HttpError(400, 'invalid_body', 'recordingId: choose a recording of this song', 'recordingId');
+  if (region.endSec <= region.startSec)
+    throw new HttpError(400, 'invalid_body', 'endSec: the passage must end after it starts', 'endSec');
   // A little past the decoded length is allowed: the last bar line can fall a few milliseconds after it.
-  if (region.endSec > recording.durationSec + 0.5) throw new HttpError(400, 'invalid_body', 'endSec: the passage must end within the recording', 'endSec');
+  if (region.endSec > recording.durationSec + 0.5)
+    throw new HttpError(400, 'invalid_body', 'endSec: the passage must end within the recording', 'endSec');
   if (region.startBar != null && region.endBar != null && region.endBar < region.startBar) {
     throw new HttpError(400, 'invalid_body', 'endBar: the last bar comes after the first', 'endBar');
   }
@@ -44,7 +51,15 @@ async function checkRegion(songId: string, recordingId: string, region: { startS
 export async function listPassages(user: Me, songId: string): Promise<PassageDto[]> {
   const song = await songFor(user, 'read', songId);
   await assertMay(user, 'read', 'passage', song.ownerId);
-  return passageViews(await Passage.findAll({ where: { songId: song.id }, order: [['recordingId', 'ASC'], ['startSec', 'ASC']] }));
+  return passageViews(
+    await Passage.findAll({
+      where: { songId: song.id },
+      order: [
+        ['recordingId', 'ASC'],
+        ['startSec', 'ASC'],
+      ],
+    }),
+  );
 }
 
 export async function addPassage(user: Me, songId: string, input: PassageInput): Promise<PassageDto> {
@@ -77,9 +92,16 @@ export async function passageFor(user: Me, action: Action, id: string): Promise<
 
 export async function updatePassage(user: Me, id: string, patch: PassagePatch): Promise<PassageDto> {
   const p = await passageFor(user, 'write', id);
-  const next = { startSec: patch.startSec ?? p.startSec, endSec: patch.endSec ?? p.endSec, startBar: patch.startBar === undefined ? p.startBar : patch.startBar, endBar: patch.endBar === undefined ? p.endBar : patch.endBar };
+  const next = {
+    startSec: patch.startSec ?? p.startSec,
+    endSec: patch.endSec ?? p.endSec,
+    startBar: patch.startBar === undefined ? p.startBar : patch.startBar,
+    endBar: patch.endBar === undefined ? p.endBar : patch.endBar,
+  };
   await checkRegion(p.songId, p.recordingId, next);
-  return (await passageViews([await p.update({ ...(patch as Partial<Passage>), ...setByColumns(user.id, patch) })]))[0]!;
+  return (
+    await passageViews([await p.update({ ...(patch as Partial<Passage>), ...setByColumns(user.id, patch) })])
+  )[0]!;
 }
 
 export async function deletePassage(user: Me, id: string): Promise<void> {
@@ -93,4 +115,3 @@ export async function setPassageTempos(user: Me, id: string, tempos: SongTempos)
   await assertMay(user, 'write', 'song-tempos', song?.ownerId);
   return (await passageViews([await p.update({ ...tempos, ...setByColumns(user.id, tempos) })]))[0]!;
 }
-

@@ -30,25 +30,48 @@ export const toPracticeDto = (p: PracticeEntry): PracticeEntryDto => ({
 export async function listPractice(user: Me, songId: string): Promise<PracticeEntryDto[]> {
   const song = await songFor(user, 'read', songId);
   await assertMay(user, 'read', 'practice-entry', song.ownerId);
-  return (await PracticeEntry.findAll({ where: { songId: song.id }, order: [['createdAt', 'DESC']], limit: 500 })).map(toPracticeDto);
+  return (await PracticeEntry.findAll({ where: { songId: song.id }, order: [['createdAt', 'DESC']], limit: 500 })).map(
+    toPracticeDto,
+  );
 }
 
 /** Where the entry was played: a saved passage (its region copied), a loop of a recording, or the whole piece. */
 async function whereItWasPlayed(user: Me, songId: string, input: PracticeInput) {
   if (input.passageId) {
     const passage = await passageFor(user, 'read', input.passageId).catch(() => null);
-    if (!passage || passage.songId !== songId) throw new HttpError(400, 'invalid_body', 'passageId: choose a passage of this song', 'passageId');
+    if (!passage || passage.songId !== songId)
+      throw new HttpError(400, 'invalid_body', 'passageId: choose a passage of this song', 'passageId');
     const { recordingId, startSec, endSec, startBar, endBar } = passage;
-    return { passage, label: input.passage ?? passage.name, region: { passageId: passage.id, recordingId, startSec, endSec, startBar, endBar } };
+    return {
+      passage,
+      label: input.passage ?? passage.name,
+      region: { passageId: passage.id, recordingId, startSec, endSec, startBar, endBar },
+    };
   }
   const none = { passageId: null, recordingId: null, startSec: null, endSec: null, startBar: null, endBar: null };
   if (!input.recordingId) return { passage: null, label: input.passage ?? null, region: none };
   const recording = await Recording.findByPk(input.recordingId, { attributes: ['songId'] });
-  if (!recording || recording.songId !== songId) throw new HttpError(400, 'invalid_body', 'recordingId: choose a recording of this song', 'recordingId');
-  if ((input.startSec == null) !== (input.endSec == null) || (input.startSec != null && input.endSec! <= input.startSec)) {
-    throw new HttpError(400, 'invalid_body', 'endSec: give where the loop starts and ends, the end after the start', 'endSec');
+  if (!recording || recording.songId !== songId)
+    throw new HttpError(400, 'invalid_body', 'recordingId: choose a recording of this song', 'recordingId');
+  if (
+    (input.startSec == null) !== (input.endSec == null) ||
+    (input.startSec != null && input.endSec! <= input.startSec)
+  ) {
+    throw new HttpError(
+      400,
+      'invalid_body',
+      'endSec: give where the loop starts and ends, the end after the start',
+      'endSec',
+    );
   }
-  const region = { ...none, recordingId: input.recordingId, startSec: input.startSec ?? null, endSec: input.endSec ?? null, startBar: input.startBar ?? null, endBar: input.endBar ?? null };
+  const region = {
+    ...none,
+    recordingId: input.recordingId,
+    startSec: input.startSec ?? null,
+    endSec: input.endSec ?? null,
+    startBar: input.startBar ?? null,
+    endBar: input.endBar ?? null,
+  };
   return { passage: null, label: input.passage ?? null, region };
 }
 

@@ -11,7 +11,14 @@ import { objectStore, type ByteRange } from '@/server/storage';
 import { enqueue, retry } from '@/server/jobs/queue';
 import { analysisRunner } from '@/server/jobs/runner';
 import { checkAudio, type CheckedAudio } from '@/server/analysis/audio-check';
-import { AnalysisSchema, type Analysis as AnalysisDto, type Me, type Recording as RecordingDto, type RecordingKind, type RecordingPatch } from '@/shared/schemas';
+import {
+  AnalysisSchema,
+  type Analysis as AnalysisDto,
+  type Me,
+  type Recording as RecordingDto,
+  type RecordingKind,
+  type RecordingPatch,
+} from '@/shared/schemas';
 import { allows, assertMay, may, missing, relationTo, type Action } from './access';
 import { namesOf, personRef } from './users';
 
@@ -21,12 +28,14 @@ import { namesOf, personRef } from './users';
  */
 export function checkFileName(name: string | undefined): string | null {
   if (!name) return null;
-  if (/[\u0000-\u001f\u007f]/.test(name)) throw new HttpError(400, 'invalid_body', 'file: the file name contains control characters', 'file');
+  if (/[\u0000-\u001f\u007f]/.test(name))
+    throw new HttpError(400, 'invalid_body', 'file: the file name contains control characters', 'file');
   // Direction controls can make a name display as something else (Unicode TR #36, "bidi spoofing").
   if (/[\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/.test(name)) {
     throw new HttpError(400, 'invalid_body', 'file: the file name contains text-direction control characters', 'file');
   }
-  if (/[\\/]/.test(name) || name.split(/[\\/]/).includes('..')) throw new HttpError(400, 'invalid_body', 'file: send the file name without folders', 'file');
+  if (/[\\/]/.test(name) || name.split(/[\\/]/).includes('..'))
+    throw new HttpError(400, 'invalid_body', 'file: send the file name without folders', 'file');
   return name.trim().slice(0, 255) || null;
 }
 
@@ -68,7 +77,9 @@ export async function storeRecording(opts: {
       return recording;
     });
   } catch (err) {
-    await objectStore().remove(storageKey).catch(() => {});
+    await objectStore()
+      .remove(storageKey)
+      .catch(() => {});
     throw err;
   }
 }
@@ -92,7 +103,13 @@ export async function assertMayUploadTo(user: Me, songId: string): Promise<Song>
 export async function addRecording(
   user: Me,
   songId: string,
-  upload: { kind: RecordingKind; label: string | null; fileName: string | undefined; spoolFile: string; sizeBytes: number },
+  upload: {
+    kind: RecordingKind;
+    label: string | null;
+    fileName: string | undefined;
+    spoolFile: string;
+    sizeBytes: number;
+  },
 ): Promise<RecordingDto> {
   const song = await assertMayUploadTo(user, songId);
   if (upload.kind === 'take' && !(await may(user, 'write', 'take', song.ownerId))) {
@@ -101,7 +118,17 @@ export async function addRecording(
   const originalName = checkFileName(upload.fileName);
   const audio = await checkAudio(upload.spoolFile, config.uploads.maxDurationSec);
   const uploadedBy = user.id === song.ownerId ? null : user.id;
-  const recording = await storeRecording({ songId: song.id, ownerId: song.ownerId, uploadedBy, kind: upload.kind, label: upload.label, originalName, spoolFile: upload.spoolFile, sizeBytes: upload.sizeBytes, audio });
+  const recording = await storeRecording({
+    songId: song.id,
+    ownerId: song.ownerId,
+    uploadedBy,
+    kind: upload.kind,
+    label: upload.label,
+    originalName,
+    spoolFile: upload.spoolFile,
+    sizeBytes: upload.sizeBytes,
+    audio,
+  });
   analysisRunner()?.poke();
   return toRecordingDto(user, recording, null);
 }
@@ -123,7 +150,9 @@ export function readStoredAnalysis(a: Analysis | null): AnalysisDto | null {
   if (!a) return null;
   const parsed = AnalysisSchema.safeParse(JSON.parse(a.result));
   if (parsed.success) return parsed.data;
-  console.error(`[tactus] the stored analysis of recording ${a.recordingId} does not fit the schema: ${parsed.error.issues[0]?.message}`);
+  console.error(
+    `[tactus] the stored analysis of recording ${a.recordingId} does not fit the schema: ${parsed.error.issues[0]?.message}`,
+  );
   return null;
 }
 
@@ -167,7 +196,9 @@ export async function getRecording(user: Me, id: string): Promise<RecordingDto> 
 export async function listRecordings(user: Me, song: Song): Promise<RecordingDto[]> {
   await assertMay(user, 'read', 'recording', song.ownerId);
   const rows = await Recording.findAll({ where: { songId: song.id }, order: [['createdAt', 'DESC']] });
-  const analyses = new Map((await Analysis.findAll({ where: { recordingId: rows.map((r) => r.id) } })).map((a) => [a.recordingId, a]));
+  const analyses = new Map(
+    (await Analysis.findAll({ where: { recordingId: rows.map((r) => r.id) } })).map((a) => [a.recordingId, a]),
+  );
   return Promise.all(rows.map((r) => toRecordingDto(user, r, analyses.get(r.id) ?? null)));
 }
 
@@ -180,7 +211,10 @@ export async function recordingPeaks(user: Me, id: string): Promise<string> {
 }
 
 /** The stored file (or one byte range of it) with what the answer needs to describe it. */
-export async function recordingAudio(user: Me, id: string): Promise<{ sizeBytes: number; mimeType: string; open: (range?: ByteRange) => Promise<Readable> }> {
+export async function recordingAudio(
+  user: Me,
+  id: string,
+): Promise<{ sizeBytes: number; mimeType: string; open: (range?: ByteRange) => Promise<Readable> }> {
   const r = await recordingFor(user, 'read', id);
   return { sizeBytes: r.sizeBytes, mimeType: r.mimeType, open: (range) => objectStore().read(r.storageKey, range) };
 }
@@ -219,5 +253,8 @@ export async function storageKeysOfSong(songId: string): Promise<string[]> {
 
 /** Removes stored files whose rows are gone; a file that cannot be removed is reported, not fatal. */
 export async function removeStoredFiles(keys: string[]): Promise<void> {
-  for (const key of keys) await objectStore().remove(key).catch((err) => console.error('[tactus] could not remove a stored file:', err));
+  for (const key of keys)
+    await objectStore()
+      .remove(key)
+      .catch((err) => console.error('[tactus] could not remove a stored file:', err));
 }

@@ -11,8 +11,14 @@ import { readStoredAnalysis } from './recordings';
 /** Beats measured in each song's most recent analysed recording. */
 async function measuredBeats(songIds: string[]): Promise<Map<string, number>> {
   if (!songIds.length) return new Map();
-  const recordings = await Recording.findAll({ where: { songId: songIds, status: 'done' }, attributes: ['id', 'songId'], order: [['createdAt', 'DESC']] });
-  const analyses = new Map((await Analysis.findAll({ where: { recordingId: recordings.map((r) => r.id) } })).map((a) => [a.recordingId, a]));
+  const recordings = await Recording.findAll({
+    where: { songId: songIds, status: 'done' },
+    attributes: ['id', 'songId'],
+    order: [['createdAt', 'DESC']],
+  });
+  const analyses = new Map(
+    (await Analysis.findAll({ where: { recordingId: recordings.map((r) => r.id) } })).map((a) => [a.recordingId, a]),
+  );
   const beats = new Map<string, number>();
   for (const r of recordings) {
     if (beats.has(r.songId)) continue;
@@ -31,7 +37,13 @@ async function toSetListDto(list: SetList): Promise<SetListDto> {
     .filter((s): s is Song => Boolean(s))
     .map((s) => {
       const b = beats.get(s.id);
-      return { songId: s.id, title: s.title, meter: s.meter, chosenBpm: s.chosenBpm, durationSec: b && s.chosenBpm ? secondsFor(b, s.chosenBpm) : null };
+      return {
+        songId: s.id,
+        title: s.title,
+        meter: s.meter,
+        chosenBpm: s.chosenBpm,
+        durationSec: b && s.chosenBpm ? secondsFor(b, s.chosenBpm) : null,
+      };
     });
   const known = rows.filter((r) => r.durationSec !== null);
   return {
@@ -53,15 +65,20 @@ async function setListFor(user: Me, action: Action, id: string): Promise<SetList
 
 /** The songs must be the owner's own, each once. */
 async function checkSongs(ownerId: string, songIds: string[]) {
-  if (new Set(songIds).size !== songIds.length) throw new HttpError(400, 'invalid_body', 'songIds: each song once', 'songIds');
+  if (new Set(songIds).size !== songIds.length)
+    throw new HttpError(400, 'invalid_body', 'songIds: each song once', 'songIds');
   const own = await Song.count({ where: { id: songIds, ownerId } });
-  if (own !== songIds.length) throw new HttpError(400, 'invalid_body', 'songIds: choose songs from your own library', 'songIds');
+  if (own !== songIds.length)
+    throw new HttpError(400, 'invalid_body', 'songIds: choose songs from your own library', 'songIds');
 }
 
 async function writeItems(setListId: string, songIds: string[]) {
   await sequelize.transaction(async (transaction) => {
     await SetListItem.destroy({ where: { setListId }, transaction });
-    await SetListItem.bulkCreate(songIds.map((songId, position) => ({ setListId, songId, position })), { transaction });
+    await SetListItem.bulkCreate(
+      songIds.map((songId, position) => ({ setListId, songId, position })),
+      { transaction },
+    );
   });
 }
 

@@ -41,8 +41,12 @@ async function toReceivedDto(i: StudioInvitation, user: Me | null): Promise<Rece
  * so inviting tells nobody who has an account. A new invitation to the same address replaces a pending one.
  */
 export async function inviteStudent(teacher: Me, email: string): Promise<Invitation> {
-  if (email === teacher.email.toLowerCase()) throw new HttpError(400, 'invalid_body', 'email: you cannot invite yourself', 'email');
-  await StudioInvitation.update({ status: 'withdrawn' }, { where: { teacherId: teacher.id, email, status: 'pending' } });
+  if (email === teacher.email.toLowerCase())
+    throw new HttpError(400, 'invalid_body', 'email: you cannot invite yourself', 'email');
+  await StudioInvitation.update(
+    { status: 'withdrawn' },
+    { where: { teacherId: teacher.id, email, status: 'pending' } },
+  );
   const token = crypto.randomBytes(32).toString('base64url');
   const invitation = await StudioInvitation.create({
     teacherId: teacher.id,
@@ -65,12 +69,18 @@ export async function inviteStudent(teacher: Me, email: string): Promise<Invitat
 }
 
 export async function listSentInvitations(teacher: Me): Promise<Invitation[]> {
-  const rows = await StudioInvitation.findAll({ where: { teacherId: teacher.id, status: 'pending' }, order: [['createdAt', 'DESC']] });
+  const rows = await StudioInvitation.findAll({
+    where: { teacherId: teacher.id, status: 'pending' },
+    order: [['createdAt', 'DESC']],
+  });
   return rows.map(toInvitationDto);
 }
 
 export async function withdrawInvitation(teacher: Me, id: string): Promise<void> {
-  const [n] = await StudioInvitation.update({ status: 'withdrawn' }, { where: { id, teacherId: teacher.id, status: 'pending' } });
+  const [n] = await StudioInvitation.update(
+    { status: 'withdrawn' },
+    { where: { id, teacherId: teacher.id, status: 'pending' } },
+  );
   if (!n) throw notFound('invitation');
 }
 
@@ -95,9 +105,14 @@ async function answerable(user: Me, id: string): Promise<StudioInvitation> {
   const i = await StudioInvitation.findByPk(id);
   if (!i) throw notFound('invitation');
   if (user.email.toLowerCase() !== i.email) {
-    throw new HttpError(403, 'wrong_account', 'This invitation was sent to another e-mail address: sign in with that address to answer it.');
+    throw new HttpError(
+      403,
+      'wrong_account',
+      'This invitation was sent to another e-mail address: sign in with that address to answer it.',
+    );
   }
-  if (expired(i)) throw new HttpError(410, 'expired', 'This invitation has expired. Ask your teacher to send a new one.');
+  if (expired(i))
+    throw new HttpError(410, 'expired', 'This invitation has expired. Ask your teacher to send a new one.');
   if (i.status !== 'pending') throw new HttpError(410, 'answered', `This invitation was already ${i.status}.`);
   return i;
 }
@@ -128,11 +143,20 @@ export async function listStudents(teacherId: string): Promise<Student[]> {
   const songs = await Song.findAll({ where: { ownerId: ids }, order: [['updatedAt', 'DESC']] });
   const songIds = songs.map((s) => s.id);
   const practised = songIds.length
-    ? ((await PracticeEntry.findAll({ attributes: ['songId', [fn('MAX', col('createdAt')), 'last']], where: { songId: songIds }, group: ['songId'], raw: true })) as unknown as { songId: string; last: Date }[])
+    ? ((await PracticeEntry.findAll({
+        attributes: ['songId', [fn('MAX', col('createdAt')), 'last']],
+        where: { songId: songIds },
+        group: ['songId'],
+        raw: true,
+      })) as unknown as { songId: string; last: Date }[])
     : [];
   const lastBySong = new Map(practised.map((p) => [p.songId, new Date(p.last).toISOString()]));
   const takes = songIds.length
-    ? await Recording.findAll({ where: { songId: songIds, kind: 'take' }, attributes: ['id', 'songId', 'label', 'originalName', 'createdAt'], order: [['createdAt', 'DESC']] })
+    ? await Recording.findAll({
+        where: { songId: songIds, kind: 'take' },
+        attributes: ['id', 'songId', 'label', 'originalName', 'createdAt'],
+        order: [['createdAt', 'DESC']],
+      })
     : [];
   const takesBySong = new Map<string, Recording[]>();
   for (const t of takes) takesBySong.set(t.songId, [...(takesBySong.get(t.songId) ?? []), t]);
@@ -152,7 +176,9 @@ export async function listStudents(teacherId: string): Promise<Student[]> {
         chosenBpm: song.chosenBpm,
         lastPracticedAt: lastBySong.get(song.id) ?? null,
         // The three newest takes are what a teacher looks at before a lesson.
-        recentTakes: (takesBySong.get(song.id) ?? []).slice(0, 3).map((t) => ({ id: t.id, label: t.label ?? t.originalName, createdAt: t.createdAt.toISOString() })),
+        recentTakes: (takesBySong.get(song.id) ?? [])
+          .slice(0, 3)
+          .map((t) => ({ id: t.id, label: t.label ?? t.originalName, createdAt: t.createdAt.toISOString() })),
       })),
     };
   });

@@ -20,7 +20,14 @@ export async function listCandidates(user: Me, songId: string): Promise<Candidat
 
 export async function addCandidate(user: Me, songId: string, input: CandidateInput): Promise<Candidate> {
   const song = await songFor(user, 'write', songId);
-  return toCandidateDto(await CandidateTempo.create({ songId: song.id, bpm: input.bpm, rating: input.rating ?? null, note: input.note ?? null }));
+  return toCandidateDto(
+    await CandidateTempo.create({
+      songId: song.id,
+      bpm: input.bpm,
+      rating: input.rating ?? null,
+      note: input.note ?? null,
+    }),
+  );
 }
 
 /** The candidate, when `user` may do `action` to it: candidates belong to their song's owner. */
@@ -44,6 +51,7 @@ export async function deleteCandidate(user: Me, id: string): Promise<void> {
 /** The chosen tempo and why; choosing also keeps it among the candidates. */
 export async function chooseTempo(user: Me, songId: string, bpm: number, note: string | null): Promise<SongDto> {
   const song = await songFor(user, 'write', songId);
-  if (!(await CandidateTempo.findOne({ where: { songId: song.id, bpm } }))) await CandidateTempo.create({ songId: song.id, bpm, rating: null, note: null });
+  if (!(await CandidateTempo.findOne({ where: { songId: song.id, bpm } })))
+    await CandidateTempo.create({ songId: song.id, bpm, rating: null, note: null });
   return songView(user, await song.update({ chosenBpm: bpm, chosenNote: note }));
 }

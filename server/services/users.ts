@@ -38,14 +38,20 @@ export async function setPreferences(me: Me, patch: Partial<Preferences>): Promi
 export async function namesOf(ids: (string | null | undefined)[]): Promise<Map<string, string>> {
   const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
   if (!wanted.length) return new Map();
-  return new Map((await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+  return new Map(
+    (await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
+  );
 }
 
 /** { id, name } for a person id, or null. */
-export const personRef = (id: string | null | undefined, names: Map<string, string>) => (id ? { id, name: names.get(id) ?? 'Someone' } : null);
+export const personRef = (id: string | null | undefined, names: Map<string, string>) =>
+  id ? { id, name: names.get(id) ?? 'Someone' } : null;
 
 /** The who-and-when of working and goal tempos, as the API shows them. */
-export function setByView(t: { workingSetBy: string | null; workingSetAt: Date | null; goalSetBy: string | null; goalSetAt: Date | null }, names: Map<string, string>) {
+export function setByView(
+  t: { workingSetBy: string | null; workingSetAt: Date | null; goalSetBy: string | null; goalSetAt: Date | null },
+  names: Map<string, string>,
+) {
   return {
     workingSetBy: personRef(t.workingSetBy, names),
     workingSetAt: t.workingSetAt?.toISOString() ?? null,
@@ -62,4 +68,3 @@ export function setByColumns(userId: string, patch: { workingBpm?: number | null
     ...(patch.goalBpm !== undefined ? { goalSetBy: userId, goalSetAt: now } : {}),
   };
 }
-

@@ -21,6 +21,7 @@ export interface ObjectStore {
 let store: ObjectStore | null = null;
 
 export function objectStore(): ObjectStore {
-  if (!store) store = config.storage.driver === 's3' ? new S3Store(config.storage.s3) : new DiskStore(config.storage.dir);
+  if (!store)
+    store = config.storage.driver === 's3' ? new S3Store(config.storage.s3) : new DiskStore(config.storage.dir);
   return store;
 }

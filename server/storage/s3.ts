@@ -1,7 +1,14 @@
 // S3-compatible object storage through @aws-sdk/client-s3. A multipart upload either completes into the
 // object or is aborted, so a failed upload leaves no object under the key.
 import { Readable } from 'node:stream';
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, S3Client, CreateBucketCommand, HeadBucketCommand } from '@aws-sdk/client-s3';
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadObjectCommand,
+  S3Client,
+  CreateBucketCommand,
+  HeadBucketCommand,
+} from '@aws-sdk/client-s3';
 import { Upload } from '@aws-sdk/lib-storage';
 import type { ByteRange, ObjectStore } from './index';
 
@@ -39,13 +46,21 @@ export class S3Store implements ObjectStore {
 
   async put(key: string, source: Readable, contentType: string): Promise<void> {
     await this.ensureBucket();
-    const upload = new Upload({ client: this.client, params: { Bucket: this.s.bucket, Key: key, Body: source, ContentType: contentType }, leavePartsOnError: false });
+    const upload = new Upload({
+      client: this.client,
+      params: { Bucket: this.s.bucket, Key: key, Body: source, ContentType: contentType },
+      leavePartsOnError: false,
+    });
     await upload.done();
   }
 
   async read(key: string, range?: ByteRange): Promise<Readable> {
     const res = await this.client.send(
-      new GetObjectCommand({ Bucket: this.s.bucket, Key: key, Range: range ? `bytes=${range.start}-${range.end}` : undefined }),
+      new GetObjectCommand({
+        Bucket: this.s.bucket,
+        Key: key,
+        Range: range ? `bytes=${range.start}-${range.end}` : undefined,
+      }),
     );
     return res.Body as Readable;
   }

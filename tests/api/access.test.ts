@@ -7,8 +7,22 @@ import { baseUrl, linkStudent, signedInUser } from './helpers';
 
 type Who = 'owner' | 'linkedTeacher' | 'otherTeacher' | 'otherPlayer' | 'admin' | 'anonymous';
 const everyone: Who[] = ['owner', 'linkedTeacher', 'otherTeacher', 'otherPlayer', 'admin', 'anonymous'];
-const READ: Record<Who, number> = { owner: 200, linkedTeacher: 200, otherTeacher: 404, otherPlayer: 404, admin: 200, anonymous: 401 };
-const WRITE: Record<Who, number> = { owner: 200, linkedTeacher: 404, otherTeacher: 404, otherPlayer: 404, admin: 404, anonymous: 401 };
+const READ: Record<Who, number> = {
+  owner: 200,
+  linkedTeacher: 200,
+  otherTeacher: 404,
+  otherPlayer: 404,
+  admin: 200,
+  anonymous: 401,
+};
+const WRITE: Record<Who, number> = {
+  owner: 200,
+  linkedTeacher: 404,
+  otherTeacher: 404,
+  otherPlayer: 404,
+  admin: 404,
+  anonymous: 401,
+};
 const CREATE: Record<Who, number> = { ...WRITE, owner: 201 };
 
 let agents: Record<Who, request.Agent | ReturnType<typeof request>>;
@@ -30,19 +44,26 @@ beforeAll(async () => {
     admin: admin.agent,
     anonymous: request(baseUrl),
   };
-  songId = (await owner.agent.post('/api/songs').send({ title: 'Saltmarsh Hornpipe', goalBpm: 112 }).expect(201)).body.id;
+  songId = (await owner.agent.post('/api/songs').send({ title: 'Saltmarsh Hornpipe', goalBpm: 112 }).expect(201)).body
+    .id;
   candidateId = (await owner.agent.post(`/api/songs/${songId}/candidates`).send({ bpm: 96 }).expect(201)).body.id;
 });
 
 describe.each(everyone)('as %s', (who) => {
   test('songs: read and change', async () => {
     await agents[who].get(`/api/songs/${songId}`).expect(READ[who]);
-    await agents[who].patch(`/api/songs/${songId}`).send({ notes: `by ${who}` }).expect(WRITE[who]);
+    await agents[who]
+      .patch(`/api/songs/${songId}`)
+      .send({ notes: `by ${who}` })
+      .expect(WRITE[who]);
   });
 
   test('candidate tempos: list, add, change', async () => {
     await agents[who].get(`/api/songs/${songId}/candidates`).expect(READ[who]);
-    await agents[who].post(`/api/songs/${songId}/candidates`).send({ bpm: 100 + everyone.indexOf(who) }).expect(CREATE[who]);
+    await agents[who]
+      .post(`/api/songs/${songId}/candidates`)
+      .send({ bpm: 100 + everyone.indexOf(who) })
+      .expect(CREATE[who]);
     await agents[who].patch(`/api/candidates/${candidateId}`).send({ rating: 3 }).expect(WRITE[who]);
   });
 
@@ -61,7 +82,9 @@ describe.each(everyone)('as %s', (who) => {
 test('what was refused left no trace: only the owner’s changes are there', async () => {
   const song = (await agents.owner.get(`/api/songs/${songId}`).expect(200)).body;
   expect(song.notes).toBe('by owner');
-  const bpms = (await agents.owner.get(`/api/songs/${songId}/candidates`).expect(200)).body.candidates.map((c: { bpm: number }) => c.bpm);
+  const bpms = (await agents.owner.get(`/api/songs/${songId}/candidates`).expect(200)).body.candidates.map(
+    (c: { bpm: number }) => c.bpm,
+  );
   expect(bpms).toEqual([96, 100]);
   expect((await agents.owner.get(`/api/songs/${songId}/practice`).expect(200)).body.entries).toHaveLength(1);
 });

@@ -17,7 +17,9 @@ describe('sign-in lifecycle', () => {
     expect(signUp.body.user.role).toBe('player');
 
     // Unconfirmed accounts cannot sign in yet; trying sends a fresh confirmation link (sendOnSignIn).
-    const early = await a.post('/api/auth/sign-in/email').send({ email, password: PASSWORD, callbackURL: '/sign-in?confirmed=1' });
+    const early = await a
+      .post('/api/auth/sign-in/email')
+      .send({ email, password: PASSWORD, callbackURL: '/sign-in?confirmed=1' });
     expect(early.status).toBe(403);
     expect(early.body.code).toBe('EMAIL_NOT_VERIFIED');
 
@@ -72,7 +74,10 @@ describe('sign-in lifecycle', () => {
     await a.post('/api/auth/sign-up/email').send({ name: 'Once', email, password: PASSWORD }).expect(200);
     await a.get(linkPath(await waitForMail(email, /confirm/i))).expect(302);
     // With confirmation required, better-auth answers a repeat sign-up like a new one (no account enumeration)…
-    await agent().post('/api/auth/sign-up/email').send({ name: 'Twice', email, password: 'other-password-1' }).expect(200);
+    await agent()
+      .post('/api/auth/sign-up/email')
+      .send({ name: 'Twice', email, password: 'other-password-1' })
+      .expect(200);
     // …but the first account, its name and its password stand.
     await agent().post('/api/auth/sign-in/email').send({ email, password: 'other-password-1' }).expect(401);
     await a.post('/api/auth/sign-in/email').send({ email, password: PASSWORD }).expect(200);

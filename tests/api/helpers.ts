@@ -13,8 +13,18 @@ export const baseUrl = process.env.TACTUS_TEST_URL!;
 
 /** The two test servers: files on local disk, or in the fake S3 (each with its own database). */
 export const servers = {
-  disk: { name: 'disk', url: process.env.TACTUS_TEST_URL!, db: 'tactus_test', spool: process.env.TACTUS_TEST_DISK_SPOOL! },
-  s3: { name: 's3', url: process.env.TACTUS_TEST_S3_URL!, db: 'tactus_test_s3', spool: process.env.TACTUS_TEST_S3_SPOOL! },
+  disk: {
+    name: 'disk',
+    url: process.env.TACTUS_TEST_URL!,
+    db: 'tactus_test',
+    spool: process.env.TACTUS_TEST_DISK_SPOOL!,
+  },
+  s3: {
+    name: 's3',
+    url: process.env.TACTUS_TEST_S3_URL!,
+    db: 'tactus_test_s3',
+    spool: process.env.TACTUS_TEST_S3_SPOOL!,
+  },
 };
 export type TestServer = (typeof servers)['disk'];
 
@@ -46,9 +56,17 @@ export function linkPath(mail: CaughtMail, url = baseUrl): string {
 export const PASSWORD = 'metronome-at-96';
 
 /** Signs up, confirms through the caught mail and signs in; returns the signed-in agent. */
-export async function signedInUser(label: string, role: Role = 'player', server: TestServer = servers.disk, email = uniqueEmail(label)) {
+export async function signedInUser(
+  label: string,
+  role: Role = 'player',
+  server: TestServer = servers.disk,
+  email = uniqueEmail(label),
+) {
   const a = agent(server.url);
-  await a.post('/api/auth/sign-up/email').send({ name: `Test ${label}`, email, password: PASSWORD }).expect(200);
+  await a
+    .post('/api/auth/sign-up/email')
+    .send({ name: `Test ${label}`, email, password: PASSWORD })
+    .expect(200);
   const mail = await waitForMail(email, /confirm/i, 10_000, server.url);
   await a.get(linkPath(mail, server.url)).expect(302);
   if (role !== 'player') await setRoleDirectly(email, role, server.db);
@@ -63,7 +81,11 @@ export async function setRoleDirectly(email: string, role: Role, database = 'tac
 }
 
 /** One query on a test database, for checks the API does not expose (rows left behind, job counts). */
-export async function query<T = Record<string, unknown>>(database: string, sql: string, params: unknown[] = []): Promise<T[]> {
+export async function query<T = Record<string, unknown>>(
+  database: string,
+  sql: string,
+  params: unknown[] = [],
+): Promise<T[]> {
   const conn = await mariadb.createConnection({
     host: '127.0.0.1',
     port: Number(process.env.TACTUS_DB_PORT ?? 3406),
@@ -101,7 +123,11 @@ export function documentedOperations(doc: { paths: Record<string, Record<string,
 
 /** The app's own route listing (server/scripts/routes.ts, run as a server with this environment would be built). */
 export function appRoutes(env: NodeJS.ProcessEnv): RouteEntry[] {
-  const out = execFileSync(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/routes.ts'), '--json'], { cwd: root, env });
+  const out = execFileSync(
+    process.execPath,
+    ['--import', 'tsx', path.join(root, 'server/scripts/routes.ts'), '--json'],
+    { cwd: root, env },
+  );
   return JSON.parse(out.toString()) as RouteEntry[];
 }
 

@@ -20,19 +20,32 @@ const expectClientError = (res: request.Response, status: number) => {
 
 test.each([
   ['an unknown charset', { 'Content-Type': 'application/json; charset=klingon' }, '{"title":"x"}', 415],
-  ['an unknown Content-Encoding', { 'Content-Type': 'application/json', 'Content-Encoding': 'zip-it' }, '{"title":"x"}', 415],
-  ['a gzip body that is not gzip', { 'Content-Type': 'application/json', 'Content-Encoding': 'gzip' }, 'this is not gzip at all', 400],
+  [
+    'an unknown Content-Encoding',
+    { 'Content-Type': 'application/json', 'Content-Encoding': 'zip-it' },
+    '{"title":"x"}',
+    415,
+  ],
+  [
+    'a gzip body that is not gzip',
+    { 'Content-Type': 'application/json', 'Content-Encoding': 'gzip' },
+    'this is not gzip at all',
+    400,
+  ],
 ])('%s is refused with %#', async (_what, headers, body, status) => {
   let req = player.agent.post('/api/songs');
   for (const [k, v] of Object.entries(headers)) req = req.set(k, v);
   expectClientError(await req.send(body), status);
 });
 
-test.each(['/%ZZ', '/api/songs/%ZZ', '/api/recordings/%E0%A4%A'])('a path that does not decode (%s) is a 400 or 404, not a 500', async (p) => {
-  const res = await player.agent.get(p);
-  expect([400, 404]).toContain(res.status);
-  if (p.startsWith('/api')) expect(res.body.error.code).toEqual(expect.any(String));
-});
+test.each(['/%ZZ', '/api/songs/%ZZ', '/api/recordings/%E0%A4%A'])(
+  'a path that does not decode (%s) is a 400 or 404, not a 500',
+  async (p) => {
+    const res = await player.agent.get(p);
+    expect([400, 404]).toContain(res.status);
+    if (p.startsWith('/api')) expect(res.body.error.code).toEqual(expect.any(String));
+  },
+);
 
 describe('ranges of a recording’s audio (RFC 9110 §14)', () => {
   let id: string;
@@ -41,16 +54,26 @@ describe('ranges of a recording’s audio (RFC 9110 §14)', () => {
     const clip = fs.readFileSync(path.join(root, 'fixtures/clips/waltz-150.mp3'));
     size = clip.length;
     const song = (await player.agent.post('/api/songs').send({ title: 'Ranges' }).expect(201)).body.id;
-    id = (await player.agent.post(`/api/songs/${song}/recordings`).field('kind', 'take').attach('file', clip, 'w.mp3').expect(201)).body.id;
+    id = (
+      await player.agent
+        .post(`/api/songs/${song}/recordings`)
+        .field('kind', 'take')
+        .attach('file', clip, 'w.mp3')
+        .expect(201)
+    ).body.id;
     await waitForAnalysis(player.agent, id);
   });
 
   test('a suffix range longer than the file serves the whole file (§14.1.2)', async () => {
-    const res = await player.agent.get(`/api/recordings/${id}/audio`).set('Range', 'bytes=-999999999').buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await player.agent
+      .get(`/api/recordings/${id}/audio`)
+      .set('Range', 'bytes=-999999999')
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(206);
     expect(res.headers['content-range']).toBe(`bytes 0-${size - 1}/${size}`);
     expect((res.body as Buffer).length).toBe(size);
@@ -72,12 +95,20 @@ describe('names and headers of uploads', () => {
   });
 
   test('a UTF-8 file name is kept as sent', async () => {
-    const res = await player.agent.post(`/api/songs/${song}/recordings`).field('kind', 'take').attach('file', clip(), 'Tomás – café.mp3').expect(201);
+    const res = await player.agent
+      .post(`/api/songs/${song}/recordings`)
+      .field('kind', 'take')
+      .attach('file', clip(), 'Tomás – café.mp3')
+      .expect(201);
     expect(res.body.originalName).toBe('Tomás – café.mp3');
   });
 
   test('a name with a right-to-left override is refused (Unicode TR #36, bidi spoofing)', async () => {
-    const res = await player.agent.post(`/api/songs/${song}/recordings`).field('kind', 'take').attach('file', clip(), 'take\u202Egpm.mp3').expect(400);
+    const res = await player.agent
+      .post(`/api/songs/${song}/recordings`)
+      .field('kind', 'take')
+      .attach('file', clip(), 'take\u202Egpm.mp3')
+      .expect(400);
     expect(res.body.error.field).toBe('file');
   });
 
@@ -97,13 +128,22 @@ describe('names and headers of uploads', () => {
     head.writeUInt16LE(16, 34);
     head.write('data', 36, 'latin1');
     head.writeUInt32LE(data.length, 40);
-    const res = await player.agent.post(`/api/songs/${song}/recordings`).field('kind', 'take').attach('file', Buffer.concat([head, data]), 'none.wav');
+    const res = await player.agent
+      .post(`/api/songs/${song}/recordings`)
+      .field('kind', 'take')
+      .attach('file', Buffer.concat([head, data]), 'none.wav');
     expect([400, 413, 415]).toContain(res.status);
     expect(res.body.error.message).not.toMatch(/Infinity|NaN/);
   });
 
   test('a label of spaces is stored as no label', async () => {
-    const id = (await player.agent.post(`/api/songs/${song}/recordings`).field('kind', 'take').attach('file', clip(), 'x.mp3').expect(201)).body.id;
+    const id = (
+      await player.agent
+        .post(`/api/songs/${song}/recordings`)
+        .field('kind', 'take')
+        .attach('file', clip(), 'x.mp3')
+        .expect(201)
+    ).body.id;
     const res = await player.agent.patch(`/api/recordings/${id}`).send({ label: '    ' }).expect(200);
     expect(res.body.label).toBeNull();
   });

@@ -34,11 +34,15 @@ test('the mail names the teacher; accepting through its link links the two, and 
   const token = await invitationToken(player.email);
   const seen = await details(null, token);
   expect(seen).toMatchObject({ teacherName: 'Test inv-teacher', email: player.email, status: 'pending', forYou: null });
-  expect((await player.agent.get('/api/invitations/received').expect(200)).body.invitations.map((i: { id: string }) => i.id)).toContain(seen.id);
+  expect(
+    (await player.agent.get('/api/invitations/received').expect(200)).body.invitations.map((i: { id: string }) => i.id),
+  ).toContain(seen.id);
   const accepted = await player.agent.post(`/api/invitations/${seen.id}/accept`).expect(200);
   expect(accepted.body).toMatchObject({ id: teacher.id, name: 'Test inv-teacher' });
   expect((await teacher.agent.get(`/api/songs/${song.id}`).expect(200)).body.title).toBe('Saltmarsh Air');
-  expect((await player.agent.get('/api/teachers').expect(200)).body.teachers.map((t: { id: string }) => t.id)).toEqual([teacher.id]);
+  expect((await player.agent.get('/api/teachers').expect(200)).body.teachers.map((t: { id: string }) => t.id)).toEqual([
+    teacher.id,
+  ]);
   // One time only.
   const again = await player.agent.post(`/api/invitations/${seen.id}/accept`).expect(410);
   expect(again.body.error.code).toBe('answered');
@@ -59,7 +63,10 @@ test('an expired invitation cannot be accepted', async () => {
   await invite(player.email);
   const { id } = await details(player, await invitationToken(player.email));
   // Eight days on (the link works for seven).
-  await query('tactus_test', 'UPDATE studio_invitations SET expiresAt = ? WHERE id = ?', [new Date(Date.now() - 24 * 3600 * 1000), id]);
+  await query('tactus_test', 'UPDATE studio_invitations SET expiresAt = ? WHERE id = ?', [
+    new Date(Date.now() - 24 * 3600 * 1000),
+    id,
+  ]);
   const res = await player.agent.post(`/api/invitations/${id}/accept`).expect(410);
   expect(res.body.error.code).toBe('expired');
   expect((await player.agent.get('/api/invitations/received').expect(200)).body.invitations).toEqual([]);
@@ -68,9 +75,13 @@ test('an expired invitation cannot be accepted', async () => {
 test('a withdrawn invitation is gone from the teacher’s list and cannot be accepted', async () => {
   const player = await signedInUser('inv-withdrawn');
   const sent = await invite(player.email);
-  expect((await teacher.agent.get('/api/invitations').expect(200)).body.invitations.map((i: { id: string }) => i.id)).toContain(sent.id);
+  expect(
+    (await teacher.agent.get('/api/invitations').expect(200)).body.invitations.map((i: { id: string }) => i.id),
+  ).toContain(sent.id);
   await teacher.agent.delete(`/api/invitations/${sent.id}`).expect(204);
-  expect((await teacher.agent.get('/api/invitations').expect(200)).body.invitations.map((i: { id: string }) => i.id)).not.toContain(sent.id);
+  expect(
+    (await teacher.agent.get('/api/invitations').expect(200)).body.invitations.map((i: { id: string }) => i.id),
+  ).not.toContain(sent.id);
   const seen = await details(player, await invitationToken(player.email));
   expect(seen.status).toBe('withdrawn');
   await player.agent.post(`/api/invitations/${sent.id}/accept`).expect(410);
@@ -84,7 +95,9 @@ test('another account cannot accept an invitation meant for someone else', async
   expect(seen.forYou).toBe(false);
   const res = await other.agent.post(`/api/invitations/${seen.id}/accept`).expect(403);
   expect(res.body.error.code).toBe('wrong_account');
-  expect((await teacher.agent.get('/api/students').expect(200)).body.students.map((s: { id: string }) => s.id)).not.toContain(other.id);
+  expect(
+    (await teacher.agent.get('/api/students').expect(200)).body.students.map((s: { id: string }) => s.id),
+  ).not.toContain(other.id);
 });
 
 test('a new person signs up through the link and is linked when they accept after confirming', async () => {
@@ -96,7 +109,9 @@ test('a new person signs up through the link and is linked when they accept afte
   const seen = await details(newcomer, token);
   expect(seen.forYou).toBe(true);
   await newcomer.agent.post(`/api/invitations/${seen.id}/accept`).expect(200);
-  expect((await teacher.agent.get('/api/students').expect(200)).body.students.map((s: { email: string }) => s.email)).toContain(email);
+  expect(
+    (await teacher.agent.get('/api/students').expect(200)).body.students.map((s: { email: string }) => s.email),
+  ).toContain(email);
 });
 
 test('either side ends the link, and access stops with the next request', async () => {

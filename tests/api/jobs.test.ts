@@ -82,7 +82,9 @@ afterAll(() => {
 test('a server killed while a job runs: the next server finishes it, with one result', async () => {
   const first = await startServer('first');
   const { a, songId } = await playerWithSong(first.url);
-  const id = (await a.post(`/api/songs/${songId}/recordings`).field('kind', 'take').attach('file', CLIP, 'take.mp3').expect(201)).body.id;
+  const id = (
+    await a.post(`/api/songs/${songId}/recordings`).field('kind', 'take').attach('file', CLIP, 'take.mp3').expect(201)
+  ).body.id;
   await until(async () => (await statusOf(a, id)) === 'running', 20_000, 'the job to start');
   first.child.kill('SIGKILL');
   await new Promise((r) => first.child.once('exit', r));
@@ -90,9 +92,17 @@ test('a server killed while a job runs: the next server finishes it, with one re
   const second = await startServer('second');
   // The session lives in the database, so the same cookie works against the new process.
   const b = agent(second.url);
-  b.jar.setCookies((a.jar.getCookies({ domain: "127.0.0.1", path: "/", secure: false, script: false }) as unknown as unknown[]).map(String));
+  b.jar.setCookies(
+    (a.jar.getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false }) as unknown as unknown[]).map(
+      String,
+    ),
+  );
   await until(async () => (await statusOf(b, id)) === 'done', 40_000, 'the job to finish after the restart');
-  const [job] = await query<{ status: string; attempts: number; finishedBy: string }>(DB, 'SELECT status, attempts, finishedBy FROM analysis_jobs WHERE recordingId = ?', [id]);
+  const [job] = await query<{ status: string; attempts: number; finishedBy: string }>(
+    DB,
+    'SELECT status, attempts, finishedBy FROM analysis_jobs WHERE recordingId = ?',
+    [id],
+  );
   expect(job!.status).toBe('done');
   expect(job!.attempts).toBe(2);
   expect(await query(DB, 'SELECT recordingId FROM analyses WHERE recordingId = ?', [id])).toHaveLength(1);
@@ -105,14 +115,34 @@ test('two server processes on one database share the queue and do each job exact
   const { a, songId } = await playerWithSong(one.url);
   const ids: string[] = [];
   for (let i = 0; i < 6; i++) {
-    ids.push((await a.post(`/api/songs/${songId}/recordings`).field('kind', 'take').attach('file', CLIP, `take-${i}.mp3`).expect(201)).body.id);
+    ids.push(
+      (
+        await a
+          .post(`/api/songs/${songId}/recordings`)
+          .field('kind', 'take')
+          .attach('file', CLIP, `take-${i}.mp3`)
+          .expect(201)
+      ).body.id,
+    );
   }
-  await until(async () => (await Promise.all(ids.map((id) => statusOf(a, id)))).every((s) => s === 'done'), 60_000, 'all six analyses');
-  const jobs = await query<{ attempts: number; finishedBy: string }>(DB, `SELECT attempts, finishedBy FROM analysis_jobs WHERE recordingId IN (${ids.map(() => '?').join(',')})`, ids);
+  await until(
+    async () => (await Promise.all(ids.map((id) => statusOf(a, id)))).every((s) => s === 'done'),
+    60_000,
+    'all six analyses',
+  );
+  const jobs = await query<{ attempts: number; finishedBy: string }>(
+    DB,
+    `SELECT attempts, finishedBy FROM analysis_jobs WHERE recordingId IN (${ids.map(() => '?').join(',')})`,
+    ids,
+  );
   expect(jobs).toHaveLength(6);
   for (const j of jobs) expect(j.attempts).toBe(1);
   // Both processes took work (each has one worker and every job takes over 2.5 s).
   expect(new Set(jobs.map((j) => j.finishedBy)).size).toBe(2);
-  const results = await query<{ n: bigint }>(DB, `SELECT COUNT(*) AS n FROM analyses WHERE recordingId IN (${ids.map(() => '?').join(',')})`, ids);
+  const results = await query<{ n: bigint }>(
+    DB,
+    `SELECT COUNT(*) AS n FROM analyses WHERE recordingId IN (${ids.map(() => '?').join(',')})`,
+    ids,
+  );
   expect(Number(results[0]!.n)).toBe(6);
 }, 150_000);

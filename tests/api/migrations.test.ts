@@ -9,10 +9,14 @@ import { root } from '@/tests/setup/processes';
 
 const DB = 'tactus_test_migrations';
 const migrateTo = (to?: string) =>
-  promisify(execFile)(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/migrate.ts'), ...(to ? ['--to', to] : [])], {
-    cwd: root,
-    env: { ...JSON.parse(process.env.TACTUS_TEST_SERVER_ENV!), TACTUS_DB_NAME: DB },
-  });
+  promisify(execFile)(
+    process.execPath,
+    ['--import', 'tsx', path.join(root, 'server/scripts/migrate.ts'), ...(to ? ['--to', to] : [])],
+    {
+      cwd: root,
+      env: { ...JSON.parse(process.env.TACTUS_TEST_SERVER_ENV!), TACTUS_DB_NAME: DB },
+    },
+  );
 
 beforeAll(async () => {
   const conn = await mariadb.createConnection({
@@ -30,15 +34,26 @@ test('a link made without consent becomes a pending invitation to the student’
   await migrateTo('0006-passages');
   const now = new Date();
   const user = (id: string, email: string, role: string) =>
-    query(DB, 'INSERT INTO users (id, name, email, emailVerified, role, createdAt, updatedAt) VALUES (?, ?, ?, 1, ?, ?, ?)', [id, id, email, role, now, now]);
+    query(
+      DB,
+      'INSERT INTO users (id, name, email, emailVerified, role, createdAt, updatedAt) VALUES (?, ?, ?, 1, ?, ?, ?)',
+      [id, id, email, role, now, now],
+    );
   await user('teacher-1', 'marta@studio.example', 'teacher');
   await user('student-1', 'Ilya@Players.example', 'player');
-  await query(DB, 'INSERT INTO studio_links (id, teacherId, studentId, createdAt, updatedAt) VALUES (UUID(), ?, ?, ?, ?)', ['teacher-1', 'student-1', now, now]);
+  await query(
+    DB,
+    'INSERT INTO studio_links (id, teacherId, studentId, createdAt, updatedAt) VALUES (UUID(), ?, ?, ?, ?)',
+    ['teacher-1', 'student-1', now, now],
+  );
 
   const { stdout } = await migrateTo();
   expect(stdout).toContain('0007-studio-invitations');
   expect(await query(DB, 'SELECT * FROM studio_links')).toHaveLength(0);
-  const [invitation] = await query<{ teacherId: string; email: string; status: string; expiresAt: Date }>(DB, 'SELECT * FROM studio_invitations');
+  const [invitation] = await query<{ teacherId: string; email: string; status: string; expiresAt: Date }>(
+    DB,
+    'SELECT * FROM studio_invitations',
+  );
   expect(invitation).toMatchObject({ teacherId: 'teacher-1', email: 'ilya@players.example', status: 'pending' });
   // Seven days to answer, from the migration on.
   const days = (new Date(invitation!.expiresAt).getTime() - now.getTime()) / 86_400_000;

@@ -7,7 +7,11 @@ import request from 'supertest';
 import { toOpenApiPath } from '@/server/route-table';
 import { agent, appRoutes, baseUrl, documentedOperations, PASSWORD, signedInUser } from './helpers';
 
-type Operation = { security?: unknown[]; 'x-roles'?: string[]; responses: Record<string, { content?: Record<string, unknown> }> };
+type Operation = {
+  security?: unknown[];
+  'x-roles'?: string[];
+  responses: Record<string, { content?: Record<string, unknown> }>;
+};
 type Doc = {
   openapi: string;
   paths: Record<string, Record<string, Operation>>;
@@ -26,12 +30,16 @@ beforeAll(async () => {
   ajv.addSchema(doc, DOC_ID);
 });
 
-const pointer = (...parts: string[]) => parts.map((p) => encodeURIComponent(p.replace(/~/g, '~0').replace(/\//g, '~1'))).join('/');
+const pointer = (...parts: string[]) =>
+  parts.map((p) => encodeURIComponent(p.replace(/~/g, '~0').replace(/\//g, '~1'))).join('/');
 
 /** Checks a real response against the document: its status is documented, and a JSON body fits the documented schema. */
 function expectDocumented(method: string, path: string, res: request.Response) {
   const op = doc.paths[path]?.[method];
-  expect({ operation: `${method} ${path}`, documented: !!op }).toEqual({ operation: `${method} ${path}`, documented: true });
+  expect({ operation: `${method} ${path}`, documented: !!op }).toEqual({
+    operation: `${method} ${path}`,
+    documented: true,
+  });
   const response = op!.responses[String(res.status)];
   expect({ operation: `${method} ${path}`, status: res.status, documented: !!response }).toEqual({
     operation: `${method} ${path}`,
@@ -74,7 +82,10 @@ test('every route the app mounts is documented with its method, and nothing the 
   await request(baseUrl).post('/api/auth/no-such-endpoint').set('Origin', baseUrl).send({}).expect(404);
   for (const op of authOps) {
     const [method, path] = op.split(' ') as [string, string];
-    const res = await request(baseUrl)[method.toLowerCase() as 'get'](path).set('Origin', baseUrl).send(method === 'GET' ? undefined : {});
+    const res = await request(baseUrl)
+      [method.toLowerCase() as 'get'](path)
+      .set('Origin', baseUrl)
+      .send(method === 'GET' ? undefined : {});
     expect({ op, status: res.status }).not.toEqual({ op, status: 404 });
   }
 });
@@ -89,7 +100,10 @@ test('the session cookie and role requirements are as documented, and every refu
     const [METHOD, path] = op.split(' ') as [string, string];
     const method = METHOD.toLowerCase();
     const operation = doc.paths[path]![method]!;
-    const call = (r: ReturnType<typeof request>) => r[method as 'get'](concrete(path)).redirects(1).send(method === 'get' ? undefined : {});
+    const call = (r: ReturnType<typeof request>) =>
+      r[method as 'get'](concrete(path))
+        .redirects(1)
+        .send(method === 'get' ? undefined : {});
 
     const anonymous = await call(request(baseUrl));
     expect({ op, needsSession: anonymous.status === 401 }).toEqual({ op, needsSession: !!operation.security?.length });
@@ -118,7 +132,9 @@ test('real responses of a signed-in player fit the documented schemas', async ()
   expectDocumented('get', '/api/me', await a.get('/api/me'));
   expectDocumented('get', '/api/health', await a.get('/api/health'));
 
-  const created = await a.post('/api/songs').send({ title: 'Étude in 7/8', composer: 'Test', meter: '7/8', goalBpm: 132 });
+  const created = await a
+    .post('/api/songs')
+    .send({ title: 'Étude in 7/8', composer: 'Test', meter: '7/8', goalBpm: 132 });
   expect(created.status).toBe(201);
   expectDocumented('post', '/api/songs', created);
   const id = created.body.id as string;
@@ -139,8 +155,16 @@ test('real responses of a signed-in player fit the documented schemas', async ()
   expect(candidate.status).toBe(201);
   expectDocumented('post', '/api/songs/{songId}/candidates', candidate);
   expectDocumented('get', '/api/songs/{songId}/candidates', await a.get(`/api/songs/${id}/candidates`));
-  expectDocumented('patch', '/api/candidates/{id}', await a.patch(`/api/candidates/${candidate.body.id}`).send({ rating: 5 }));
-  expectDocumented('post', '/api/songs/{songId}/choose', await a.post(`/api/songs/${id}/choose`).send({ bpm: 126, note: 'the bow holds' }));
+  expectDocumented(
+    'patch',
+    '/api/candidates/{id}',
+    await a.patch(`/api/candidates/${candidate.body.id}`).send({ rating: 5 }),
+  );
+  expectDocumented(
+    'post',
+    '/api/songs/{songId}/choose',
+    await a.post(`/api/songs/${id}/choose`).send({ bpm: 126, note: 'the bow holds' }),
+  );
 
   const entry = await a
     .post(`/api/songs/${id}/practice`)

@@ -11,7 +11,13 @@ let url: string;
 beforeAll(async () => {
   const port = await freePort();
   url = `http://127.0.0.1:${port}`;
-  child = spawnTs('server/index.ts', { ...process.env, NODE_ENV: 'production', TACTUS_PORT: String(port), TACTUS_PUBLIC_URL: url, TACTUS_DB_NAME: 'tactus_test' });
+  child = spawnTs('server/index.ts', {
+    ...process.env,
+    NODE_ENV: 'production',
+    TACTUS_PORT: String(port),
+    TACTUS_PUBLIC_URL: url,
+    TACTUS_DB_NAME: 'tactus_test',
+  });
   await waitForOk(`${url}/api/health`, 30_000);
 });
 afterAll(() => {
@@ -34,7 +40,11 @@ test('production serves the OpenAPI document, without the development routes, an
   // The production document names exactly the routes the production app mounts.
   const routes = appRoutes({ ...process.env, NODE_ENV: 'production', TACTUS_DB_NAME: 'tactus_test' });
   const ours = routes.filter((r) => toOpenApiPath(r.path) !== null).map((r) => `${r.method} ${toOpenApiPath(r.path)}`);
-  expect(documentedOperations(doc.body).filter((o) => !o.includes(' /api/auth/')).sort()).toEqual(ours.sort());
+  expect(
+    documentedOperations(doc.body)
+      .filter((o) => !o.includes(' /api/auth/'))
+      .sort(),
+  ).toEqual(ours.sort());
   expect(ours).toContain('GET /api/openapi.json');
   expect(ours).not.toContain('GET /api/docs');
   expect(ours).not.toContain('GET /api/dev/mail');

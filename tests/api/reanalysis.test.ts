@@ -22,13 +22,21 @@ let recordingId: string;
 beforeAll(async () => {
   player = await signedInUser('reanalysis');
   const song = (await player.agent.post('/api/songs').send({ title: 'Lantern Waltz', meter: '3/4' }).expect(201)).body;
-  const res = await player.agent.post(`/api/songs/${song.id}/recordings`).field('kind', 'take').attach('file', clip, 'lantern.mp3').expect(201);
+  const res = await player.agent
+    .post(`/api/songs/${song.id}/recordings`)
+    .field('kind', 'take')
+    .attach('file', clip, 'lantern.mp3')
+    .expect(201);
   recordingId = res.body.id;
   expect((await waitForAnalysis(player.agent, recordingId)).status).toBe('done');
 });
 
 test('each stored analysis records the engine version that made it', async () => {
-  const [row] = await query<{ engineVersion: number }>('tactus_test', 'SELECT engineVersion FROM analyses WHERE recordingId = ?', [recordingId]);
+  const [row] = await query<{ engineVersion: number }>(
+    'tactus_test',
+    'SELECT engineVersion FROM analyses WHERE recordingId = ?',
+    [recordingId],
+  );
   expect(row!.engineVersion).toBe(ENGINE_VERSION);
 });
 
@@ -37,9 +45,15 @@ test('an analysis made by an older engine is re-analysed in the background and t
   const corrections = { correctedBpm: 75, beatOffsetSec: 0.12, beatLevel: 'half', barOneSec: 0.52, nudgeMs: -12 };
   await player.agent.patch(`/api/recordings/${recordingId}`).send(corrections).expect(200);
   // Pretend an older engine made the stored result, marked so that its replacement can be seen.
-  const [stored] = await query<{ result: string }>('tactus_test', 'SELECT result FROM analyses WHERE recordingId = ?', [recordingId]);
+  const [stored] = await query<{ result: string }>('tactus_test', 'SELECT result FROM analyses WHERE recordingId = ?', [
+    recordingId,
+  ]);
   const old = { ...JSON.parse(stored!.result), confidence: 0.001, analysisMs: -1 };
-  await query('tactus_test', 'UPDATE analyses SET engineVersion = ?, result = ? WHERE recordingId = ?', [ENGINE_VERSION - 1, JSON.stringify(old), recordingId]);
+  await query('tactus_test', 'UPDATE analyses SET engineVersion = ?, result = ? WHERE recordingId = ?', [
+    ENGINE_VERSION - 1,
+    JSON.stringify(old),
+    recordingId,
+  ]);
 
   const { stdout } = await runScript('server/scripts/reanalyze.ts');
   expect(stdout).toMatch(/[1-9]\d* recording\(s\) queued for re-analysis/);
@@ -60,13 +74,22 @@ test('an analysis made by an older engine is re-analysed in the background and t
   expect(r.originalBpm).toBe(75);
   expect(r.beatOffsetSec).toBeCloseTo(0.12, 6);
   expect(r).toMatchObject({ beatLevel: 'half', barOneSec: 0.52, nudgeMs: -12 });
-  const [row] = await query<{ engineVersion: number }>('tactus_test', 'SELECT engineVersion FROM analyses WHERE recordingId = ?', [recordingId]);
+  const [row] = await query<{ engineVersion: number }>(
+    'tactus_test',
+    'SELECT engineVersion FROM analyses WHERE recordingId = ?',
+    [recordingId],
+  );
   expect(row!.engineVersion).toBe(ENGINE_VERSION);
 });
 
 test('a stored result that does not fit the analysis schema is shown as no analysis, not passed on', async () => {
-  const [stored] = await query<{ result: string }>('tactus_test', 'SELECT result FROM analyses WHERE recordingId = ?', [recordingId]);
-  await query('tactus_test', 'UPDATE analyses SET result = ? WHERE recordingId = ?', [JSON.stringify({ bpm: 'fast' }), recordingId]);
+  const [stored] = await query<{ result: string }>('tactus_test', 'SELECT result FROM analyses WHERE recordingId = ?', [
+    recordingId,
+  ]);
+  await query('tactus_test', 'UPDATE analyses SET result = ? WHERE recordingId = ?', [
+    JSON.stringify({ bpm: 'fast' }),
+    recordingId,
+  ]);
   try {
     const r = (await player.agent.get(`/api/recordings/${recordingId}`).expect(200)).body;
     expect(r.analysis).toBeNull();

@@ -25,13 +25,19 @@ async function storedFiles(server: TestServer): Promise<string[]> {
     const dir = process.env.TACTUS_TEST_DISK_DIR!;
     return fs.existsSync(dir) ? fs.readdirSync(dir) : [];
   }
-  const res = await s3.send(new ListObjectsV2Command({ Bucket: process.env.TACTUS_TEST_S3_BUCKET! })).catch(() => ({ Contents: [] }));
+  const res = await s3
+    .send(new ListObjectsV2Command({ Bucket: process.env.TACTUS_TEST_S3_BUCKET! }))
+    .catch(() => ({ Contents: [] }));
   return (res.Contents ?? []).map((o) => o.Key!);
 }
 const spoolFiles = (server: TestServer) => (fs.existsSync(server.spool) ? fs.readdirSync(server.spool) : []);
 /** Stored files that no recording row names (a file left behind). */
 async function orphanFiles(server: TestServer): Promise<string[]> {
-  const keys = new Set((await query<{ storageKey: string }>(server.db, 'SELECT storageKey FROM recordings')).map((r) => String(r.storageKey)));
+  const keys = new Set(
+    (await query<{ storageKey: string }>(server.db, 'SELECT storageKey FROM recordings')).map((r) =>
+      String(r.storageKey),
+    ),
+  );
   return (await storedFiles(server)).filter((f) => !keys.has(f));
 }
 
@@ -50,7 +56,9 @@ async function eventuallyEmpty(read: () => Promise<string[]> | string[], timeout
   return left;
 }
 const rowsFor = async (server: TestServer, songId: string) =>
-  Number((await query<{ n: bigint }>(server.db, 'SELECT COUNT(*) AS n FROM recordings WHERE songId = ?', [songId]))[0]!.n);
+  Number(
+    (await query<{ n: bigint }>(server.db, 'SELECT COUNT(*) AS n FROM recordings WHERE songId = ?', [songId]))[0]!.n,
+  );
 
 describe.each([servers.disk, servers.s3])('recordings stored on $name', (server) => {
   let owner: Awaited<ReturnType<typeof signedInUser>>;
@@ -58,7 +66,9 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
 
   beforeAll(async () => {
     owner = await signedInUser(`rec-${server.name}`, 'player', server);
-    songId = (await owner.agent.post('/api/songs').send({ title: 'Nine Steps Waltz', meter: '3/4', goalBpm: 152 }).expect(201)).body.id;
+    songId = (
+      await owner.agent.post('/api/songs').send({ title: 'Nine Steps Waltz', meter: '3/4', goalBpm: 152 }).expect(201)
+    ).body.id;
   });
 
   const upload = (file: Buffer, name: string, kind = 'take', label?: string) => {
@@ -67,11 +77,17 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
       const boundary = `----tactus${crypto.randomBytes(8).toString('hex')}`;
       const body = Buffer.concat([
         Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="kind"\r\n\r\n${kind}\r\n`),
-        Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="${name}"\r\nContent-Type: application/octet-stream\r\n\r\n`, 'latin1'),
+        Buffer.from(
+          `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="${name}"\r\nContent-Type: application/octet-stream\r\n\r\n`,
+          'latin1',
+        ),
         file,
         Buffer.from(`\r\n--${boundary}--\r\n`),
       ]);
-      return owner.agent.post(`/api/songs/${songId}/recordings`).set('Content-Type', `multipart/form-data; boundary=${boundary}`).send(body);
+      return owner.agent
+        .post(`/api/songs/${songId}/recordings`)
+        .set('Content-Type', `multipart/form-data; boundary=${boundary}`)
+        .send(body);
     }
     const req = owner.agent.post(`/api/songs/${songId}/recordings`).field('kind', kind);
     if (label) req.field('label', label);
@@ -87,17 +103,26 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
   ])('a %s upload is stored, analysed and served back as %s', async (format, mime) => {
     const bytes = clip(`waltz-150.${format}`);
     const res = await upload(bytes, `waltz.${format}`, 'reference', `Waltz (${format})`).expect(201);
-    expect(res.body).toMatchObject({ kind: 'reference', label: `Waltz (${format})`, format, sizeBytes: bytes.length, status: expect.stringMatching(/queued|running|done/) });
+    expect(res.body).toMatchObject({
+      kind: 'reference',
+      label: `Waltz (${format})`,
+      format,
+      sizeBytes: bytes.length,
+      status: expect.stringMatching(/queued|running|done/),
+    });
     const done = await waitForAnalysis(owner.agent, res.body.id);
     expect(done.status).toBe('done');
     // Truth: the clip's tempo map (fixtures/pieces.ts) — 150 BPM in 3/4.
     expect(accuracy1(done.analysis.bpm, 150)).toBe(true);
     expect(done.analysis.meter).toBe('3/4');
-    const audio = await owner.agent.get(`/api/recordings/${res.body.id}/audio`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const audio = await owner.agent
+      .get(`/api/recordings/${res.body.id}/audio`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(audio.status).toBe(200);
     expect(audio.headers['content-type']).toContain(mime);
     expect(Buffer.compare(audio.body as Buffer, bytes)).toBe(0);
@@ -153,7 +178,11 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
     await stranger.agent.get(`/api/recordings/${id}`).expect(404);
     await stranger.agent.get(`/api/recordings/${id}/audio`).expect(404);
     await stranger.agent.delete(`/api/recordings/${id}`).expect(404);
-    await stranger.agent.post(`/api/songs/${songId}/recordings`).field('kind', 'take').attach('file', clip('waltz-150.mp3'), 'w.mp3').expect(404);
+    await stranger.agent
+      .post(`/api/songs/${songId}/recordings`)
+      .field('kind', 'take')
+      .attach('file', clip('waltz-150.mp3'), 'w.mp3')
+      .expect(404);
     await request(server.url).get(`/api/recordings/${id}`).expect(401);
     await request(server.url).get(`/api/recordings/${id}/audio`).expect(401);
   });
@@ -161,8 +190,16 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
   test('the player corrects the tempo and the beat offset; bad values are refused', async () => {
     const id = (await upload(clip('waltz-150.flac'), 'w.flac').expect(201)).body.id;
     await waitForAnalysis(owner.agent, id);
-    const patched = await owner.agent.patch(`/api/recordings/${id}`).send({ correctedBpm: 75, beatOffsetSec: 0.12, label: 'half-time feel' }).expect(200);
-    expect(patched.body).toMatchObject({ correctedBpm: 75, originalBpm: 75, beatOffsetSec: 0.12, label: 'half-time feel' });
+    const patched = await owner.agent
+      .patch(`/api/recordings/${id}`)
+      .send({ correctedBpm: 75, beatOffsetSec: 0.12, label: 'half-time feel' })
+      .expect(200);
+    expect(patched.body).toMatchObject({
+      correctedBpm: 75,
+      originalBpm: 75,
+      beatOffsetSec: 0.12,
+      label: 'half-time feel',
+    });
     const bad = await owner.agent.patch(`/api/recordings/${id}`).send({ correctedBpm: 900 });
     expect(bad.status).toBe(400);
     expect(bad.body.error.field).toBe('correctedBpm');
@@ -175,16 +212,27 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
     await waitForAnalysis(owner.agent, id);
     await owner.agent.post(`/api/recordings/${id}/retry`).expect(409);
     // Fail it as a worker would have (the engine does not fail on a valid file).
-    await query(server.db, "UPDATE analysis_jobs SET status = 'failed', lastError = 'test' WHERE recordingId = ?", [id]);
-    await query(server.db, "UPDATE recordings SET status = 'failed', error = 'analysis failed: test' WHERE id = ?", [id]);
-    expect((await owner.agent.get(`/api/recordings/${id}`)).body).toMatchObject({ status: 'failed', error: 'analysis failed: test' });
+    await query(server.db, "UPDATE analysis_jobs SET status = 'failed', lastError = 'test' WHERE recordingId = ?", [
+      id,
+    ]);
+    await query(server.db, "UPDATE recordings SET status = 'failed', error = 'analysis failed: test' WHERE id = ?", [
+      id,
+    ]);
+    expect((await owner.agent.get(`/api/recordings/${id}`)).body).toMatchObject({
+      status: 'failed',
+      error: 'analysis failed: test',
+    });
     await owner.agent.post(`/api/recordings/${id}/retry`).expect(202);
     const again = await waitForAnalysis(owner.agent, id);
     expect(again.status).toBe('done');
     expect(again.error).toBeNull();
   });
 
-  const keyOf = async (id: string) => String((await query<{ storageKey: string }>(server.db, 'SELECT storageKey FROM recordings WHERE id = ?', [id]))[0]!.storageKey);
+  const keyOf = async (id: string) =>
+    String(
+      (await query<{ storageKey: string }>(server.db, 'SELECT storageKey FROM recordings WHERE id = ?', [id]))[0]!
+        .storageKey,
+    );
 
   test('deleting a recording removes its file and rows', async () => {
     const id = (await upload(clip('waltz-150.ogg'), 'w.ogg').expect(201)).body.id;
@@ -202,14 +250,35 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
     const keys: string[] = [];
     const ids: string[] = [];
     for (const f of ['waltz-150.mp3', 'waltz-150.wav']) {
-      const id = (await owner.agent.post(`/api/songs/${other}/recordings`).field('kind', 'take').attach('file', clip(f), f).expect(201)).body.id;
+      const id = (
+        await owner.agent
+          .post(`/api/songs/${other}/recordings`)
+          .field('kind', 'take')
+          .attach('file', clip(f), f)
+          .expect(201)
+      ).body.id;
       ids.push(id);
       keys.push(await keyOf(id));
     }
     await waitForAnalysis(owner.agent, ids[0]!);
     await owner.agent.post(`/api/songs/${other}/candidates`).send({ bpm: 150 }).expect(201);
-    await owner.agent.post(`/api/songs/${other}/passages`).send({ recordingId: ids[0], name: 'first bars', startSec: 0, endSec: 2 }).expect(201);
-    await owner.agent.post(`/api/songs/${other}/practice`).send({ recordingId: ids[0], startSec: 0, endSec: 2, startBpm: 140, reachedBpm: 150, repetitions: 3, minutes: 5, clean: true }).expect(201);
+    await owner.agent
+      .post(`/api/songs/${other}/passages`)
+      .send({ recordingId: ids[0], name: 'first bars', startSec: 0, endSec: 2 })
+      .expect(201);
+    await owner.agent
+      .post(`/api/songs/${other}/practice`)
+      .send({
+        recordingId: ids[0],
+        startSec: 0,
+        endSec: 2,
+        startBpm: 140,
+        reachedBpm: 150,
+        repetitions: 3,
+        minutes: 5,
+        clean: true,
+      })
+      .expect(201);
     expect(await storedFiles(server)).toEqual(expect.arrayContaining(keys));
     await owner.agent.delete(`/api/songs/${other}`).expect(204);
     expect(await rowsFor(server, other)).toBe(0);
@@ -228,11 +297,20 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
     const mp3 = clip('waltz-150.mp3');
     // A WAV whose header still promises 12 s of data, cut to a third of that.
     const shortWav = wav.subarray(0, 44 + Math.floor((wav.length - 44) / 3));
-    const oversize = Buffer.concat([wav, Buffer.alloc(Number(process.env.TACTUS_TEST_MAX_UPLOAD) + 1024 * 1024 - wav.length)]);
+    const oversize = Buffer.concat([
+      wav,
+      Buffer.alloc(Number(process.env.TACTUS_TEST_MAX_UPLOAD) + 1024 * 1024 - wav.length),
+    ]);
     const cases: [string, () => Buffer, string, string, number[]][] = [
       ['a zero-length file', () => Buffer.alloc(0), 'empty.mp3', 'take', [400]],
       ['a truncated MP3', () => mp3.subarray(0, Math.floor(mp3.length * 0.4)), 'cut.mp3', 'take', [400]],
-      ['a PNG renamed .mp3', () => fs.readFileSync(path.resolve(__dirname, '../../assets/favicon.png')), 'cover.mp3', 'take', [415]],
+      [
+        'a PNG renamed .mp3',
+        () => fs.readFileSync(path.resolve(__dirname, '../../assets/favicon.png')),
+        'cover.mp3',
+        'take',
+        [415],
+      ],
       ['random bytes', () => crypto.randomBytes(200_000), 'noise.wav', 'take', [415]],
       ['a WAV whose header claims more data than it has', () => shortWav, 'short.wav', 'take', [400]],
       ['an oversize file', () => oversize, 'huge.wav', 'take', [413]],

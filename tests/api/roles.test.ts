@@ -38,7 +38,12 @@ describe('roles', () => {
     const res = await request(baseUrl)
       .post('/api/auth/sign-up/email')
       .set('Origin', baseUrl)
-      .send({ name: 'Sneaky', email: `sneaky-${Date.now()}@players.example`, password: 'metronome-at-96', role: 'admin' });
+      .send({
+        name: 'Sneaky',
+        email: `sneaky-${Date.now()}@players.example`,
+        password: 'metronome-at-96',
+        role: 'admin',
+      });
     // The role field is input: false in server/auth.ts: better-auth drops it and the default applies.
     expect(res.status).toBe(200);
     expect(res.body.user.role).toBe('player');

@@ -7,7 +7,8 @@ import { root } from '@/tests/setup/processes';
 
 let player: Awaited<ReturnType<typeof signedInUser>>;
 const clip = fs.readFileSync(path.join(root, 'fixtures/clips/drums-bass-124.mp3'));
-const song = async (title: string, chosenBpm?: number) => (await player.agent.post('/api/songs').send({ title, chosenBpm }).expect(201)).body.id as string;
+const song = async (title: string, chosenBpm?: number) =>
+  (await player.agent.post('/api/songs').send({ title, chosenBpm }).expect(201)).body.id as string;
 
 beforeAll(async () => {
   player = await signedInUser('setlists');
@@ -17,10 +18,21 @@ test('a set list keeps its order, shows each song’s click tempo and length, an
   const reel = await song('Copperline Reel', 124);
   const air = await song('Saltmarsh Air', 80);
   const noTempo = await song('New one');
-  const rec = (await player.agent.post(`/api/songs/${reel}/recordings`).field('kind', 'reference').attach('file', clip, 'r.mp3').expect(201)).body.id;
+  const rec = (
+    await player.agent
+      .post(`/api/songs/${reel}/recordings`)
+      .field('kind', 'reference')
+      .attach('file', clip, 'r.mp3')
+      .expect(201)
+  ).body.id;
   const beats = (await waitForAnalysis(player.agent, rec)).analysis.beatCount as number;
 
-  const list = (await player.agent.post('/api/set-lists').send({ name: 'Harbour Lane, Friday', songIds: [air, reel, noTempo] }).expect(201)).body;
+  const list = (
+    await player.agent
+      .post('/api/set-lists')
+      .send({ name: 'Harbour Lane, Friday', songIds: [air, reel, noTempo] })
+      .expect(201)
+  ).body;
   expect(list.songs.map((s: { title: string }) => s.title)).toEqual(['Saltmarsh Air', 'Copperline Reel', 'New one']);
   expect(list.songs.map((s: { chosenBpm: number | null }) => s.chosenBpm)).toEqual([80, 124, null]);
   // Only the reel has both a chosen tempo and measured beats: beats × 60 ÷ 124.
@@ -28,7 +40,12 @@ test('a set list keeps its order, shows each song’s click tempo and length, an
   expect(list.totalSec).toBeCloseTo((beats * 60) / 124, 6);
   expect(list.unknownDurations).toBe(2);
 
-  const reordered = (await player.agent.patch(`/api/set-lists/${list.id}`).send({ songIds: [reel, air] }).expect(200)).body;
+  const reordered = (
+    await player.agent
+      .patch(`/api/set-lists/${list.id}`)
+      .send({ songIds: [reel, air] })
+      .expect(200)
+  ).body;
   expect(reordered.songs.map((s: { songId: string }) => s.songId)).toEqual([reel, air]);
   expect((await player.agent.get('/api/set-lists').expect(200)).body.setLists[0].id).toBe(list.id);
 });
@@ -37,9 +54,28 @@ test('only one’s own songs, each once; another player sees nothing', async () 
   const mine = await song('Mine');
   const other = await signedInUser('setlists-other');
   const theirs = (await other.agent.post('/api/songs').send({ title: 'Theirs' }).expect(201)).body.id;
-  expect((await player.agent.post('/api/set-lists').send({ name: 'x', songIds: [mine, theirs] }).expect(400)).body.error.field).toBe('songIds');
-  expect((await player.agent.post('/api/set-lists').send({ name: 'x', songIds: [mine, mine] }).expect(400)).body.error.field).toBe('songIds');
-  const list = (await player.agent.post('/api/set-lists').send({ name: 'Solo', songIds: [mine] }).expect(201)).body;
+  expect(
+    (
+      await player.agent
+        .post('/api/set-lists')
+        .send({ name: 'x', songIds: [mine, theirs] })
+        .expect(400)
+    ).body.error.field,
+  ).toBe('songIds');
+  expect(
+    (
+      await player.agent
+        .post('/api/set-lists')
+        .send({ name: 'x', songIds: [mine, mine] })
+        .expect(400)
+    ).body.error.field,
+  ).toBe('songIds');
+  const list = (
+    await player.agent
+      .post('/api/set-lists')
+      .send({ name: 'Solo', songIds: [mine] })
+      .expect(201)
+  ).body;
   await other.agent.get(`/api/set-lists/${list.id}`).expect(404);
   await other.agent.patch(`/api/set-lists/${list.id}`).send({ name: 'mine now' }).expect(404);
   await other.agent.delete(`/api/set-lists/${list.id}`).expect(404);

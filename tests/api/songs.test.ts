@@ -11,7 +11,13 @@ describe('songs', () => {
       .post('/api/songs')
       .send({ title: 'Drift Ice Hornpipe', composer: 'Test Composer', meter: '4/4', goalBpm: 120, workingBpm: 92.5 })
       .expect(201);
-    expect(created.body).toMatchObject({ title: 'Drift Ice Hornpipe', goalBpm: 120, workingBpm: 92.5, chosenBpm: null, meter: '4/4' });
+    expect(created.body).toMatchObject({
+      title: 'Drift Ice Hornpipe',
+      goalBpm: 120,
+      workingBpm: 92.5,
+      chosenBpm: null,
+      meter: '4/4',
+    });
 
     const patched = await agent.patch(`/api/songs/${created.body.id}`).send({ workingBpm: 96 }).expect(200);
     expect(patched.body.workingBpm).toBe(96);

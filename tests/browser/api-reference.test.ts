@@ -29,9 +29,14 @@ test('the reference page shows every documented operation, served from this serv
   await page.locator('.opblock').first().waitFor();
 
   // swagger-ui draws one .opblock per operation, its method and path in .opblock-summary-method / -path.
-  const shown = await page.locator('.opblock-summary').evaluateAll((els) =>
-    els.map((el) => `${el.querySelector('.opblock-summary-method')?.textContent?.trim()} ${el.querySelector('.opblock-summary-path')?.getAttribute('data-path')}`),
-  );
+  const shown = await page
+    .locator('.opblock-summary')
+    .evaluateAll((els) =>
+      els.map(
+        (el) =>
+          `${el.querySelector('.opblock-summary-method')?.textContent?.trim()} ${el.querySelector('.opblock-summary-path')?.getAttribute('data-path')}`,
+      ),
+    );
   expect(shown.sort()).toEqual(documentedOperations(doc).sort());
   expect(await page.locator('.info .title').innerText()).toContain('Tactus API');
   await page.screenshot({ path: path.join(outputDir, 'api-reference.png') });

@@ -22,8 +22,16 @@ afterAll(async () => {
 
 async function songWithClip(label: string, title: string) {
   const player = await signedInUser(label);
-  const song = (await player.agent.post('/api/songs').send({ title, meter: '4/4', goalBpm: 124, workingBpm: 96 }).expect(201)).body;
-  const rec = (await player.agent.post(`/api/songs/${song.id}/recordings`).field('kind', 'reference').attach('file', CLIP, 'groove.wav').expect(201)).body;
+  const song = (
+    await player.agent.post('/api/songs').send({ title, meter: '4/4', goalBpm: 124, workingBpm: 96 }).expect(201)
+  ).body;
+  const rec = (
+    await player.agent
+      .post(`/api/songs/${song.id}/recordings`)
+      .field('kind', 'reference')
+      .attach('file', CLIP, 'groove.wav')
+      .expect(201)
+  ).body;
   expect((await waitForAnalysis(player.agent, rec.id)).status).toBe('done');
   return { player, song, rec };
 }
@@ -37,7 +45,10 @@ async function position(page: Page): Promise<number> {
 }
 
 const bpmShown = (page: Page, bpm: number) =>
-  page.getByTestId('playback-bpm').filter({ hasText: new RegExp(`^${bpm}(\\.0)? BPM$`) }).waitFor();
+  page
+    .getByTestId('playback-bpm')
+    .filter({ hasText: new RegExp(`^${bpm}(\\.0)? BPM$`) })
+    .waitFor();
 
 async function setExact(page: Page, bpm: number) {
   await page.getByTestId('exact-bpm').fill(String(bpm));
@@ -78,9 +89,17 @@ test('75 %, an exact BPM, three candidates hopped while playing, the chosen temp
   expect(candidates.map((c: { bpm: number }) => c.bpm)).toEqual([100, 110, 120]);
 
   // Hopping keeps the place: the position goes on from where it was rather than starting over.
-  await page.waitForFunction(() => /^0:0[1-9]/.test(document.querySelector('[data-testid="playback-position"]')?.textContent ?? ''), undefined, { timeout: 15_000 });
+  await page.waitForFunction(
+    () => /^0:0[1-9]/.test(document.querySelector('[data-testid="playback-position"]')?.textContent ?? ''),
+    undefined,
+    { timeout: 15_000 },
+  );
   let last = await position(page);
-  for (const [hop, bpm] of [[1, 100], [3, 120], [2, 110]] as const) {
+  for (const [hop, bpm] of [
+    [1, 100],
+    [3, 120],
+    [2, 110],
+  ] as const) {
     await page.getByTestId(`hop-${hop}`).click();
     await bpmShown(page, bpm);
     await page.waitForTimeout(300);
@@ -89,7 +108,11 @@ test('75 %, an exact BPM, three candidates hopped while playing, the chosen temp
     last = now;
   }
   // The stretch runs on the audio thread, in the AudioWorklet.
-  expect(await page.evaluate(() => (window as unknown as { tactusAudition: { stats: { engine: string } } }).tactusAudition.stats.engine)).toBe('audio-worklet');
+  expect(
+    await page.evaluate(
+      () => (window as unknown as { tactusAudition: { stats: { engine: string } } }).tactusAudition.stats.engine,
+    ),
+  ).toBe('audio-worklet');
   await page.screenshot({ path: path.join(outputDir, 'audition-phone.png') });
 
   // Rate 110, write a line on it, and mark it as the chosen tempo with a note.
@@ -147,7 +170,9 @@ test('on a wide screen: space, arrows and number keys; the recording and the loo
   await signInThroughApp(page, player.email, PASSWORD);
   await page.goto(`${baseUrl}/recordings/${rec.id}`);
   await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
-  await page.waitForFunction(() => document.querySelector('[data-testid="play"]')?.getAttribute('aria-disabled') !== 'true');
+  await page.waitForFunction(
+    () => document.querySelector('[data-testid="play"]')?.getAttribute('aria-disabled') !== 'true',
+  );
 
   await page.keyboard.press('1');
   await bpmShown(page, 93);
@@ -159,7 +184,10 @@ test('on a wide screen: space, arrows and number keys; the recording and the loo
   await page.keyboard.press('2');
   await bpmShown(page, 124);
   await page.keyboard.press('ArrowRight');
-  await page.getByTestId('playback-bar').filter({ hasText: /^[12]$/ }).waitFor();
+  await page
+    .getByTestId('playback-bar')
+    .filter({ hasText: /^[12]$/ })
+    .waitFor();
   expect(await position(page)).toBeGreaterThan(0);
   // With the count-in on, one bar of clicks comes first (4 beats at 124 BPM = 1.94 s): the place holds still.
   await page.getByTestId('count-in').click();
@@ -168,10 +196,16 @@ test('on a wide screen: space, arrows and number keys; the recording and the loo
   await page.getByTestId('play').filter({ hasText: 'Pause' }).waitFor();
   await page.waitForTimeout(1000);
   expect(await position(page)).toBeCloseTo(before, 1);
-  await page.waitForFunction((b) => {
-    const m = /^(\d+):(\d+\.\d)$/.exec(document.querySelector('[data-testid="playback-position"]')?.textContent ?? '');
-    return !!m && Number(m[1]) * 60 + Number(m[2]) > b + 0.3;
-  }, before, { timeout: 5000 });
+  await page.waitForFunction(
+    (b) => {
+      const m = /^(\d+):(\d+\.\d)$/.exec(
+        document.querySelector('[data-testid="playback-position"]')?.textContent ?? '',
+      );
+      return !!m && Number(m[1]) * 60 + Number(m[2]) > b + 0.3;
+    },
+    before,
+    { timeout: 5000 },
+  );
   await page.keyboard.press(' ');
   await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
   await page.screenshot({ path: path.join(outputDir, 'audition-desktop.png'), fullPage: true });
@@ -186,7 +220,10 @@ test('on a wide screen: space, arrows and number keys; the recording and the loo
   await page.keyboard.press('1');
   await bpmShown(page, 93);
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-export-'));
-  const probe = (file: string) => JSON.parse(execFileSync('ffprobe', ['-v', 'error', '-show_streams', '-show_format', '-of', 'json', file]).toString());
+  const probe = (file: string) =>
+    JSON.parse(
+      execFileSync('ffprobe', ['-v', 'error', '-show_streams', '-show_format', '-of', 'json', file]).toString(),
+    );
   const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-recording').click()]);
   expect(download.suggestedFilename()).toBe('Saltmarsh Strathspey - 93 BPM.wav');
   const whole = path.join(dir, 'whole.wav');
@@ -220,13 +257,23 @@ test('without an AudioWorklet (an insecure origin) the same engine runs in a Scr
   page.on('pageerror', (e) => errors.push(e.message));
   await signInThroughApp(page, player.email, PASSWORD);
   await page.goto(`${baseUrl}/recordings/${rec.id}`);
-  await page.waitForFunction(() => document.querySelector('[data-testid="play"]')?.getAttribute('aria-disabled') !== 'true');
+  await page.waitForFunction(
+    () => document.querySelector('[data-testid="play"]')?.getAttribute('aria-disabled') !== 'true',
+  );
   await page.getByTestId('play').click();
-  await page.waitForFunction(() => /^0:0[1-9]/.test(document.querySelector('[data-testid="playback-position"]')?.textContent ?? ''), undefined, { timeout: 15_000 });
+  await page.waitForFunction(
+    () => /^0:0[1-9]/.test(document.querySelector('[data-testid="playback-position"]')?.textContent ?? ''),
+    undefined,
+    { timeout: 15_000 },
+  );
   await page.getByRole('button', { name: '+1' }).click();
   await bpmShown(page, 125);
   await page.waitForTimeout(300);
-  const stats = await page.evaluate(() => (window as unknown as { tactusAudition: { stats: { engine: string; changeLatencies: number[] } } }).tactusAudition.stats);
+  const stats = await page.evaluate(
+    () =>
+      (window as unknown as { tactusAudition: { stats: { engine: string; changeLatencies: number[] } } }).tactusAudition
+        .stats,
+  );
   expect(stats.engine).toBe('script-processor');
   // Heard from the next 1024-frame block (23 ms at 44.1 kHz), give or take the block being played.
   expect(stats.changeLatencies).toHaveLength(1);
@@ -247,12 +294,17 @@ test('click-only mode: the plain metronome in 3/4 at a chosen tempo', async () =
   await page.getByTestId('metronome').getByRole('button', { name: '3/4' }).click();
   await page.getByTestId('metronome').getByRole('button', { name: 'Next metronome mark' }).click();
   // From 100 the next mark is 104 (common practice: the mechanical metronome's scale).
-  await page.getByTestId('metronome-bpm').filter({ hasText: /^104 BPM$/ }).waitFor();
+  await page
+    .getByTestId('metronome-bpm')
+    .filter({ hasText: /^104 BPM$/ })
+    .waitFor();
   await page.getByTestId('metronome-start').click();
   // A light follows the beat: three lights in 3/4.
   await page.getByTestId('beat-lit').waitFor();
   await page.waitForTimeout(2000);
-  const clicks = await page.evaluate(() => (window as unknown as { tactusMetronome: { clicks: number } }).tactusMetronome.clicks);
+  const clicks = await page.evaluate(
+    () => (window as unknown as { tactusMetronome: { clicks: number } }).tactusMetronome.clicks,
+  );
   // 2 s at 104 BPM is 3.5 beats, plus up to 0.12 s scheduled ahead.
   expect(clicks).toBeGreaterThanOrEqual(3);
   expect(clicks).toBeLessThanOrEqual(5);

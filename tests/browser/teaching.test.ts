@@ -20,7 +20,12 @@ function takeFile(): string {
   const accents = new Set(beats.map((_, i) => i).filter((i) => i % 4 === 0));
   const samples = clickTrack(beats, 60, RATE, accents);
   const wav = new WaveFile();
-  wav.fromScratch(1, RATE, '16', Int16Array.from(samples, (x) => Math.round(Math.max(-1, Math.min(1, x)) * 32767)));
+  wav.fromScratch(
+    1,
+    RATE,
+    '16',
+    Int16Array.from(samples, (x) => Math.round(Math.max(-1, Math.min(1, x)) * 32767)),
+  );
   const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-teaching-')), 'scales-take.wav');
   fs.writeFileSync(file, wav.toBuffer());
   return file;
@@ -40,7 +45,8 @@ const open = async (viewport: (typeof viewports)[number]) => {
   page.on('pageerror', (e) => errors.push(e.message));
   return { context, page, errors };
 };
-const shot = (page: Page, name: string) => page.screenshot({ path: path.join(outputDir, `${name}.png`), fullPage: true });
+const shot = (page: Page, name: string) =>
+  page.screenshot({ path: path.join(outputDir, `${name}.png`), fullPage: true });
 
 test('invite, sign up through the link, upload a take, notes at a moment and on bars, a reply each way', async () => {
   const [phone, desk] = [viewports[0], viewports[1]];
@@ -78,7 +84,9 @@ test('invite, sign up through the link, upload a take, notes at a moment and on 
   await s.page.getByText('You are now Test teach-ui’s student.').waitFor();
 
   // The student adds a song and uploads a take of it.
-  const song = await s.page.request.post(`${baseUrl}/api/songs`, { data: { title: 'Scales in Thirds', meter: '4/4', goalBpm: 132, workingBpm: 120 } });
+  const song = await s.page.request.post(`${baseUrl}/api/songs`, {
+    data: { title: 'Scales in Thirds', meter: '4/4', goalBpm: 132, workingBpm: 120 },
+  });
   const songId = (await song.json()).id as string;
   await s.page.goto(`${baseUrl}/songs/${songId}`);
   await s.page.getByTestId('file-input').setInputFiles(takeFile());
@@ -123,7 +131,12 @@ test('invite, sign up through the link, upload a take, notes at a moment and on 
   await t.page.getByTestId('note').filter({ hasText: 'bars 9–12' }).getByText('Will do, 100 it is.').waitFor();
   // Stored on the grid: at 120 BPM a bar lasts 2 s, so bars 9–12 run 16–24 s after bar 1 (±1 beat of grid error).
   const recordingId = recordingUrl.split('/').pop()!;
-  const stored = (await (await t.page.request.get(`${baseUrl}/api/recordings/${recordingId}/notes`)).json()).notes as { startBar: number | null; startSec: number | null; endSec: number | null; atSec: number | null }[];
+  const stored = (await (await t.page.request.get(`${baseUrl}/api/recordings/${recordingId}/notes`)).json()).notes as {
+    startBar: number | null;
+    startSec: number | null;
+    endSec: number | null;
+    atSec: number | null;
+  }[];
   const onBars = stored.find((n) => n.startBar === 9)!;
   const firstBar = onBars.startSec! - 16;
   expect(Math.abs(onBars.endSec! - onBars.startSec! - 8)).toBeLessThan(0.5);

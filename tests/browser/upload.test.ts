@@ -17,7 +17,12 @@ afterAll(async () => {
 describe.each(viewports)('upload at $name width', (viewport) => {
   test('pick a file, watch it upload and analyse, see the tempo and the waveform', async () => {
     const player = await signedInUser(`upload-ui-${viewport.name}`);
-    const song = (await player.agent.post('/api/songs').send({ title: 'Copperline Reel', meter: '4/4', goalBpm: 128, workingBpm: 110 }).expect(201)).body;
+    const song = (
+      await player.agent
+        .post('/api/songs')
+        .send({ title: 'Copperline Reel', meter: '4/4', goalBpm: 128, workingBpm: 110 })
+        .expect(201)
+    ).body;
 
     const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
     const page = await context.newPage();
@@ -30,14 +35,21 @@ describe.each(viewports)('upload at $name width', (viewport) => {
 
     // A slow uplink (about 150 kB/s), so the upload lasts long enough to be watched.
     const cdp = await context.newCDPSession(page);
-    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 150 * 1024 });
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 20,
+      downloadThroughput: -1,
+      uploadThroughput: 150 * 1024,
+    });
     await page.getByTestId('file-input').setInputFiles(CLIP);
     await page.getByText('drums-bass-124.mp3').waitFor();
     await page.getByTestId('recording-label').fill('Groove at home');
     await page.getByTestId('upload').click();
     await page.getByTestId('upload-progress').waitFor();
     // The bar moves while the bytes go out.
-    await page.waitForFunction(() => Number(document.querySelector('[data-testid="upload-progress"]')?.getAttribute('aria-valuenow') ?? 0) > 20);
+    await page.waitForFunction(
+      () => Number(document.querySelector('[data-testid="upload-progress"]')?.getAttribute('aria-valuenow') ?? 0) > 20,
+    );
     await page.screenshot({ path: path.join(outputDir, `upload-progress-${viewport.name}.png`) });
 
     await page.getByTestId('recording').waitFor({ timeout: 30_000 });

@@ -30,5 +30,11 @@ test('a valid song is handed over as numbers, with a comma accepted as the decim
   fireEvent.change(screen.getByLabelText('Working tempo (BPM)'), { target: { value: '92,5' } });
   fireEvent.click(screen.getByText('Save song'));
   await waitFor(() => expect(onSubmit).toHaveBeenCalledTimes(1));
-  expect(onSubmit).toHaveBeenCalledWith({ title: 'Harbour Jig', composer: null, meter: '6/8', goalBpm: 116, workingBpm: 92.5 });
+  expect(onSubmit).toHaveBeenCalledWith({
+    title: 'Harbour Jig',
+    composer: null,
+    meter: '6/8',
+    goalBpm: 116,
+    workingBpm: 92.5,
+  });
 });

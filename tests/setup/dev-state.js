@@ -27,8 +27,13 @@ async function devStateFingerprint(state, db) {
     const exists = await conn.query('SELECT 1 FROM information_schema.schemata WHERE schema_name = ?', [DEV_DATABASE]);
     if (!exists.length) print[DEV_DATABASE] = ['absent'];
     else {
-      const tables = await conn.query('SELECT table_name AS t FROM information_schema.tables WHERE table_schema = ? ORDER BY 1', [DEV_DATABASE]);
-      const sums = tables.length ? await conn.query(`CHECKSUM TABLE ${tables.map((r) => `${DEV_DATABASE}.\`${r.t}\``).join(', ')} EXTENDED`) : [];
+      const tables = await conn.query(
+        'SELECT table_name AS t FROM information_schema.tables WHERE table_schema = ? ORDER BY 1',
+        [DEV_DATABASE],
+      );
+      const sums = tables.length
+        ? await conn.query(`CHECKSUM TABLE ${tables.map((r) => `${DEV_DATABASE}.\`${r.t}\``).join(', ')} EXTENDED`)
+        : [];
       print[DEV_DATABASE] = sums.map((r) => `${r.Table} ${r.Checksum}`);
     }
   } finally {

@@ -30,7 +30,12 @@ module.exports = async function globalSetup() {
   }
   await conn.end();
 
-  const [port, smtpPort, s3Port, s3ServerPort] = [await freePort(), await freePort(), await freePort(), await freePort()];
+  const [port, smtpPort, s3Port, s3ServerPort] = [
+    await freePort(),
+    await freePort(),
+    await freePort(),
+    await freePort(),
+  ];
   const disk = path.join(state, 'test-disk');
   const s3 = path.join(state, 'test-s3');
   for (const dir of [disk, s3]) fs.rmSync(dir, { recursive: true, force: true });
@@ -93,7 +98,13 @@ module.exports = async function globalSetup() {
     const out = fs.openSync(path.join(state, 'logs', `test-${name}.log`), 'w');
     return spawnTs(script, childEnv, ['ignore', out, out]);
   };
-  globalThis.__tactusChildren = [start('server/mail/catcher-cli.ts', 'mail'), start('server/dev/fake-s3.ts', 'fake-s3')];
+  globalThis.__tactusChildren = [
+    start('server/mail/catcher-cli.ts', 'mail'),
+    start('server/dev/fake-s3.ts', 'fake-s3'),
+  ];
   globalThis.__tactusChildren.push(start('server/index.ts', 'server'), start('server/index.ts', 'server-s3', s3Env));
-  await Promise.all([waitForOk(`${env.TACTUS_PUBLIC_URL}/api/health`, 90_000), waitForOk(`${s3Env.TACTUS_PUBLIC_URL}/api/health`, 90_000)]);
+  await Promise.all([
+    waitForOk(`${env.TACTUS_PUBLIC_URL}/api/health`, 90_000),
+    waitForOk(`${s3Env.TACTUS_PUBLIC_URL}/api/health`, 90_000),
+  ]);
 };

@@ -10,4 +10,6 @@ for (const file of results.testResults) {
   }
 }
 for (const why of reasons) console.log(`skipped: ${why}`);
-console.log(`tests: ${results.numPassedTests} passed, ${results.numFailedTests} failed, ${results.numPendingTests} skipped`);
+console.log(
+  `tests: ${results.numPassedTests} passed, ${results.numFailedTests} failed, ${results.numPendingTests} skipped`,
+);

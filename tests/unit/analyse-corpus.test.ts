@@ -12,7 +12,6 @@ beforeAll(() => {
   truths = ensureCorpus(() => {});
 }, 900_000);
 
-
 test('every piece: tempo within 4 % (Accuracy1), beats within ±70 ms (F ≥ 0.85), meter, curve', async () => {
   expect(truths.length).toBeGreaterThanOrEqual(12);
   const failures: string[] = [];

@@ -12,13 +12,13 @@ import { describeWithReferenceData, REFERENCE_DATA } from '@/tests/reference-dat
 const MIDI = path.join(REFERENCE_DATA, 'groove-midi/1_funk-groove1_138_beat_4-4.mid');
 
 describeWithReferenceData('a human drummer from the Groove MIDI Dataset', () => {
-test('the drummer reads 138 BPM within 4 % (Accuracy1)', async () => {
-  const wav = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-groove-')), 'groove.wav');
-  renderMidi(MIDI, wav);
-  const { samples, sampleRate } = await decodeFile(wav);
-  expect(samples.length / sampleRate).toBeGreaterThan(27);
-  const a = analyse(samples, sampleRate);
-  expect(accuracy1(a.bpm!, 138)).toBe(true);
-  expect(a.meter).toBe('4/4');
-});
+  test('the drummer reads 138 BPM within 4 % (Accuracy1)', async () => {
+    const wav = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-groove-')), 'groove.wav');
+    renderMidi(MIDI, wav);
+    const { samples, sampleRate } = await decodeFile(wav);
+    expect(samples.length / sampleRate).toBeGreaterThan(27);
+    const a = analyse(samples, sampleRate);
+    expect(accuracy1(a.bpm!, 138)).toBe(true);
+    expect(a.meter).toBe('4/4');
+  });
 });

@@ -14,24 +14,27 @@ const hasRef = fs.existsSync(REF);
 /** Reported for ENGINE_VERSION 3 (cross-validated, all 70 clips). */
 const REPORTED = { accuracy1: 74.3, accuracy2: 94.3, beatF: 0.841 };
 
-(hasRef ? describe : describe.skip)('real recordings, cross-validated (skipped: ../shared/reference-data is not beside this clone)', () => {
-  let t: RealTotals;
-  beforeAll(async () => {
-    const clips = realClips();
-    const results = await oursCrossValidated(clips);
-    t = totals(clips.map((c, i) => scoreReal(c, results[i]!)));
-  }, 300_000);
+(hasRef ? describe : describe.skip)(
+  'real recordings, cross-validated (skipped: ../shared/reference-data is not beside this clone)',
+  () => {
+    let t: RealTotals;
+    beforeAll(async () => {
+      const clips = realClips();
+      const results = await oursCrossValidated(clips);
+      t = totals(clips.map((c, i) => scoreReal(c, results[i]!)));
+    }, 300_000);
 
-  test('every clip is scored', () => {
-    expect(t.clips).toBe(70);
-  });
-  test(`Accuracy1 at or above the reported ${REPORTED.accuracy1} %`, () => {
-    expect(t.accuracy1).toBeGreaterThanOrEqual(REPORTED.accuracy1);
-  });
-  test(`Accuracy2 at or above the reported ${REPORTED.accuracy2} %`, () => {
-    expect(t.accuracy2).toBeGreaterThanOrEqual(REPORTED.accuracy2);
-  });
-  test(`beat F-measure at or above the reported ${REPORTED.beatF}`, () => {
-    expect(t.beatF).toBeGreaterThanOrEqual(REPORTED.beatF);
-  });
-});
+    test('every clip is scored', () => {
+      expect(t.clips).toBe(70);
+    });
+    test(`Accuracy1 at or above the reported ${REPORTED.accuracy1} %`, () => {
+      expect(t.accuracy1).toBeGreaterThanOrEqual(REPORTED.accuracy1);
+    });
+    test(`Accuracy2 at or above the reported ${REPORTED.accuracy2} %`, () => {
+      expect(t.accuracy2).toBeGreaterThanOrEqual(REPORTED.accuracy2);
+    });
+    test(`beat F-measure at or above the reported ${REPORTED.beatF}`, () => {
+      expect(t.beatF).toBeGreaterThanOrEqual(REPORTED.beatF);
+    });
+  },
+);

@@ -43,7 +43,8 @@ describe('steady click tracks', () => {
     truth.forEach((t, i) => {
       if (!accents.has(i)) return;
       const start = Math.round(t * RATE);
-      for (let k = 0; k < 0.08 * RATE && start + k < clicks.length; k++) clicks[start + k]! += 0.6 * Math.exp(-k / (0.03 * RATE)) * Math.sin((2 * Math.PI * 70 * k) / RATE);
+      for (let k = 0; k < 0.08 * RATE && start + k < clicks.length; k++)
+        clicks[start + k]! += 0.6 * Math.exp(-k / (0.03 * RATE)) * Math.sin((2 * Math.PI * 70 * k) / RATE);
     });
     const a = analyse(clicks, RATE);
     expect(a.meter).toBe('3/4');
@@ -112,8 +113,14 @@ describe('metrical level', () => {
   // so the 140 BPM pulse has every other beat accented. Heard either way (a slow beat with off-beats, or a
   // fast one accented on one and three), so the engine must say so and offer both tempos.
   const fast = steadyBeats(140, 30);
-  const strong = clickTrack(fast.filter((_, i) => i % 2 === 0), 30);
-  const soft = clickTrack(fast.filter((_, i) => i % 2 === 1), 30);
+  const strong = clickTrack(
+    fast.filter((_, i) => i % 2 === 0),
+    30,
+  );
+  const soft = clickTrack(
+    fast.filter((_, i) => i % 2 === 1),
+    30,
+  );
   const both = strong.map((v, i) => v + 0.2 * soft[i]!);
 
   test('pulses at 70 and 140 BPM of about equal weight: flagged ambiguous, both tempos with their strengths', () => {

@@ -5,7 +5,9 @@ import { AnalysisSchema } from '@/shared/analysis';
 
 const root = path.resolve(__dirname, '../..');
 const run = (...args: string[]) =>
-  spawnSync(path.join(root, 'node_modules/.bin/tsx'), [path.join(root, 'server/cli/analyze.ts'), ...args], { encoding: 'utf8' });
+  spawnSync(path.join(root, 'node_modules/.bin/tsx'), [path.join(root, 'server/cli/analyze.ts'), ...args], {
+    encoding: 'utf8',
+  });
 
 test('--json prints one object with every field, for a committed clip', () => {
   const r = run(path.join(root, 'fixtures/clips/waltz-150.mp3'), '--json');

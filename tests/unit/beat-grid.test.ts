@@ -78,6 +78,7 @@ describe('on an analysed click track (clicks placed to the sample, tests/unit/si
   });
   test('double: the inserted beats sit halfway between the clicks within 5 ms', () => {
     const d = beatsAtLevel(analysed.beats, 'double', analysed.downbeats[0]!);
-    for (let i = 1; i < d.length - 1; i += 2) expect(Math.abs(d[i]! - (truth[(i - 1) / 2]! + truth[(i + 1) / 2]!) / 2)).toBeLessThan(0.005);
+    for (let i = 1; i < d.length - 1; i += 2)
+      expect(Math.abs(d[i]! - (truth[(i - 1) / 2]! + truth[(i + 1) / 2]!) / 2)).toBeLessThan(0.005);
   });
 });

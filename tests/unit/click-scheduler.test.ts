@@ -53,7 +53,9 @@ afterEach(() => jest.useRealTimers());
 test('a 120 BPM metronome: every beat handed over once, before it is due and at most the look-ahead early', () => {
   const { ctx, blips, destination } = fakeContext();
   const timeline = new MetronomeTimeline(0.05, 120, 4);
-  const s = new ClickScheduler(ctx as unknown as BaseAudioContext, destination, (from, until) => timeline.clicksBetween(from, until));
+  const s = new ClickScheduler(ctx as unknown as BaseAudioContext, destination, (from, until) =>
+    timeline.clicksBetween(from, until),
+  );
   s.start(0.05);
   runUntil(ctx, 2.2);
   s.stop();
@@ -69,7 +71,9 @@ test('a 120 BPM metronome: every beat handed over once, before it is due and at 
 test('the beat heard last is the one sounding; clicks not yet heard are taken back on a change', () => {
   const { ctx, blips, destination } = fakeContext();
   const timeline = new MetronomeTimeline(0, 120, 3);
-  const s = new ClickScheduler(ctx as unknown as BaseAudioContext, destination, (from, until) => timeline.clicksBetween(from, until));
+  const s = new ClickScheduler(ctx as unknown as BaseAudioContext, destination, (from, until) =>
+    timeline.clicksBetween(from, until),
+  );
   s.start(0);
   runUntil(ctx, 1.2);
   // Beats at 0, 0.5 and 1.0 s are heard by 1.2 s; in 3/4 the third is the bar's third beat (place 2).

@@ -32,14 +32,17 @@ describe('click scheduling', () => {
   test.each([
     ['3/4', 3],
     ['4/4', 4],
-  ])('the count-in before %s is one bar: %p clicks, the first accented, a beat apart, ending a beat before the start', (meter, n) => {
-    const clicks = countIn(5, beatsPerBar(meter), 90);
-    expect(clicks).toHaveLength(n);
-    expect(clicks[0]!.accent).toBe(true);
-    expect(clicks.slice(1).every((c) => !c.accent)).toBe(true);
-    expect(5 - clicks[n - 1]!.time).toBeCloseTo(60 / 90, 9);
-    expect(clicks[1]!.time - clicks[0]!.time).toBeCloseTo(60 / 90, 9);
-  });
+  ])(
+    'the count-in before %s is one bar: %p clicks, the first accented, a beat apart, ending a beat before the start',
+    (meter, n) => {
+      const clicks = countIn(5, beatsPerBar(meter), 90);
+      expect(clicks).toHaveLength(n);
+      expect(clicks[0]!.accent).toBe(true);
+      expect(clicks.slice(1).every((c) => !c.accent)).toBe(true);
+      expect(5 - clicks[n - 1]!.time).toBeCloseTo(60 / 90, 9);
+      expect(clicks[1]!.time - clicks[0]!.time).toBeCloseTo(60 / 90, 9);
+    },
+  );
 
   test('compound meters count in dotted beats (common practice): 6/8 → 2, 12/8 → 4; 7/8 stays 7', () => {
     expect(beatsPerBar('6/8')).toBe(2);
@@ -51,7 +54,9 @@ describe('click scheduling', () => {
   test('click-only mode is a plain metronome: 150 BPM in 3/4 clicks 0.4 s apart, accenting every third', () => {
     const clicks = new MetronomeTimeline(1, 150, 3).clicksBetween(0, 1 + 4.8 - 1e-6);
     expect(clicks).toHaveLength(12);
-    expect(clicks.filter((c) => c.accent).map((c) => c.time)).toEqual([1, 1 + 1.2, 1 + 2.4, 1 + 3.6].map((t) => expect.closeTo(t, 9)));
+    expect(clicks.filter((c) => c.accent).map((c) => c.time)).toEqual(
+      [1, 1 + 1.2, 1 + 2.4, 1 + 3.6].map((t) => expect.closeTo(t, 9)),
+    );
   });
 
   test('the metronome changes tempo from the next beat, scheduled in slices, dropping and doubling nothing', () => {

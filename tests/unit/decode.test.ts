@@ -8,7 +8,10 @@ import { decodeFile, NotAudioError } from '@/server/analysis/decode';
 import type { Truth } from '@/fixtures/pieces';
 
 const CLIPS = path.resolve(__dirname, '../../fixtures/clips');
-const clips = fs.readdirSync(CLIPS).filter((f) => f.endsWith('.truth.json')).map((f) => f.replace('.truth.json', ''));
+const clips = fs
+  .readdirSync(CLIPS)
+  .filter((f) => f.endsWith('.truth.json'))
+  .map((f) => f.replace('.truth.json', ''));
 const FORMATS = ['wav', 'mp3', 'ogg', 'flac', 'm4a'];
 
 describe.each(clips)('clip %s', (name) => {

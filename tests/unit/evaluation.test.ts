@@ -3,7 +3,15 @@
 // definitions of Accuracy1/2 in Gouyon et al. 2006 (IEEE TASLP 14(5), section III).
 import fs from 'node:fs';
 import path from 'node:path';
-import { accuracy1, accuracy2, beatFMeasure, beatPScore, matchEvents, tempoDetection, trimBeats } from '@/audio/analysis/evaluation';
+import {
+  accuracy1,
+  accuracy2,
+  beatFMeasure,
+  beatPScore,
+  matchEvents,
+  tempoDetection,
+  trimBeats,
+} from '@/audio/analysis/evaluation';
 import { describeWithReferenceData, REFERENCE_DATA as REF } from '@/tests/reference-data';
 
 const numbers = (file: string) =>
@@ -13,17 +21,20 @@ const numbers = (file: string) =>
     .filter((l) => l.trim() && !l.trim().startsWith('#'))
     .flatMap((l) => l.trim().split(/\s+/).map(Number));
 
-describeWithReferenceData('beat measures against mir_eval test vectors (craffel/mir_eval tests/data/beat, via ../shared)', () => {
-  test.each(['00', '01', '02', '03'])('pair %s', (id) => {
-    const dir = path.join(REF, 'mir_eval-beat');
-    const expected = JSON.parse(fs.readFileSync(path.join(dir, `output${id}.json`), 'utf8'));
-    // mir_eval.beat.evaluate trims beats before 5 s from both lists before scoring.
-    const ref = trimBeats(numbers(path.join(dir, `ref${id}.txt`)));
-    const est = trimBeats(numbers(path.join(dir, `est${id}.txt`)));
-    expect(beatFMeasure(ref, est)).toBeCloseTo(expected['F-measure'], 10);
-    expect(beatPScore(ref, est)).toBeCloseTo(expected['P-score'], 10);
-  });
-});
+describeWithReferenceData(
+  'beat measures against mir_eval test vectors (craffel/mir_eval tests/data/beat, via ../shared)',
+  () => {
+    test.each(['00', '01', '02', '03'])('pair %s', (id) => {
+      const dir = path.join(REF, 'mir_eval-beat');
+      const expected = JSON.parse(fs.readFileSync(path.join(dir, `output${id}.json`), 'utf8'));
+      // mir_eval.beat.evaluate trims beats before 5 s from both lists before scoring.
+      const ref = trimBeats(numbers(path.join(dir, `ref${id}.txt`)));
+      const est = trimBeats(numbers(path.join(dir, `est${id}.txt`)));
+      expect(beatFMeasure(ref, est)).toBeCloseTo(expected['F-measure'], 10);
+      expect(beatPScore(ref, est)).toBeCloseTo(expected['P-score'], 10);
+    });
+  },
+);
 
 describeWithReferenceData('tempo detection against mir_eval test vectors (tests/data/tempo, via ../shared)', () => {
   const dir = path.join(REF, 'mir_eval-tempo');

@@ -15,7 +15,8 @@ function write(name: string, bytes: Uint8Array) {
   fs.writeFileSync(file, bytes);
   return file;
 }
-const probe = (file: string) => JSON.parse(execFileSync('ffprobe', ['-v', 'error', '-show_streams', '-show_format', '-of', 'json', file]).toString());
+const probe = (file: string) =>
+  JSON.parse(execFileSync('ffprobe', ['-v', 'error', '-show_streams', '-show_format', '-of', 'json', file]).toString());
 /** Interleaved 16-bit samples as FFmpeg decodes them. */
 const samples = (file: string) => {
   const raw = execFileSync('ffmpeg', ['-v', 'error', '-i', file, '-f', 's16le', '-c:a', 'pcm_s16le', '-']);

@@ -1,7 +1,17 @@
 // How numbers read on screen. Worked examples by hand; the notations are common practice: durations as
 // minutes:seconds (m:ss, as players and track lists show them), tempos in BPM to a tenth at most, and English
 // count nouns singular for exactly one ("1 repetition"), plural otherwise, zero included ("0 repetitions").
-import { formatBpm, formatClock, formatDate, formatDateTime, formatDuration, parseClock, plural, tenth, whose } from '@/shared/format';
+import {
+  formatBpm,
+  formatClock,
+  formatDate,
+  formatDateTime,
+  formatDuration,
+  parseClock,
+  plural,
+  tenth,
+  whose,
+} from '@/shared/format';
 
 describe('tenth', () => {
   test('rounds to one decimal place', () => {

@@ -56,11 +56,14 @@ test('a tempo change is applied in the very next block, keeps the pitch, and joi
   // The musical position carries on: one second in at 1× is one second of the recording.
   expect(seg.from).toBeCloseTo(seg.at, 6);
   const changeFrame = Math.round(seg.at * SR);
-  expect(Math.abs(zeroCrossingFrequency(left, SR, changeFrame + 4000, left.length - 2000) - 440) / 440).toBeLessThan(0.01);
+  expect(Math.abs(zeroCrossingFrequency(left, SR, changeFrame + 4000, left.length - 2000) - 440) / 440).toBeLessThan(
+    0.01,
+  );
   // No jump between samples at the join larger than the tone's own largest step (0.5 × 2π × 440 / SR ≈ 0.031).
   const ownStep = 0.5 * ((2 * Math.PI * 440) / SR);
   let joinJump = 0;
-  for (let i = changeFrame - 512; i < changeFrame + 1024; i++) joinJump = Math.max(joinJump, Math.abs(left[i]! - left[i - 1]!));
+  for (let i = changeFrame - 512; i < changeFrame + 1024; i++)
+    joinJump = Math.max(joinJump, Math.abs(left[i]! - left[i - 1]!));
   expect(joinJump).toBeLessThan(ownStep * 1.2);
 });
 
@@ -80,7 +83,10 @@ test("across tempo changes the music's attacks meet the click, which follows the
   for (const e of events) if (e.segment) mirror.addSegment(e.segment);
   expect(events.filter((e) => e.segment)).toHaveLength(2);
   // Where the player puts each click: the hit's place on the timeline, moved by the stretch's known offset.
-  const clicks = hits.map((t) => mirror.contextTime(t)!).map((t) => t + heardOffsetSec(mirror.speedAt(t))).filter((t) => t > 0.2 && t < 10.8);
+  const clicks = hits
+    .map((t) => mirror.contextTime(t)!)
+    .map((t) => t + heardOffsetSec(mirror.speedAt(t)))
+    .filter((t) => t > 0.2 && t < 10.8);
   const heard = attackTimes(left, SR);
   const errors = clicks.map((c) => Math.min(...heard.map((h) => Math.abs(h - c))));
   expect(clicks.length).toBeGreaterThan(20);

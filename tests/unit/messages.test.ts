@@ -22,7 +22,9 @@ test('a missing required field says so, and a schema’s own message wins over t
 });
 
 test('an e-mail address that is not one gets an example, not the field name twice', () => {
-  expect(problems(InviteStudentSchema, { email: 'ilya at example' }).email).toBe('enter an e-mail address such as name@example.com');
+  expect(problems(InviteStudentSchema, { email: 'ilya at example' }).email).toBe(
+    'enter an e-mail address such as name@example.com',
+  );
 });
 
 test('unexpected fields are named; whole numbers are asked for where a count is expected', () => {
@@ -32,7 +34,11 @@ test('unexpected fields are named; whole numbers are asked for where a count is 
 });
 
 test('an API answer "field: message" reads with the field as the screen names it', () => {
-  expect(plainProblem('email: enter an e-mail address such as name@example.com', 'email')).toBe('E-mail: enter an e-mail address such as name@example.com');
-  expect(plainProblem('goalBpm: tempo must be at most 300 BPM', 'goalBpm')).toBe('Goal tempo: tempo must be at most 300 BPM');
+  expect(plainProblem('email: enter an e-mail address such as name@example.com', 'email')).toBe(
+    'E-mail: enter an e-mail address such as name@example.com',
+  );
+  expect(plainProblem('goalBpm: tempo must be at most 300 BPM', 'goalBpm')).toBe(
+    'Goal tempo: tempo must be at most 300 BPM',
+  );
   expect(plainProblem('the waveform is not ready yet')).toBe('the waveform is not ready yet');
 });

@@ -1,5 +1,12 @@
 // Metronome marks and tempo-marking guides.
-import { METRONOME_MARKS, markingsFor, nearestMark, nextMarkDown, nextMarkUp, TEMPO_MARKINGS } from '@/audio/practice/metronome';
+import {
+  METRONOME_MARKS,
+  markingsFor,
+  nearestMark,
+  nextMarkDown,
+  nextMarkUp,
+  TEMPO_MARKINGS,
+} from '@/audio/practice/metronome';
 
 describe('the mechanical metronome scale (as engraved on Maelzel-pattern metronomes; from memory)', () => {
   test('runs from 40 to 208 in 39 marks with the traditional steps', () => {
@@ -8,7 +15,13 @@ describe('the mechanical metronome scale (as engraved on Maelzel-pattern metrono
     expect(METRONOME_MARKS).toHaveLength(39);
     const steps = METRONOME_MARKS.slice(1).map((m, i) => m - METRONOME_MARKS[i]!);
     // 2 up to 60, 3 to 72, 4 to 120, 6 to 144, 8 to 208.
-    expect(steps).toEqual([...Array(10).fill(2), ...Array(4).fill(3), ...Array(12).fill(4), ...Array(4).fill(6), ...Array(8).fill(8)]);
+    expect(steps).toEqual([
+      ...Array(10).fill(2),
+      ...Array(4).fill(3),
+      ...Array(12).fill(4),
+      ...Array(4).fill(6),
+      ...Array(8).fill(8),
+    ]);
   });
 
   test.each([
@@ -43,4 +56,3 @@ describe('tempo markings are overlapping guides', () => {
     for (const m of TEMPO_MARKINGS) expect(m.lowBpm).toBeLessThan(m.highBpm);
   });
 });
-

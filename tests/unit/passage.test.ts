@@ -1,6 +1,17 @@
 // Passages on the beat grid and looping on a straight timeline; on grids whose truth is
 // exact by construction (a steady 120 BPM in 4/4 with a one-beat pickup).
-import { barAt, barContaining, barsToRegion, beatInBar, beatsBetween, describePassage, loopPass, skipBar, snapPassage, wrapIntoLoop } from '@/audio/practice/passage';
+import {
+  barAt,
+  barContaining,
+  barsToRegion,
+  beatInBar,
+  beatsBetween,
+  describePassage,
+  loopPass,
+  skipBar,
+  snapPassage,
+  wrapIntoLoop,
+} from '@/audio/practice/passage';
 import { clicksBetween, PlaybackMap } from '@/audio/playback/click';
 import { loopedSource } from '@/audio/playback/stretch';
 
@@ -75,7 +86,20 @@ describe('looping on a straight timeline', () => {
     const map = new PlaybackMap(10, 3, 0.8);
     const clicks = clicksBetween(map, beats, downbeats, 10, 10 + (3 * 2) / 0.8, loop);
     expect(clicks).toHaveLength(12);
-    expect(clicks.map((c) => c.accent)).toEqual([true, false, false, false, true, false, false, false, true, false, false, false]);
+    expect(clicks.map((c) => c.accent)).toEqual([
+      true,
+      false,
+      false,
+      false,
+      true,
+      false,
+      false,
+      false,
+      true,
+      false,
+      false,
+      false,
+    ]);
     for (let i = 1; i < clicks.length; i++) expect(clicks[i]!.time - clicks[i - 1]!.time).toBeCloseTo(0.5 / 0.8, 6);
     // Every click lands on a grid beat once folded back into the loop.
     for (const c of clicks) expect(wrapIntoLoop(map.recordingTime(c.time), loop)).toBeCloseTo(beats[c.beat]!, 6);
@@ -92,10 +116,11 @@ describe('looping on a straight timeline', () => {
     const out = new Float32Array(2 * 25);
     src.extract(out, 25, 25);
     const got = Array.from({ length: 25 }, (_, i) => out[2 * i]);
-    expect(got).toEqual([25, 26, 27, 28, 29, 20, 21, 22, 23, 24, 25, 26, 27, 28, 29, 20, 21, 22, 23, 24, 25, 26, 27, 28, 29]);
+    expect(got).toEqual([
+      25, 26, 27, 28, 29, 20, 21, 22, 23, 24, 25, 26, 27, 28, 29, 20, 21, 22, 23, 24, 25, 26, 27, 28, 29,
+    ]);
   });
 });
-
 
 describe('bars as a region of the recording', () => {
   // The grid above: bar 1 starts at 1.0 s and bars are 2 s long (10 downbeats, the last at 19.0 s).

@@ -4,7 +4,12 @@
 export const RATE = 11025;
 
 /** A short decaying 1 kHz burst (a metronome-like click) at each time, accent louder. */
-export function clickTrack(times: number[], durationSec: number, rate = RATE, accents: Set<number> = new Set()): Float32Array {
+export function clickTrack(
+  times: number[],
+  durationSec: number,
+  rate = RATE,
+  accents: Set<number> = new Set(),
+): Float32Array {
   const out = new Float32Array(Math.round(durationSec * rate));
   const len = Math.round(0.03 * rate);
   times.forEach((t, idx) => {
@@ -37,7 +42,8 @@ export function rampBeats(from: number, to: number, durationSec: number, start =
   return beats;
 }
 
-export const tempoAt = (from: number, to: number, durationSec: number, t: number) => from + ((to - from) * t) / durationSec;
+export const tempoAt = (from: number, to: number, durationSec: number, t: number) =>
+  from + ((to - from) * t) / durationSec;
 
 /** A sustained chord (A minor, three partials each) with one attack: no pulse to find. */
 export function singleChord(durationSec: number, rate = RATE): Float32Array {
@@ -61,10 +67,15 @@ export function hitsOverBed(seconds: number, rate: number, uneven = false): { x:
   const x = new Float32Array(seconds * rate);
   let seed = 7;
   const noise = () => ((seed = (seed * 16807) % 2147483647) / 2147483647) * 2 - 1;
-  for (let i = 0; i < x.length; i++) x[i] = 0.04 * Math.sin((2 * Math.PI * 220 * i) / rate) + 0.03 * Math.sin((2 * Math.PI * 331 * i) / rate) + 0.01 * noise();
+  for (let i = 0; i < x.length; i++)
+    x[i] =
+      0.04 * Math.sin((2 * Math.PI * 220 * i) / rate) +
+      0.03 * Math.sin((2 * Math.PI * 331 * i) / rate) +
+      0.01 * noise();
   const hits = Array.from({ length: seconds * 2 - 4 }, (_, k) => 0.5 + k * 0.5 + (uneven ? (k % 3) * 0.013 : 0));
   for (const t of hits) {
-    for (let i = 0, j = Math.round(t * rate); i < 0.08 * rate; i++, j++) x[j] = x[j]! + 0.8 * Math.exp(-i / (0.015 * rate)) * Math.sin((2 * Math.PI * 900 * i) / rate);
+    for (let i = 0, j = Math.round(t * rate); i < 0.08 * rate; i++, j++)
+      x[j] = x[j]! + 0.8 * Math.exp(-i / (0.015 * rate)) * Math.sin((2 * Math.PI * 900 * i) / rate);
   }
   return { x, hits };
 }

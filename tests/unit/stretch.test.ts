@@ -38,4 +38,3 @@ test.each([0.5, 0.7, 0.85, 1.15, 1.5, 2.0])('a 55 Hz bass tone (A1) keeps its pi
   const out = stretchOffline({ left: input, right: input }, ratio);
   expect(Math.abs(frequency(out.left, 4000) / 55 - 1)).toBeLessThan(0.02);
 });
-

@@ -23,7 +23,12 @@ export default function RecordingScreen() {
   const peaks = usePeaks(id, r?.status === 'done');
   const { song } = useSong(r?.songId);
   const { me } = useMe();
-  if (error) return <Screen><Notice tone="error">This recording could not be opened: {error.message}</Notice></Screen>;
+  if (error)
+    return (
+      <Screen>
+        <Notice tone="error">This recording could not be opened: {error.message}</Notice>
+      </Screen>
+    );
   if (!r) return <Loading />;
   const a = r.analysis;
   // The tempo at the level the player feels (half or double of the one found or corrected).
@@ -31,13 +36,14 @@ export default function RecordingScreen() {
 
   return (
     <Screen testID="recording" wide>
-      <ScreenTitle title={[r.label || r.originalName || "Recording", song?.title].filter(Boolean).join(" · ")} />
+      <ScreenTitle title={[r.label || r.originalName || 'Recording', song?.title].filter(Boolean).join(' · ')} />
       <Button label="‹ Song" kind="quiet" onPress={() => router.navigate(`/songs/${r.songId}`)} />
       <View style={{ gap: space.xs }}>
         <Heading>{r.label || r.originalName || 'Recording'}</Heading>
         <Small>
           {whose(r.kind === 'take' ? 'take' : 'reference', { id: r.ownerId, name: r.ownerName }, me?.id)}
-          {r.uploadedBy ? ` (added by ${r.uploadedBy.name})` : ''} · {r.format.toUpperCase()} · {formatDuration(r.durationSec)}
+          {r.uploadedBy ? ` (added by ${r.uploadedBy.name})` : ''} · {r.format.toUpperCase()} ·{' '}
+          {formatDuration(r.durationSec)}
         </Small>
       </View>
 
@@ -58,23 +64,43 @@ export default function RecordingScreen() {
       {r.status === 'done' && a ? (
         <>
           <Card testID="tempo-result">
-            <Small>{r.correctedBpm !== null || r.beatLevel !== 'as-found' ? 'Tempo (the beat you feel)' : 'Detected tempo'}</Small>
+            <Small>
+              {r.correctedBpm !== null || r.beatLevel !== 'as-found' ? 'Tempo (the beat you feel)' : 'Detected tempo'}
+            </Small>
             <Text style={[type.tempo, { color: colors.amber }]} testID="detected-bpm">
               {bpm === null ? 'No steady beat' : formatBpm(tenth(bpm))}
               {bpm === null ? null : <Text style={[type.h3, { color: colors.muted }]}> BPM</Text>}
             </Text>
             <Small>
-              Confidence {Math.round(a.confidence * 100)} % · {a.meter ?? 'meter unclear'} · {plural(a.beatCount, 'beat')}
-              {a.startBpm !== null && a.endBpm !== null ? ` · starts ${formatBpm(Math.round(a.startBpm))}, ends ${formatBpm(Math.round(a.endBpm))}` : ''}
+              Confidence {Math.round(a.confidence * 100)} % · {a.meter ?? 'meter unclear'} ·{' '}
+              {plural(a.beatCount, 'beat')}
+              {a.startBpm !== null && a.endBpm !== null
+                ? ` · starts ${formatBpm(Math.round(a.startBpm))}, ends ${formatBpm(Math.round(a.endBpm))}`
+                : ''}
             </Small>
-            {a.confidence < 0.4 ? <Notice tone="caution">Tactus is not sure about this one: check it by tapping along.</Notice> : null}
+            {a.confidence < 0.4 ? (
+              <Notice tone="caution">Tactus is not sure about this one: check it by tapping along.</Notice>
+            ) : null}
           </Card>
           {bpm !== null ? (
             // A new grid (tempo, level, bar 1, nudge) makes a new player with it.
-            <AuditionPanel key={`${r.id}-${bpm}-${r.barOneSec}-${r.nudgeMs}`} recording={r} song={song} peaks={peaks} canEdit={r.permissions.edit} audioUrl={`${apiBase}/api/recordings/${r.id}/audio`} />
+            <AuditionPanel
+              key={`${r.id}-${bpm}-${r.barOneSec}-${r.nudgeMs}`}
+              recording={r}
+              song={song}
+              peaks={peaks}
+              canEdit={r.permissions.edit}
+              audioUrl={`${apiBase}/api/recordings/${r.id}/audio`}
+            />
           ) : peaks ? (
             <Card>
-              <Waveform minMax={peaks.minMax} durationSec={peaks.durationSec} beats={a.beats} downbeats={a.downbeats} testID="waveform" />
+              <Waveform
+                minMax={peaks.minMax}
+                durationSec={peaks.durationSec}
+                beats={a.beats}
+                downbeats={a.downbeats}
+                testID="waveform"
+              />
             </Card>
           ) : null}
           <Card testID="tempo-curve-card">

@@ -20,7 +20,12 @@ export default function SongScreen() {
   const { recordings } = useRecordings(id);
   const { me } = useMe();
   const { candidates } = useCandidates(id);
-  if (error) return <Screen><Notice tone="error">This song could not be opened: {error.message}</Notice></Screen>;
+  if (error)
+    return (
+      <Screen>
+        <Notice tone="error">This song could not be opened: {error.message}</Notice>
+      </Screen>
+    );
   if (!song) return <Loading />;
   return (
     <Screen testID="song">
@@ -28,17 +33,27 @@ export default function SongScreen() {
       <Button label="‹ Library" kind="quiet" onPress={() => router.navigate('/')} />
       <View style={{ gap: space.xs }}>
         <Heading>{song.title}</Heading>
-        <Small>{[song.ownerId === me?.id ? null : whose('song', { id: song.ownerId, name: song.ownerName }, me?.id), song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
+        <Small>
+          {[
+            song.ownerId === me?.id ? null : whose('song', { id: song.ownerId, name: song.ownerName }, me?.id),
+            song.composer,
+            song.meter,
+          ]
+            .filter(Boolean)
+            .join(' · ')}
+        </Small>
       </View>
       <SongTempos working={song.workingBpm} goal={song.goalBpm} chosen={song.chosenBpm} />
       <TemposSetBy song={song} meId={me?.id} />
       {song.permissions.setTempos ? <SetTempos key={`${song.workingBpm}-${song.goalBpm}`} song={song} /> : null}
-      {song.permissions.edit ? <EditOrDeleteSong song={song} recordingCount={recordings?.length ?? 0} onDeleted={() => router.replace('/')} /> : null}
+      {song.permissions.edit ? (
+        <EditOrDeleteSong song={song} recordingCount={recordings?.length ?? 0} onDeleted={() => router.replace('/')} />
+      ) : null}
       <Heading level={2}>Recordings</Heading>
       {recordings && recordings.length === 0 ? (
         <EmptyState title="No recordings yet">
-          Add a reference you are learning from, or a take of your own. Tactus finds its tempo and beats, so you can hear it at
-          other tempos with a click.
+          Add a reference you are learning from, or a take of your own. Tactus finds its tempo and beats, so you can
+          hear it at other tempos with a click.
         </EmptyState>
       ) : null}
       {recordings?.map((r) => (
@@ -48,7 +63,11 @@ export default function SongScreen() {
         </View>
       ))}
       {song.permissions.addReference ? (
-        <UploadPanel songId={song.id} takes={song.permissions.addTake} onUploaded={(r) => router.navigate(`/recordings/${r.id}`)} />
+        <UploadPanel
+          songId={song.id}
+          takes={song.permissions.addTake}
+          onUploaded={(r) => router.navigate(`/recordings/${r.id}`)}
+        />
       ) : null}
       <DurationPlanner song={song} recordings={recordings ?? []} candidateBpms={candidates?.map((c) => c.bpm) ?? []} />
       {song.notes ? <Body muted>{song.notes}</Body> : null}
