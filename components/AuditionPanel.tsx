@@ -13,6 +13,7 @@ import {
   CandidatesCard,
   CompactTransportBar,
   LevelsAndExport,
+  NotesCard,
   PassagesCard,
   PlayerCard,
 } from '@/components/audition/AuditionCards';
@@ -44,6 +45,7 @@ export function AuditionPanel({
       <View style={{ flexDirection: 'row', gap: space.lg }}>
         <View style={{ flex: 3, gap: space.lg }}>
           {player}
+          <NotesCard s={s} recording={recording} />
           {beatFeel}
         </View>
         <View style={{ flex: 2, gap: space.lg }}>
@@ -57,6 +59,7 @@ export function AuditionPanel({
   return (
     <View style={{ gap: space.lg }}>
       {player}
+      <NotesCard s={s} recording={recording} />
       {passages}
       {candidates}
       {beatFeel}

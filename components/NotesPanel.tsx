@@ -127,7 +127,9 @@ function NoteThread({
         </View>
       ) : null}
       <Row>
-        {!replying ? <Button label="Reply" kind="quiet" onPress={() => setReplying(true)} testID="note-reply" /> : null}
+        {!replying ? (
+          <Button label="Reply" kind="quiet" onPress={() => setReplying(true)} testID="note-reply-open" />
+        ) : null}
         <Button
           label={n.resolved ? 'Reopen' : 'Mark resolved'}
           kind="quiet"

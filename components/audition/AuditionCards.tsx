@@ -6,6 +6,7 @@ import { Text, View } from 'react-native';
 import { Button, Card, Heading, Notice, Row, Small } from '@/components/ui';
 import { colors, space, type } from '@/components/theme';
 import { PracticeLog } from '@/components/PracticeLog';
+import { NotesPanel } from '@/components/NotesPanel';
 import { barContaining, snapPassage } from '@/audio/practice/passage';
 import { formatBpm } from '@/shared/format';
 import type { PeaksDto, Recording, Song } from '@/shared/schemas';
@@ -48,6 +49,7 @@ export function PlayerCard({
           getPosition={audition.getPosition}
           loop={audition.loop}
           passages={s.marked}
+          notes={s.noteMarks}
           onSeek={audition.seek}
           onSelect={(from, to) => {
             const p = snapPassage(grid, from, to, s.unit);
@@ -244,5 +246,16 @@ export function CompactTransportBar({ s }: { s: AuditionSession }) {
     >
       <Transport audition={s.audition} compact />
     </View>
+  );
+}
+
+/** The recording's notes, where tapping a note plays from its moment or loops its bars. */
+export function NotesCard({ s, recording }: { s: AuditionSession; recording: Recording }) {
+  return (
+    <NotesPanel
+      recording={recording}
+      onSeek={s.audition.seek}
+      onLoop={(start, end) => s.stepUp.changePassage({ start, end })}
+    />
   );
 }

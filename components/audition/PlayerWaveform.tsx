@@ -28,6 +28,16 @@ export interface MarkedRegion extends Passage {
   name: string;
 }
 
+/** A note on the recording: at a moment (`end` null) or on a stretch of it. */
+export interface NoteMark {
+  id: string;
+  start: number;
+  end: number | null;
+}
+
+/** Notes sit at the foot of both views in ink: a tick for a moment, a bar for a stretch. */
+const NOTE_MARK_HEIGHT = 6;
+
 export function PlayerWaveform({
   minMax,
   durationSec,
@@ -36,6 +46,7 @@ export function PlayerWaveform({
   getPosition,
   loop,
   passages,
+  notes = [],
   onSeek,
   onSelect,
 }: {
@@ -48,6 +59,8 @@ export function PlayerWaveform({
   loop: Passage | null;
   /** Saved passages of this recording, shown on the overview. */
   passages: MarkedRegion[];
+  /** Notes on this recording, marked on the overview and the detail view. */
+  notes?: NoteMark[];
   onSeek: (sec: number) => void;
   /** A passage marked or adjusted (unsnapped times; the screen snaps them). */
   onSelect: (from: number, to: number) => void;
@@ -258,6 +271,22 @@ export function PlayerWaveform({
                 }}
               />
             ))}
+            {notes.map((n) => (
+              <View
+                key={n.id}
+                pointerEvents="none"
+                testID="overview-note"
+                style={{
+                  position: 'absolute',
+                  bottom: 0,
+                  height: NOTE_MARK_HEIGHT,
+                  left: pct(n.start),
+                  width: n.end === null ? 3 : pct(n.end - n.start),
+                  minWidth: 3,
+                  backgroundColor: colors.ink,
+                }}
+              />
+            ))}
             {shown ? (
               <View
                 pointerEvents="none"
@@ -355,6 +384,23 @@ export function PlayerWaveform({
                   ) : null,
                 )
               : null}
+            {notes
+              .filter((n) => (n.end ?? n.start) >= from && n.start <= to)
+              .map((n) => (
+                <View
+                  key={n.id}
+                  pointerEvents="none"
+                  testID="detail-note"
+                  style={{
+                    position: 'absolute',
+                    bottom: 0,
+                    height: NOTE_MARK_HEIGHT,
+                    left: Math.max(0, xOf(n.start)) - (n.end === null ? 1.5 : 0),
+                    width: n.end === null ? 3 : Math.min(width, xOf(n.end)) - Math.max(0, xOf(n.start)),
+                    backgroundColor: colors.ink,
+                  }}
+                />
+              ))}
             <Playhead getPosition={getPosition} x={(p) => (p < from || p > to ? null : xOf(p))} top={LABEL_STRIP} />
           </View>
         </>

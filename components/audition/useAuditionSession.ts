@@ -2,7 +2,7 @@
 // player itself, the last loop kept across reloads, the song's saved passages on this recording, the step-up
 // run and its logging, keys, candidate tempos and export. AuditionPanel only lays the parts out.
 import { useCallback, useEffect, useMemo, useState } from 'react';
-import { useCandidates, usePassages } from '@/client/hooks';
+import { useCandidates, useNotes, usePassages } from '@/client/hooks';
 import { keepLastLoop, readLastLoop } from '@/client/last-loop';
 import { describePassage, type Passage as Region } from '@/audio/practice/passage';
 import { feltGrid, type BeatLevel } from '@/audio/practice/beat-grid';
@@ -93,13 +93,39 @@ export function useAuditionSession({
     () => passages.map((p) => ({ id: p.id, name: p.name, start: p.startSec, end: p.endSec })),
     [passages],
   );
+  const { notes } = useNotes(recording.id);
+  const noteMarks = useMemo(
+    () =>
+      (notes ?? []).map((n) => ({
+        id: n.id,
+        start: n.atSec ?? n.startSec ?? 0,
+        end: n.atSec != null ? null : (n.endSec ?? null),
+      })),
+    [notes],
+  );
   const listen = (level: BeatLevel) => audition.listen(feltAt(level), LISTEN_SEC);
   const clearLoop = () => {
     keepLastLoop(recording.id, null);
     stepUp.changePassage(null);
   };
 
-  return { a, felt, grid, audition, passages, saved, stepUp, wav, unit, setUnit, loopLabel, marked, listen, clearLoop };
+  return {
+    a,
+    noteMarks,
+    felt,
+    grid,
+    audition,
+    passages,
+    saved,
+    stepUp,
+    wav,
+    unit,
+    setUnit,
+    loopLabel,
+    marked,
+    listen,
+    clearLoop,
+  };
 }
 
 export type AuditionSession = ReturnType<typeof useAuditionSession>;

@@ -116,19 +116,30 @@ test('invite, sign up through the link, upload a take, notes at a moment and on 
   expect(await t.page.getByText('Correct the tempo').count()).toBe(0);
   await shot(t.page, 'teaching-teacher-notes-desktop');
 
-  // The student sees both notes and replies to the one on bars 9–12.
+  // The student sees both notes, in the list and marked on the waveform, and a tap on one plays from there.
   await s.page.goto(recordingUrl);
   await s.page.getByText('at 0:42').waitFor();
+  await s.page.getByTestId('overview-note').nth(1).waitFor();
+  expect(await s.page.getByTestId('overview-note').count()).toBe(2);
+  await s.page.getByTestId('note-place').filter({ hasText: 'at 0:42' }).click();
+  await s.page.waitForFunction(
+    () => document.querySelector('[data-testid="playback-position"]')?.getAttribute('aria-label') === '42.0 seconds',
+  );
   const barsNote = s.page.getByTestId('note').filter({ hasText: 'bars 9–12' });
-  await barsNote.getByTestId('note-reply').click();
+  await barsNote.getByTestId('note-reply-open').click();
   await barsNote.getByTestId('note-reply-text').fill('Will do, 100 it is.');
   await barsNote.getByTestId('note-reply-send').click();
-  await barsNote.getByText('Will do, 100 it is.').waitFor();
+  await barsNote.getByTestId('note-reply').filter({ hasText: 'Will do, 100 it is.' }).waitFor();
   await shot(s.page, 'teaching-student-notes-phone');
 
   // The teacher sees the reply.
   await t.page.reload();
-  await t.page.getByTestId('note').filter({ hasText: 'bars 9–12' }).getByText('Will do, 100 it is.').waitFor();
+  await t.page
+    .getByTestId('note')
+    .filter({ hasText: 'bars 9–12' })
+    .getByTestId('note-reply')
+    .filter({ hasText: 'Will do, 100 it is.' })
+    .waitFor();
   // Stored on the grid: at 120 BPM a bar lasts 2 s, so bars 9–12 run 16–24 s after bar 1 (±1 beat of grid error).
   const recordingId = recordingUrl.split('/').pop()!;
   const stored = (await (await t.page.request.get(`${baseUrl}/api/recordings/${recordingId}/notes`)).json()).notes as {

@@ -107,7 +107,8 @@ export default function RecordingScreen() {
             <Heading level={3}>Tempo across the recording</Heading>
             <TempoCurveChart analysis={a} song={song} />
           </Card>
-          <NotesPanel recording={r} />
+          {/* With a player, the notes sit beside it (AuditionPanel), where tapping one plays from it. */}
+          {bpm === null ? <NotesPanel recording={r} /> : null}
         </>
       ) : null}
     </Screen>
