@@ -1,6 +1,6 @@
 // Where an invitation mail leads: who invites, to which address, and the answer — signed in with that address.
 // Signed out, it offers to sign in or create the account first and comes back here afterwards.
-import React, { useState } from 'react';
+import React, { useEffect, useState } from 'react';
 import { ScrollView, View } from 'react-native';
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { Body, Button, Card, Heading, Loading, Notice, Row, Small } from '@/components/ui';
@@ -18,7 +18,7 @@ const answered: Record<string, string> = {
 };
 
 export default function InvitationScreen() {
-  const { token } = useLocalSearchParams<{ token: string }>();
+  const { token, accept } = useLocalSearchParams<{ token: string; accept?: string }>();
   const router = useRouter();
   const { me, signedOut } = useMe();
   const { invitation: inv, error, isLoading } = useInvitationByToken(token);
@@ -34,6 +34,18 @@ export default function InvitationScreen() {
       setProblem((e as Error).message);
     }
   };
+
+  // Back from creating the account through this invitation, signed in with the invited address: link now.
+  const autoAccept = accept === '1' && inv?.status === 'pending' && inv.forYou === true && done === null;
+  useEffect(() => {
+    if (!autoAccept) return;
+    answerInvitation(inv!.id, 'accept', token).then(
+      () => setDone('accept'),
+      (e: Error) => setProblem(e.message),
+    );
+    // Once, when the invitation and the signed-in account are known.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [autoAccept]);
 
   let body: React.ReactNode;
   if (isLoading) body = <Loading />;
@@ -70,7 +82,8 @@ export default function InvitationScreen() {
             <Button
               label="Create an account"
               kind="secondary"
-              onPress={() => router.push({ pathname: '/sign-up', params: { next: here } })}
+              // Creating the account from the invitation is the answer: it is accepted once the address is confirmed.
+              onPress={() => router.push({ pathname: '/sign-up', params: { next: `${here}?accept=1` } })}
               testID="invitation-sign-up"
             />
           </Row>
