@@ -1,7 +1,8 @@
 // How numbers read on screen, in one place for the client and the server alike: tempos, clock times, counts.
+import { round } from '@/audio/analysis/numbers';
 
 /** Rounded to one decimal place: tempos are set and shown to a tenth of a BPM, no finer. */
-export const tenth = (x: number) => Math.round(x * 10) / 10;
+export const tenth = (x: number) => round(x, 1);
 
 /** Whole tempos without decimals, others to one decimal place ("124", "92.5"). */
 export const formatBpm = (bpm: number) => (Number.isInteger(bpm) ? String(bpm) : bpm.toFixed(1));
