@@ -64,6 +64,7 @@ function NoteThread({
 }: { note: Note; recordingId: string } & Pick<Props, 'onSeek' | 'onLoop'>) {
   const [reply, setReply] = useState('');
   const [replying, setReplying] = useState(false);
+  const [editing, setEditing] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
   const act = (f: () => Promise<void>) => f().catch((e: Error) => setProblem(e.message));
   const go = () =>
@@ -96,7 +97,28 @@ function NoteThread({
           {n.resolved ? ' · resolved' : ''}
         </Small>
       </Row>
-      <Body>{n.text}</Body>
+      {editing === null ? (
+        <Body>{n.text}</Body>
+      ) : (
+        <View style={{ gap: space.sm }}>
+          <Field label="Your note" value={editing} onChangeText={setEditing} multiline testID="note-edit-text" />
+          <Row>
+            <Button
+              label="Save"
+              kind="secondary"
+              disabled={!editing.trim()}
+              onPress={() =>
+                act(async () => {
+                  await changeNote(recordingId, n.id, { text: editing.trim() });
+                  setEditing(null);
+                })
+              }
+              testID="note-edit-save"
+            />
+            <Button label="Cancel" kind="quiet" onPress={() => setEditing(null)} />
+          </Row>
+        </View>
+      )}
       {n.replies.map((rep) => (
         <View key={rep.id} style={{ marginLeft: space.lg, gap: 2 }} testID="note-reply">
           <Small>
@@ -135,6 +157,9 @@ function NoteThread({
           kind="quiet"
           onPress={() => act(() => changeNote(recordingId, n.id, { resolved: !n.resolved }))}
         />
+        {n.mine && editing === null ? (
+          <Button label="Edit" kind="quiet" onPress={() => setEditing(n.text)} testID="note-edit" />
+        ) : null}
         {n.mine ? (
           <Button label="Delete" kind="quiet" onPress={() => act(() => deleteNote(recordingId, n.id))} />
         ) : null}
