@@ -275,9 +275,12 @@ test('without an AudioWorklet (an insecure origin) the same engine runs in a Scr
         .stats,
   );
   expect(stats.engine).toBe('script-processor');
-  // Heard from the next 1024-frame block (23 ms at 44.1 kHz), give or take the block being played.
+  // The change is applied at a block boundary a few 1024-frame blocks (23 ms each at 44.1 kHz) on: one block when
+  // the machine is idle, more when it is loaded, since a ScriptProcessor runs on the page's main thread. The
+  // figure itself is a benchmark's (npm run bench:player); here it must stay within ten blocks, well short of a
+  // restart of the stretch (which would be heard as a gap).
   expect(stats.changeLatencies).toHaveLength(1);
-  expect(stats.changeLatencies[0]!).toBeLessThan(0.1);
+  expect(stats.changeLatencies[0]!).toBeLessThan(0.25);
   expect(errors).toEqual([]);
   await context.close();
 });
