@@ -277,8 +277,7 @@ test('without an AudioWorklet (an insecure origin) the same engine runs in a Scr
   expect(stats.engine).toBe('script-processor');
   // The change is applied at a block boundary a few 1024-frame blocks (23 ms each at 44.1 kHz) on: one block when
   // the machine is idle, more when it is loaded, since a ScriptProcessor runs on the page's main thread. The
-  // figure itself is a benchmark's (npm run bench:player); here it must stay within ten blocks, well short of a
-  // restart of the stretch (which would be heard as a gap).
+  // figure itself is a benchmark's (npm run bench:player); here it must stay within ten blocks.
   expect(stats.changeLatencies).toHaveLength(1);
   expect(stats.changeLatencies[0]!).toBeLessThan(0.25);
   expect(errors).toEqual([]);
