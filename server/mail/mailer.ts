@@ -20,7 +20,8 @@ export async function sendMail(mail: OutgoingMail): Promise<void> {
   await transport.sendMail({ from: config.mail.from, ...mail });
 }
 
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+/** Text made safe to put into HTML (mail bodies, the development mail page). */
+export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 /** A plain message with one button-like link, in both text and HTML. */
 export function linkMail(

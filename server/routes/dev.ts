@@ -2,6 +2,7 @@
 import { Router } from 'express';
 import { config } from '@/server/config';
 import { readCaughtMails } from '@/server/mail/catcher';
+import { escapeHtml } from '@/server/mail/mailer';
 
 export const devRouter = Router();
 
@@ -10,7 +11,7 @@ devRouter.get('/api/dev/mail', (req, res) => {
   res.json({ mails: readCaughtMails(config.mail.caughtDir, to) });
 });
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+const esc = escapeHtml;
 
 devRouter.get('/dev/mail', (_req, res) => {
   const mails = readCaughtMails(config.mail.caughtDir);

@@ -5,7 +5,7 @@ import { Op, QueryTypes } from 'sequelize';
 import { sequelize } from '@/server/db';
 import { config } from '@/server/config';
 import { Recording, RecordingNote, Song, User } from '@/server/models';
-import { sendMail } from '@/server/mail/mailer';
+import { escapeHtml, sendMail } from '@/server/mail/mailer';
 import { formatClock, plural } from '@/shared/format';
 
 let timer: ReturnType<typeof setTimeout> | null = null;
@@ -91,7 +91,7 @@ async function digestFor(ownerId: string, now: Date): Promise<boolean> {
     return { text: `${name} on ${what}, ${where}: “${n.text}”`, url: `${config.publicUrl}/recordings/${r.id}` };
   });
   const subject = `${plural(notes.length, 'new note')} on your recordings`;
-  const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+  const esc = escapeHtml;
   const off = `${config.publicUrl}/account`;
   await sendMail({
     to: owner.email,
