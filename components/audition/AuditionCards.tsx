@@ -68,7 +68,6 @@ export function PlayerCard({
         durationSec={grid.durationSec}
       />
       <Transport audition={audition} />
-      {!audition.ready && !audition.failure ? <Small>Loading the audio…</Small> : null}
       {wide ? (
         <Small>
           Keys: space plays and pauses, ← → skip a bar, ↑ ↓ change the tempo by 1 BPM, 1–9 pick a candidate.

@@ -14,9 +14,9 @@ const COUNT_POLL_MS = 33;
 export function Transport({ audition, compact = false }: { audition: AuditionPlayerState; compact?: boolean }) {
   const { ready, playing, togglePlay, skip, bpm, setBpm } = audition;
   const suffix = compact ? '-compact' : '';
-  const play = (
-    <Button label={playing ? 'Pause' : 'Play'} disabled={!ready} onPress={togglePlay} testID={`play${suffix}`} />
-  );
+  // The button itself says the audio is still loading, so nothing below it moves when it is ready.
+  const label = !ready ? (audition.failure ? 'Play' : 'Loading…') : playing ? 'Pause' : 'Play';
+  const play = <Button label={label} disabled={!ready} onPress={togglePlay} testID={`play${suffix}`} />;
   if (compact) {
     return (
       <View style={{ flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.xs }}>

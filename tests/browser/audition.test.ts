@@ -65,6 +65,8 @@ test('75 %, an exact BPM, three candidates hopped while playing, the chosen temp
   await signInThroughApp(page, player.email, PASSWORD);
   await page.goto(`${baseUrl}/recordings/${rec.id}`);
   await page.getByTestId('audition').waitFor();
+  // The audio is loaded (the play button says so) before the first tap.
+  await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
 
   await page.getByRole('button', { name: '75 %' }).click();
   // 124 BPM (the clip's tempo map) × 0.75 = 93.
