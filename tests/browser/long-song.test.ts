@@ -218,6 +218,8 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
     .getByTestId('playback-bpm-compact')
     .filter({ hasText: /^60 BPM$/ })
     .waitFor();
+  // A correction makes the player anew on the new grid: its audio is loaded again before the next tap.
+  await page.getByTestId('play-compact').filter({ hasText: 'Play' }).waitFor();
   const halved = await playerGrid(page);
   expect(halved.originalBpm).toBe(60);
   expect(halved.beats.length).toBe(Math.ceil(before.beats.length / 2));
