@@ -59,9 +59,12 @@ export default function StageView() {
               {song.meter} · {songLength(song)}
             </Text>
           </View>
-          <Text style={styles.bpm} testID="stage-bpm">
-            {song.chosenBpm === null ? '—' : formatBpm(song.chosenBpm)}
-          </Text>
+          <View style={{ alignItems: 'flex-end' }}>
+            <Text style={styles.bpm} testID="stage-bpm">
+              {song.chosenBpm === null ? '—' : formatBpm(song.chosenBpm)}
+            </Text>
+            <Text style={styles.unit}>{song.chosenBpm === null ? 'no tempo chosen' : 'BPM'}</Text>
+          </View>
         </View>
       ))}
       <Text style={styles.meta}>Click tempos in BPM (beats per minute), each song&apos;s chosen tempo.</Text>
@@ -84,5 +87,6 @@ const styles = StyleSheet.create({
   },
   number: { fontFamily: fonts.displayBold, fontSize: 24, color: INK, width: 32 },
   title: { fontFamily: fonts.bodyBold, fontSize: 22, lineHeight: 28, color: INK },
+  unit: { fontFamily: fonts.bodyBold, fontSize: 14, color: INK, letterSpacing: 1 },
   bpm: { fontFamily: fonts.displayBold, fontSize: 64, lineHeight: 70, color: INK, minWidth: 120, textAlign: 'right' },
 });

@@ -1,8 +1,8 @@
 // The library's search box, sort and filter: what the player asks for; the server does the finding.
 import React from 'react';
-import { View } from 'react-native';
+import { ScrollView, useWindowDimensions, View } from 'react-native';
 import { Chip, Field, Row, Small } from '@/components/ui';
-import { space } from '@/components/theme';
+import { layout, space } from '@/components/theme';
 import type { LibrarySort, LibraryStatus } from '@/shared/schemas';
 
 export const SORT_LABELS: Record<LibrarySort, string> = {
@@ -25,6 +25,17 @@ const STATUS_LABELS: { value: LibraryStatus | null; label: string }[] = [
 ];
 /** The one definition the server applies (LIBRARY_STATUSES in shared/schemas.ts), in the player's words. */
 export const READY_MEANS = 'Ready to perform: the working tempo has reached the goal tempo.';
+
+/** Chips in one line: wrapped on a wide screen, a sideways scroll on a phone so the songs start higher up. */
+function ChipLine({ children }: { children: React.ReactNode }) {
+  const wide = useWindowDimensions().width >= layout.wideFrom;
+  if (wide) return <Row>{children}</Row>;
+  return (
+    <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={{ gap: space.sm }}>
+      {children}
+    </ScrollView>
+  );
+}
 
 export function LibraryControls({
   q,
@@ -53,8 +64,10 @@ export function LibraryControls({
         autoCorrect={false}
       />
       <View style={{ gap: space.xs }}>
-        <Small>Sort by · {SORT_HINTS[sort]}</Small>
-        <Row>
+        <Small>
+          Sort by {SORT_LABELS[sort].toLowerCase()}, {SORT_HINTS[sort]}
+        </Small>
+        <ChipLine>
           {(Object.keys(SORT_LABELS) as LibrarySort[]).map((key) => (
             <Chip
               key={key}
@@ -65,11 +78,11 @@ export function LibraryControls({
               testID={`sort-${key}`}
             />
           ))}
-        </Row>
+        </ChipLine>
       </View>
       <View style={{ gap: space.xs }}>
         <Small>Show</Small>
-        <Row>
+        <ChipLine>
           {STATUS_LABELS.map(({ value, label }) => (
             <Chip
               key={label}
@@ -79,7 +92,7 @@ export function LibraryControls({
               testID={`status-${value ?? 'all'}`}
             />
           ))}
-        </Row>
+        </ChipLine>
         <Small>{READY_MEANS}</Small>
       </View>
     </View>

@@ -1,8 +1,8 @@
 // A set list's songs in playing order: each one's click tempo and length, moved up or down or taken out.
 import React from 'react';
-import { Text, View } from 'react-native';
+import { Text, useWindowDimensions, View } from 'react-native';
 import { Card, Chip, Small } from '@/components/ui';
-import { colors, fonts, space, type } from '@/components/theme';
+import { colors, fonts, layout, space, type } from '@/components/theme';
 import { formatBpm } from '@/shared/format';
 import type { SetListDto } from '@/shared/schemas';
 import { songLength } from './lengths';
@@ -25,11 +25,21 @@ export function SetListSongs({
   onOrder: (songIds: string[]) => void;
 }) {
   const ids = list.songs.map((s) => s.songId);
+  // On a wide screen the buttons sit beside the tempo; on a phone they get a line of their own.
+  const wide = useWindowDimensions().width >= layout.wideFrom;
   return (
     <View style={{ gap: space.sm }} testID="set-list-songs">
       {list.songs.map((song, i) => (
-        <Card key={song.songId} testID="set-list-song" style={{ paddingVertical: space.md }}>
-          <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.md }}>
+        <Card
+          key={song.songId}
+          testID="set-list-song"
+          style={{
+            paddingVertical: space.md,
+            flexDirection: wide ? 'row' : 'column',
+            alignItems: wide ? 'center' : undefined,
+          }}
+        >
+          <View style={{ flex: wide ? 1 : undefined, flexDirection: 'row', alignItems: 'center', gap: space.md }}>
             <Text style={[type.h3, { color: colors.muted, width: 28 }]}>{i + 1}</Text>
             <View style={{ flex: 1, gap: 2 }}>
               <Text style={[type.body, { fontFamily: fonts.bodyBold, color: colors.ink }]}>{song.title}</Text>

@@ -146,6 +146,8 @@ describe.each(viewports)('library and set lists at $name width', (viewport) => {
       document.querySelector('[data-testid="set-list-song"]')?.textContent?.includes('Saltmarsh Air'),
     );
     await page.getByTestId('set-list-total').filter({ hasText: total }).waitFor();
+    // The screen scrolls inside its own view: back to the top for the picture.
+    await page.getByTestId('set-list').evaluate((el) => el.scrollTo(0, 0));
     await page.screenshot({ path: path.join(outputDir, `set-list-${viewport.name}.png`), fullPage: true });
 
     // The stage view: every click tempo large, in the new order; on paper the buttons are gone.
