@@ -63,7 +63,7 @@ export default function StageView() {
             <Text style={styles.bpm} testID="stage-bpm">
               {song.chosenBpm === null ? '—' : formatBpm(song.chosenBpm)}
             </Text>
-            <Text style={styles.unit}>{song.chosenBpm === null ? 'no tempo chosen' : 'BPM'}</Text>
+            {song.chosenBpm === null ? null : <Text style={styles.unit}>BPM</Text>}
           </View>
         </View>
       ))}
