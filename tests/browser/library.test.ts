@@ -160,6 +160,17 @@ describe.each(viewports)('library and set lists at $name width', (viewport) => {
     await page.locator('#stage-toolbar').waitFor({ state: 'hidden' });
     await page.screenshot({ path: path.join(outputDir, `set-list-print-${viewport.name}.png`), fullPage: true });
 
+    // Back on the Set lists screen the new list reads its songs and total.
+    await page.emulateMedia({ media: 'screen' });
+    await page.getByRole('button', { name: '‹ Back' }).click();
+    await page.getByTestId('set-list').waitFor();
+    await page.getByRole('link', { name: 'Set lists' }).click();
+    await page
+      .getByTestId('set-list-card')
+      .filter({ hasText: `Harbour Lane, Friday (${viewport.name})` })
+      .waitFor();
+    await page.screenshot({ path: path.join(outputDir, `set-lists-${viewport.name}.png`), fullPage: true });
+
     expect(errors).toEqual([]);
     await context.close();
   }, 90_000);
