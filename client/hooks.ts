@@ -4,6 +4,9 @@ import { ApiRequestError, apiFetch, fetcher } from './api';
 import type {
   Candidate,
   Invitation,
+  LibrarySong,
+  LibrarySort,
+  LibraryStatus,
   Me,
   Note,
   NoteInput,
@@ -17,6 +20,7 @@ import type {
   Preferences,
   ReceivedInvitation,
   Recording,
+  SetListDto,
   RecordingPatch,
   Role,
   Song,
@@ -34,14 +38,27 @@ export function useMe() {
   return { me: data, error: signedOut ? undefined : error, signedOut, isLoading };
 }
 
-export function useSongs() {
-  const { data, error, isLoading } = useSWR<{ songs: Song[] }>('/api/songs', fetcher);
-  return { songs: data?.songs, error, isLoading };
+/** The library, searched, sorted and filtered by the server; the last answer stays on screen while the next loads. */
+export function useSongs(query: { q?: string; sort?: LibrarySort; status?: LibraryStatus } = {}) {
+  const params = new URLSearchParams();
+  if (query.q?.trim()) params.set('q', query.q.trim());
+  if (query.sort && query.sort !== 'title') params.set('sort', query.sort);
+  if (query.status) params.set('status', query.status);
+  const search = params.toString();
+  const key = search ? `/api/songs?${search}` : '/api/songs';
+  const { data, error, isLoading, isValidating } = useSWR<{ songs: LibrarySong[] }>(key, fetcher, {
+    keepPreviousData: true,
+  });
+  return { songs: data?.songs, error, isLoading, isValidating };
 }
+
+/** Every cached library listing (each search, sort and filter has its own key). */
+const refreshLibrary = () =>
+  mutate((key) => typeof key === 'string' && (key === '/api/songs' || key.startsWith('/api/songs?')));
 
 export async function addSong(input: SongInput) {
   const song = await apiFetch<Song>('/api/songs', { body: input });
-  await mutate('/api/songs');
+  await refreshLibrary();
   return song;
 }
 
@@ -189,7 +206,7 @@ export async function removeCandidate(c: Candidate) {
 export async function chooseTempo(songId: string, bpm: number, note: string | null) {
   const song = await apiFetch<Song>(`/api/songs/${songId}/choose`, { body: { bpm, note } });
   await mutate(`/api/songs/${songId}`, song, { revalidate: false });
-  await mutate('/api/songs');
+  await refreshLibrary();
   await mutate(candidatesKey(songId));
   return song;
 }
@@ -207,7 +224,7 @@ export async function logPractice(songId: string, input: PracticeInput) {
   // A clean faster entry on a passage raises the passage's working tempo.
   await mutate(passagesKey(songId));
   await mutate(`/api/songs/${songId}`);
-  await mutate('/api/songs');
+  await refreshLibrary();
   return entry;
 }
 
@@ -260,13 +277,13 @@ export async function setSongTempos(songId: string, tempos: SongTempos) {
 
 export async function changeSong(id: string, patch: SongPatch) {
   await apiFetch(`/api/songs/${id}`, { method: 'PATCH', body: patch });
-  await Promise.all([mutate(`/api/songs/${id}`), mutate('/api/songs')]);
+  await Promise.all([mutate(`/api/songs/${id}`), refreshLibrary()]);
 }
 
 /** Deletes the song with its recordings, passages, candidates and log. */
 export async function deleteSong(id: string) {
   await apiFetch(`/api/songs/${id}`, { method: 'DELETE' });
-  await mutate('/api/songs');
+  await refreshLibrary();
 }
 
 export async function renameRecording(r: Recording, label: string | null) {
@@ -303,4 +320,37 @@ export async function changePassage(p: Passage, patch: PassagePatch) {
 export async function removePassage(p: Passage) {
   await apiFetch(`/api/passages/${p.id}`, { method: 'DELETE' });
   await mutate(passagesKey(p.songId));
+}
+
+// ── Set lists: songs in playing order at their chosen tempos ─────────────────────────────────────────
+
+export function useSetLists() {
+  const { data, error, isLoading } = useSWR<{ setLists: SetListDto[] }>('/api/set-lists', fetcher);
+  return { setLists: data?.setLists, error, isLoading };
+}
+
+export function useSetList(id: string | undefined) {
+  const { data, error, isLoading } = useSWR<SetListDto>(id ? `/api/set-lists/${id}` : null, fetcher, {
+    shouldRetryOnError: false,
+  });
+  return { setList: data, error, isLoading };
+}
+
+export async function createSetList(name: string, songIds: string[] = []) {
+  const list = await apiFetch<SetListDto>('/api/set-lists', { body: { name, songIds } });
+  await mutate('/api/set-lists');
+  return list;
+}
+
+/** A new name or a new order (the whole order); the answer is the list as the server now has it. */
+export async function changeSetList(id: string, patch: { name?: string; songIds?: string[] }) {
+  const list = await apiFetch<SetListDto>(`/api/set-lists/${id}`, { method: 'PATCH', body: patch });
+  await mutate(`/api/set-lists/${id}`, list, { revalidate: false });
+  await mutate('/api/set-lists');
+  return list;
+}
+
+export async function deleteSetList(id: string) {
+  await apiFetch(`/api/set-lists/${id}`, { method: 'DELETE' });
+  await mutate('/api/set-lists');
 }

@@ -1,13 +1,17 @@
 import React from 'react';
-import { Pressable, View } from 'react-native';
+import { Pressable, Text, View } from 'react-native';
 import { useRouter } from 'expo-router';
-import { Body, Card, Small } from './ui';
+import { Card, Small } from './ui';
 import { SongTempos } from './TempoLabel';
-import { space } from './theme';
-import type { Song } from '@/shared/schemas';
+import { ProgressToGoal } from './TempoProgress';
+import { colors, radius, space, type } from './theme';
+import { formatDate } from '@/shared/format';
+import type { LibrarySong, Song } from '@/shared/schemas';
 
-export function SongCard({ song }: { song: Song }) {
+/** A song in the library on a phone: what it is, its tempos, how far toward the goal, when last practised. */
+export function SongCard({ song }: { song: Song | LibrarySong }) {
   const router = useRouter();
+  const library = 'ready' in song ? song : null;
   return (
     <Pressable
       role="link"
@@ -17,11 +21,37 @@ export function SongCard({ song }: { song: Song }) {
       <Card testID="song-card">
         <View style={{ flexDirection: 'row', justifyContent: 'space-between', flexWrap: 'wrap', gap: space.sm }}>
           <View style={{ flexShrink: 1 }}>
-            <Body style={{ fontWeight: '700' }}>{song.title}</Body>
-            <Small>{[song.composer, song.meter].filter(Boolean).join(' · ')}</Small>
+            <Text testID="library-song-title" style={[type.body, { fontWeight: '700', color: colors.ink }]}>
+              {song.title}
+            </Text>
+            <Small>{[song.composer, song.key, song.meter].filter(Boolean).join(' · ')}</Small>
           </View>
+          {library?.ready ? (
+            <Text
+              style={[
+                type.small,
+                {
+                  color: colors.teal,
+                  backgroundColor: colors.tealSoft,
+                  borderRadius: radius.sm,
+                  paddingHorizontal: space.sm,
+                  alignSelf: 'flex-start',
+                },
+              ]}
+            >
+              Ready to perform
+            </Text>
+          ) : null}
         </View>
         <SongTempos working={song.workingBpm} goal={song.goalBpm} chosen={song.chosenBpm} />
+        {song.goalBpm !== null && !library?.ready ? (
+          <ProgressToGoal working={song.workingBpm} goal={song.goalBpm} />
+        ) : null}
+        {library ? (
+          <Small>
+            {library.lastPractisedAt ? `Last practised ${formatDate(library.lastPractisedAt)}` : 'Not practised yet'}
+          </Small>
+        ) : null}
       </Card>
     </Pressable>
   );

@@ -8,7 +8,7 @@ import { fieldProblems } from '@/shared/messages';
 const optionalNumber = (s: string) => (s.trim() === '' ? null : Number(s.replace(',', '.')));
 
 /**
- * A song's title, composer, meter, goal and working tempo, new or changed (`initial`). Validated with the same
+ * A song's title, composer, key, time signature, goal and working tempo, new or changed (`initial`). Validated with the same
  * schema as the server.
  */
 export function SongForm({
@@ -23,6 +23,7 @@ export function SongForm({
   const text = (n: number | null | undefined) => (n == null ? '' : String(n));
   const [title, setTitle] = useState(initial?.title ?? '');
   const [composer, setComposer] = useState(initial?.composer ?? '');
+  const [key, setKey] = useState(initial?.key ?? '');
   const [meter, setMeter] = useState(initial?.meter ?? '4/4');
   const [goal, setGoal] = useState(text(initial?.goalBpm));
   const [working, setWorking] = useState(text(initial?.workingBpm));
@@ -34,6 +35,7 @@ export function SongForm({
     const parsed = SongInputSchema.safeParse({
       title,
       composer: composer.trim() || null,
+      key: key.trim() || null,
       meter,
       goalBpm: optionalNumber(goal),
       workingBpm: optionalNumber(working),
@@ -60,9 +62,21 @@ export function SongForm({
         <Field label="Title" value={title} onChangeText={setTitle} error={errors.title} testID="song-title" />
         <Field label="Composer or artist" value={composer} onChangeText={setComposer} error={errors.composer} />
         <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
+          <View style={{ flexGrow: 1, flexBasis: 140 }}>
+            <Field
+              label="Key"
+              value={key}
+              onChangeText={setKey}
+              error={errors.key}
+              hint="e.g. D minor, B♭ major"
+              testID="song-key"
+            />
+          </View>
           <View style={{ flexGrow: 1, flexBasis: 90 }}>
             <Field label="Meter" value={meter} onChangeText={setMeter} error={errors.meter} hint="e.g. 4/4, 3/4, 6/8" />
           </View>
+        </View>
+        <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
           <View style={{ flexGrow: 1, flexBasis: 90 }}>
             <Field
               label="Goal tempo (BPM)"

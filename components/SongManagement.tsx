@@ -82,6 +82,7 @@ export function EditOrDeleteSong({
         initial={{
           title: song.title,
           composer: song.composer,
+          key: song.key,
           meter: song.meter,
           goalBpm: song.goalBpm,
           workingBpm: song.workingBpm,

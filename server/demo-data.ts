@@ -15,6 +15,8 @@ export interface DemoPerson {
   email: string;
   role: Role;
   songs: (SongInput & { recordings?: DemoRecording[] })[];
+  /** Set lists of this person's songs, by title, in playing order. */
+  setLists?: { name: string; songs: string[] }[];
 }
 
 export const demoPeople: DemoPerson[] = [
@@ -28,7 +30,16 @@ export const demoPeople: DemoPerson[] = [
     name: 'Marta Quist',
     email: 'marta@harbourlane.example',
     role: 'teacher',
-    songs: [{ title: 'Slate Roof Nocturne', composer: 'Marta Quist', meter: '3/4', goalBpm: 66, workingBpm: 60 }],
+    songs: [
+      {
+        title: 'Slate Roof Nocturne',
+        composer: 'Marta Quist',
+        key: 'A♭ major',
+        meter: '3/4',
+        goalBpm: 66,
+        workingBpm: 60,
+      },
+    ],
   },
   {
     name: 'Ilya Brandt',
@@ -38,9 +49,11 @@ export const demoPeople: DemoPerson[] = [
       {
         title: 'Copperline Reel',
         composer: 'trad. arr. Harbour Lane',
+        key: 'D major',
         meter: '4/4',
         goalBpm: 112,
         workingBpm: 88,
+        chosenBpm: 104,
         recordings: [
           { file: 'drums-bass-124.mp3', kind: 'reference', label: 'Band run-through, Pier Street rehearsal room' },
         ],
@@ -48,12 +61,14 @@ export const demoPeople: DemoPerson[] = [
       {
         title: 'Lanterns over Kessel Bay',
         composer: 'Ilya Brandt',
+        key: 'E minor',
         meter: '6/8',
         goalBpm: 72,
         workingBpm: 72,
         chosenBpm: 70,
       },
     ],
+    setLists: [{ name: 'Friday at the Pier Street café', songs: ['Lanterns over Kessel Bay', 'Copperline Reel'] }],
   },
   {
     name: 'Sanne Okafor',
@@ -63,6 +78,7 @@ export const demoPeople: DemoPerson[] = [
       {
         title: 'Nine Steps Waltz',
         composer: 'Pieter Vahl',
+        key: 'G major',
         meter: '3/4',
         goalBpm: 152,
         workingBpm: 126,

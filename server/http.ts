@@ -18,11 +18,20 @@ export const notFound = (what: string) => new HttpError(404, 'not_found', `${wha
 
 /** Parses req.body with a zod schema; a bad body becomes a 400 that names the first offending field. */
 export function parseBody<T>(schema: ZodType<T>, body: unknown): T {
-  const result = schema.safeParse(body ?? {});
+  return parseWith(schema, body ?? {}, 'invalid_body', '(body)');
+}
+
+/** Parses req.query the same way; a bad parameter is a 400 `invalid_query` naming it. */
+export function parseQuery<T>(schema: ZodType<T>, query: unknown): T {
+  return parseWith(schema, query ?? {}, 'invalid_query', '(query)');
+}
+
+function parseWith<T>(schema: ZodType<T>, input: unknown, code: string, whole: string): T {
+  const result = schema.safeParse(input);
   if (result.success) return result.data;
-  const issues = result.error.issues.map((i) => ({ field: i.path.join('.') || '(body)', message: i.message }));
+  const issues = result.error.issues.map((i) => ({ field: i.path.join('.') || whole, message: i.message }));
   const first = issues[0]!;
-  throw new HttpError(400, 'invalid_body', `${first.field}: ${first.message}`, first.field, issues);
+  throw new HttpError(400, code, `${first.field}: ${first.message}`, first.field, issues);
 }
 
 /** Express 5 passes rejected promises to the error handler; this only narrows the types. */

@@ -43,6 +43,7 @@ import {
   type Role,
   SongInputSchema,
   SongListSchema,
+  SongListQuerySchema,
   SongPatchSchema,
   SetListInputSchema,
   SetListListSchema,
@@ -158,8 +159,14 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       path: '/api/songs',
       tag: 'songs',
       access: 'signed-in',
-      summary: 'My songs',
-      ok: { 200: json('The songs I own.', s.SongList) },
+      summary: 'My songs (the library), searched, sorted and filtered',
+      description:
+        '`q` finds words in the title or composer/artist; `sort` orders by title (A–Z), last practised (most recent ' +
+        'first), chosen tempo (slowest first) or progress to goal (closest first), songs without that value last; ' +
+        '`status=ready` keeps the songs whose working tempo has reached the goal tempo, `learning` the others.',
+      query: SongListQuerySchema,
+      ok: { 200: json('The songs I own that match.', s.SongList) },
+      errors: [400],
     },
     {
       method: 'post',

@@ -5,6 +5,7 @@ import path from 'node:path';
 import { auth } from './auth';
 import { Account, User, StudioLink } from '@/server/models';
 import { createSong } from '@/server/services/songs';
+import { createSetList } from '@/server/services/setlists';
 import { storeRecording } from '@/server/services/recordings';
 import { checkAudio } from '@/server/analysis/audio-check';
 import { config } from './config';
@@ -40,11 +41,15 @@ export async function seedDemo(): Promise<{ created: boolean }> {
       createdAt: now,
       updatedAt: now,
     });
+    const me = { id: user.id, name: user.name, email: user.email, emailVerified: true, role: user.role };
+    const songIds = new Map<string, string>();
     for (const { recordings = [], ...input } of person.songs) {
-      const me = { id: user.id, name: user.name, email: user.email, emailVerified: true, role: user.role };
       const song = await createSong(me, input);
+      songIds.set(song.title, song.id);
       for (const r of recordings) await addDemoRecording(song, user.id, r);
     }
+    for (const list of person.setLists ?? [])
+      await createSetList(me, { name: list.name, songIds: list.songs.map((title) => songIds.get(title)!) });
   }
   const teacher = (await User.findOne({ where: { email: demoTeacherEmail } }))!;
   for (const email of demoStudentEmails) {

@@ -6,6 +6,7 @@ import { z } from 'zod';
 export const FIELD_LABELS: Record<string, string> = {
   title: 'Title',
   composer: 'Composer or artist',
+  key: 'Key',
   meter: 'Time signature',
   goalBpm: 'Goal tempo',
   workingBpm: 'Working tempo',

@@ -37,6 +37,13 @@ export type Me = z.infer<typeof MeSchema>;
 export const SongInputSchema = z.object({
   title: z.string().trim().min(1, 'give the song a title').max(200),
   composer: z.string().trim().max(200).nullish(),
+  /** The musical key as the player writes it ("D minor", "B♭ major"); blank is none. */
+  key: z
+    .string()
+    .trim()
+    .max(40, 'use at most 40 characters')
+    .transform((v) => v || null)
+    .nullish(),
   meter: MeterSchema.optional(),
   goalBpm: BpmSchema.nullish(),
   workingBpm: BpmSchema.nullish(),
@@ -75,6 +82,7 @@ export const SongSchema = z.object({
   ownerId: z.string(),
   title: z.string(),
   composer: z.string().nullable(),
+  key: z.string().nullable(),
   meter: z.string(),
   goalBpm: z.number().nullable(),
   workingBpm: z.number().nullable(),
@@ -91,7 +99,37 @@ export const SongTemposSchema = z
   .partial()
   .strict();
 export type SongTempos = z.infer<typeof SongTemposSchema>;
-export const SongListSchema = z.object({ songs: z.array(SongSchema) });
+
+// ── The library: a player's songs, searched, sorted and filtered on the server ─────────────────────
+
+export const LIBRARY_SORTS = ['title', 'lastPractised', 'chosenBpm', 'progress'] as const;
+export type LibrarySort = (typeof LIBRARY_SORTS)[number];
+/**
+ * "Ready to perform": the working tempo has reached the goal tempo. Everything else (no goal yet, or the working
+ * tempo still below it) is "learning".
+ */
+export const LIBRARY_STATUSES = ['learning', 'ready'] as const;
+export type LibraryStatus = (typeof LIBRARY_STATUSES)[number];
+export const SongListQuerySchema = z
+  .object({
+    /** Words in the title or the composer/artist. */
+    q: z.string().trim().max(200, 'use at most 200 characters').optional(),
+    sort: z.enum(LIBRARY_SORTS, { message: `sort by one of: ${LIBRARY_SORTS.join(', ')}` }).default('title'),
+    status: z.enum(LIBRARY_STATUSES, { message: 'show learning or ready songs' }).optional(),
+  })
+  .strict();
+export type SongListQuery = z.infer<typeof SongListQuerySchema>;
+/** A song as the library lists it: with when it was last practised, its counts and where it stands. */
+export const LibrarySongSchema = SongSchema.extend({
+  lastPractisedAt: z.string().nullable(),
+  recordingCount: z.number().int(),
+  passageCount: z.number().int(),
+  /** Working tempo as a share of the goal (1 = reached); null without both. */
+  progress: z.number().nullable(),
+  ready: z.boolean(),
+});
+export type LibrarySong = z.infer<typeof LibrarySongSchema>;
+export const SongListSchema = z.object({ songs: z.array(LibrarySongSchema) });
 
 export const UserSummarySchema = z.object({
   id: z.string(),

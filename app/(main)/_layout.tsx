@@ -23,6 +23,7 @@ export default function MainLayout() {
   const items: NavItem[] = [
     { href: '/', label: 'Library', glyph: '♪' },
     { href: '/practice', label: 'Practice', glyph: '◴' },
+    { href: '/set-lists', label: 'Set lists', glyph: '≣' },
     ...(me.role === 'teacher' || me.role === 'admin'
       ? [{ href: '/students', label: 'Students', glyph: '☰' } as const]
       : []),

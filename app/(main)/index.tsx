@@ -1,21 +1,39 @@
-// Library: the songs this player is working on, with their tempos.
-import React, { useState } from 'react';
-import { View } from 'react-native';
+// Library: the songs this player is working on, searched, sorted and filtered by the server; a table on a wide
+// screen, cards on a phone.
+import React, { useEffect, useState } from 'react';
+import { useWindowDimensions, View } from 'react-native';
 import { plural } from '@/shared/format';
 import { Button, EmptyState, Heading, Loading, Notice, Screen, Body } from '@/components/ui';
 import { SongCard } from '@/components/SongCard';
 import { SongForm } from '@/components/SongForm';
-import { space } from '@/components/theme';
+import { LibraryControls } from '@/components/library/LibraryControls';
+import { SongTable } from '@/components/library/SongTable';
+import { layout, space } from '@/components/theme';
 import { addSong, useSongs } from '@/client/hooks';
 import { ScreenTitle } from '@/components/ScreenTitle';
 import { TeachersCard } from '@/components/TeachersCard';
+import type { LibrarySort, LibraryStatus } from '@/shared/schemas';
+
+/** Typing pauses this long before the library is asked again, so each key press is not a request. */
+const SEARCH_PAUSE_MS = 250;
 
 export default function Library() {
-  const { songs, error, isLoading } = useSongs();
+  const [typed, setTyped] = useState('');
+  const [q, setQ] = useState('');
+  const [sort, setSort] = useState<LibrarySort>('title');
+  const [status, setStatus] = useState<LibraryStatus | null>(null);
+  useEffect(() => {
+    const t = setTimeout(() => setQ(typed), SEARCH_PAUSE_MS);
+    return () => clearTimeout(t);
+  }, [typed]);
+  const narrowed = q.trim() !== '' || status !== null;
+  const { songs, error, isLoading } = useSongs({ q, sort, status: status ?? undefined });
   const [adding, setAdding] = useState(false);
+  const wide = useWindowDimensions().width >= layout.wideFrom;
+  const libraryEmpty = songs?.length === 0 && !narrowed;
 
   return (
-    <Screen testID="library">
+    <Screen testID="library" wide>
       <ScreenTitle title="Library" />
       <View
         style={{
@@ -27,14 +45,14 @@ export default function Library() {
         }}
       >
         <Heading>Library</Heading>
-        {songs?.length && !adding ? (
+        {!libraryEmpty && songs && !adding ? (
           <Button label="Add a song" kind="secondary" onPress={() => setAdding(true)} />
         ) : null}
       </View>
       <TeachersCard invitationsOnly />
       {error ? <Notice tone="error">Your songs could not be loaded: {error.message}</Notice> : null}
       {isLoading ? <Loading /> : null}
-      {adding || (songs && songs.length === 0 && adding) ? (
+      {adding ? (
         <SongForm
           onCancel={() => setAdding(false)}
           onSubmit={async (input) => {
@@ -43,7 +61,7 @@ export default function Library() {
           }}
         />
       ) : null}
-      {songs && songs.length === 0 && !adding ? (
+      {libraryEmpty && !adding ? (
         <EmptyState
           title="Your library is empty"
           action={<Button label="Add your first song" onPress={() => setAdding(true)} testID="add-first-song" />}
@@ -52,10 +70,40 @@ export default function Library() {
           other tempos with a click, and mark the tempo that feels right.
         </EmptyState>
       ) : null}
-      {songs?.map((song) => (
-        <SongCard key={song.id} song={song} />
-      ))}
-      {songs && songs.length > 0 ? <Body muted>{plural(songs.length, 'song')}</Body> : null}
+      {songs && !libraryEmpty ? (
+        <>
+          <LibraryControls q={typed} onQ={setTyped} sort={sort} onSort={setSort} status={status} onStatus={setStatus} />
+          {songs.length === 0 ? (
+            <EmptyState
+              title="No song matches"
+              action={
+                <Button
+                  label="Show all songs"
+                  kind="secondary"
+                  onPress={() => {
+                    setTyped('');
+                    setQ('');
+                    setStatus(null);
+                  }}
+                  testID="show-all-songs"
+                />
+              }
+            >
+              {q.trim() ? `Nothing in your library has “${q.trim()}” in its title or composer. ` : ''}
+              {status === 'ready'
+                ? 'No song is ready to perform yet.'
+                : status === 'learning'
+                  ? 'Every song is ready to perform.'
+                  : ''}
+            </EmptyState>
+          ) : wide ? (
+            <SongTable songs={songs} />
+          ) : (
+            songs.map((song) => <SongCard key={song.id} song={song} />)
+          )}
+          <Body muted>{narrowed ? `${plural(songs.length, 'song')} shown` : plural(songs.length, 'song')}</Body>
+        </>
+      ) : null}
     </Screen>
   );
 }

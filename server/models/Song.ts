@@ -8,6 +8,8 @@ export class Song extends Model<InferAttributes<Song>, InferCreationAttributes<S
   declare ownerId: string;
   declare title: string;
   declare composer: string | null;
+  /** The musical key as the player writes it ("D minor"); free text. */
+  declare key: CreationOptional<string | null>;
   declare meter: CreationOptional<string>;
   declare goalBpm: number | null;
   declare workingBpm: number | null;
@@ -28,6 +30,7 @@ Song.init(
     ownerId: { type: DataTypes.STRING(64), allowNull: false },
     title: { type: DataTypes.STRING(200), allowNull: false },
     composer: { type: DataTypes.STRING(200), allowNull: true },
+    key: { type: DataTypes.STRING(40), allowNull: true },
     meter: { type: DataTypes.STRING(8), allowNull: false, defaultValue: '4/4' },
     goalBpm: bpmColumn('goalBpm'),
     workingBpm: bpmColumn('workingBpm'),

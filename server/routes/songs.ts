@@ -1,16 +1,17 @@
 import { Router } from 'express';
-import { handler, parseBody } from '@/server/http';
+import { handler, parseBody, parseQuery } from '@/server/http';
 import { currentUser, requireUser } from '@/server/middleware/session';
-import { SongInputSchema, SongPatchSchema, SongTemposSchema } from '@/shared/schemas';
+import { SongInputSchema, SongListQuerySchema, SongPatchSchema, SongTemposSchema } from '@/shared/schemas';
 import { createSong, deleteSong, getSong, listSongs, setSongTempos, updateSong } from '@/server/services/songs';
 
 export const songsRouter = Router();
 songsRouter.use(requireUser);
 
+/** The library: ?q= (title or composer/artist), ?sort=, ?status=learning|ready. */
 songsRouter.get(
   '/',
   handler(async (req, res) => {
-    res.json({ songs: await listSongs(currentUser(req)) });
+    res.json({ songs: await listSongs(currentUser(req), parseQuery(SongListQuerySchema, req.query)) });
   }),
 );
 

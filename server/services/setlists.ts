@@ -28,33 +28,44 @@ async function measuredBeats(songIds: string[]): Promise<Map<string, number>> {
   return beats;
 }
 
-async function toSetListDto(list: SetList): Promise<SetListDto> {
-  const items = await SetListItem.findAll({ where: { setListId: list.id }, order: [['position', 'ASC']] });
-  const songs = new Map((await Song.findAll({ where: { id: items.map((i) => i.songId) } })).map((s) => [s.id, s]));
-  const beats = await measuredBeats(items.map((i) => i.songId));
-  const rows = items
-    .map((i) => songs.get(i.songId))
-    .filter((s): s is Song => Boolean(s))
-    .map((s) => {
-      const b = beats.get(s.id);
-      return {
-        songId: s.id,
-        title: s.title,
-        meter: s.meter,
-        chosenBpm: s.chosenBpm,
-        durationSec: b && s.chosenBpm ? secondsFor(b, s.chosenBpm) : null,
-      };
-    });
-  const known = rows.filter((r) => r.durationSec !== null);
-  return {
-    id: list.id,
-    name: list.name,
-    songs: rows,
-    totalSec: known.reduce((sum, r) => sum + r.durationSec!, 0),
-    unknownDurations: rows.length - known.length,
-    updatedAt: list.updatedAt.toISOString(),
-  };
+/** Set lists in their API form: the items, songs and measured beats of all of them in three queries, not per list. */
+async function toSetListDtos(lists: SetList[]): Promise<SetListDto[]> {
+  if (!lists.length) return [];
+  const items = await SetListItem.findAll({
+    where: { setListId: lists.map((l) => l.id) },
+    order: [['position', 'ASC']],
+  });
+  const songIds = [...new Set(items.map((i) => i.songId))];
+  const songs = new Map((await Song.findAll({ where: { id: songIds } })).map((s) => [s.id, s]));
+  const beats = await measuredBeats(songIds);
+  return lists.map((list) => {
+    const rows = items
+      .filter((i) => i.setListId === list.id)
+      .map((i) => songs.get(i.songId))
+      .filter((s): s is Song => Boolean(s))
+      .map((s) => {
+        const b = beats.get(s.id);
+        return {
+          songId: s.id,
+          title: s.title,
+          meter: s.meter,
+          chosenBpm: s.chosenBpm,
+          durationSec: b && s.chosenBpm ? secondsFor(b, s.chosenBpm) : null,
+        };
+      });
+    const known = rows.filter((r) => r.durationSec !== null);
+    return {
+      id: list.id,
+      name: list.name,
+      songs: rows,
+      totalSec: known.reduce((sum, r) => sum + r.durationSec!, 0),
+      unknownDurations: rows.length - known.length,
+      updatedAt: list.updatedAt.toISOString(),
+    };
+  });
 }
+
+const toSetListDto = async (list: SetList) => (await toSetListDtos([list]))[0]!;
 
 async function setListFor(user: Me, action: Action, id: string): Promise<SetList> {
   const list = await SetList.findByPk(id);
@@ -84,7 +95,7 @@ async function writeItems(setListId: string, songIds: string[]) {
 
 export async function listSetLists(user: Me): Promise<SetListDto[]> {
   const lists = await SetList.findAll({ where: { ownerId: user.id }, order: [['updatedAt', 'DESC']] });
-  return Promise.all(lists.map(toSetListDto));
+  return toSetListDtos(lists);
 }
 
 export async function getSetList(user: Me, id: string): Promise<SetListDto> {

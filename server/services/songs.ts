@@ -1,7 +1,17 @@
 // Songs: listing, creating, changing and deleting them (with their recordings' files), the working and goal
 // tempos (which a linked teacher may set too), and their API form with what the person asking may do.
+import { literal, Op, type Order, type WhereOptions } from 'sequelize';
 import { Song } from '@/server/models';
-import type { Me, Song as SongDto, SongInput, SongPatch, SongTempos } from '@/shared/schemas';
+import type {
+  LibrarySong,
+  LibrarySort,
+  Me,
+  Song as SongDto,
+  SongInput,
+  SongListQuery,
+  SongPatch,
+  SongTempos,
+} from '@/shared/schemas';
 import { allows, assertMay, missing, relationTo, type Action } from './access';
 import { removeStoredFiles, storageKeysOfSong } from './recordings';
 import { namesOf, setByColumns, setByView } from './users';
@@ -19,6 +29,7 @@ export async function songViews(user: Me, songs: Song[]): Promise<SongDto[]> {
       ownerName: names.get(song.ownerId) ?? '',
       title: song.title,
       composer: song.composer,
+      key: song.key ?? null,
       meter: song.meter,
       goalBpm: song.goalBpm,
       workingBpm: song.workingBpm,
@@ -52,9 +63,76 @@ export async function getSong(user: Me, songId: string): Promise<SongDto> {
   return songView(user, await songFor(user, 'read', songId));
 }
 
-/** The library: a player's own songs. */
-export async function listSongs(user: Me): Promise<SongDto[]> {
-  return songViews(user, await Song.findAll({ where: { ownerId: user.id }, order: [['updatedAt', 'DESC']] }));
+// The library's figures, worked out by the database in the one query that lists the songs (correlated
+// subqueries on indexed songId columns), so a long library costs one round trip, not one per song.
+const LAST_PRACTISED = '(SELECT MAX(p.`createdAt`) FROM `practice_entries` p WHERE p.`songId` = `Song`.`id`)';
+const RECORDINGS = '(SELECT COUNT(*) FROM `recordings` r WHERE r.`songId` = `Song`.`id`)';
+const PASSAGES = '(SELECT COUNT(*) FROM `passages` g WHERE g.`songId` = `Song`.`id`)';
+/** Working tempo as a share of the goal; NULL unless both are set. */
+const PROGRESS = '(`Song`.`workingBpm` / `Song`.`goalBpm`)';
+/** "Ready to perform" (see LIBRARY_STATUSES in shared/schemas.ts): the working tempo has reached the goal. */
+const READY =
+  '(`Song`.`workingBpm` IS NOT NULL AND `Song`.`goalBpm` IS NOT NULL AND `Song`.`workingBpm` >= `Song`.`goalBpm`)';
+
+/** Songs without the value sorted on come last, whatever the direction; ties read by title. */
+const ORDERS: Record<LibrarySort, Order> = {
+  title: [
+    ['title', 'ASC'],
+    ['id', 'ASC'],
+  ],
+  lastPractised: [
+    [literal(`${LAST_PRACTISED} IS NULL`), 'ASC'],
+    [literal(LAST_PRACTISED), 'DESC'],
+    ['title', 'ASC'],
+  ],
+  chosenBpm: [
+    [literal('`Song`.`chosenBpm` IS NULL'), 'ASC'],
+    ['chosenBpm', 'ASC'],
+    ['title', 'ASC'],
+  ],
+  progress: [
+    [literal(`${PROGRESS} IS NULL`), 'ASC'],
+    [literal(PROGRESS), 'DESC'],
+    ['title', 'ASC'],
+  ],
+};
+
+/** `%`, `_` and `\` typed in a search are letters to find, not LIKE's wildcards. */
+const likeWord = (word: string) => `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/** The library: a player's own songs whose title or composer/artist holds every word of `q`, sorted, filtered. */
+export async function listSongs(user: Me, query: SongListQuery = { sort: 'title' }): Promise<LibrarySong[]> {
+  const words = (query.q ?? '').split(/\s+/).filter(Boolean);
+  const where: WhereOptions[] = [{ ownerId: user.id }];
+  for (const word of words)
+    where.push({ [Op.or]: [{ title: { [Op.like]: likeWord(word) } }, { composer: { [Op.like]: likeWord(word) } }] });
+  if (query.status) where.push(literal(query.status === 'ready' ? READY : `NOT ${READY}`));
+  const songs = await Song.findAll({
+    attributes: {
+      include: [
+        [literal(LAST_PRACTISED), 'lastPractisedAt'],
+        [literal(RECORDINGS), 'recordingCount'],
+        [literal(PASSAGES), 'passageCount'],
+        [literal(PROGRESS), 'progress'],
+        [literal(READY), 'ready'],
+      ],
+    },
+    where: { [Op.and]: where },
+    order: ORDERS[query.sort],
+  });
+  const views = await songViews(user, songs);
+  return songs.map((song, i) => {
+    const figures = song.get({ plain: true }) as unknown as Record<string, unknown>;
+    const last = figures.lastPractisedAt as Date | string | null;
+    return {
+      ...views[i]!,
+      lastPractisedAt: last === null ? null : new Date(last).toISOString(),
+      recordingCount: Number(figures.recordingCount),
+      passageCount: Number(figures.passageCount),
+      progress: figures.progress === null ? null : Number(figures.progress),
+      ready: Boolean(Number(figures.ready)),
+    };
+  });
 }
 
 export async function createSong(owner: Me, input: SongInput): Promise<SongDto> {
@@ -62,6 +140,7 @@ export async function createSong(owner: Me, input: SongInput): Promise<SongDto> 
     ownerId: owner.id,
     title: input.title,
     composer: input.composer ?? null,
+    key: input.key ?? null,
     meter: input.meter ?? '4/4',
     goalBpm: input.goalBpm ?? null,
     workingBpm: input.workingBpm ?? null,

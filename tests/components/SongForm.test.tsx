@@ -25,6 +25,7 @@ test('a valid song is handed over as numbers, with a comma accepted as the decim
   const onSubmit = jest.fn(async () => {});
   render(<SongForm onSubmit={onSubmit} onCancel={() => {}} />);
   fireEvent.change(screen.getByLabelText('Title'), { target: { value: 'Harbour Jig' } });
+  fireEvent.change(screen.getByLabelText('Key'), { target: { value: ' E minor ' } });
   fireEvent.change(screen.getByLabelText('Meter'), { target: { value: '6/8' } });
   fireEvent.change(screen.getByLabelText('Goal tempo (BPM)'), { target: { value: '116' } });
   fireEvent.change(screen.getByLabelText('Working tempo (BPM)'), { target: { value: '92,5' } });
@@ -33,6 +34,7 @@ test('a valid song is handed over as numbers, with a comma accepted as the decim
   expect(onSubmit).toHaveBeenCalledWith({
     title: 'Harbour Jig',
     composer: null,
+    key: 'E minor',
     meter: '6/8',
     goalBpm: 116,
     workingBpm: 92.5,

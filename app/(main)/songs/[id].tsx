@@ -37,6 +37,7 @@ export default function SongScreen() {
           {[
             song.ownerId === me?.id ? null : whose('song', { id: song.ownerId, name: song.ownerName }, me?.id),
             song.composer,
+            song.key,
             song.meter,
           ]
             .filter(Boolean)

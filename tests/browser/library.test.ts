@@ -1,0 +1,177 @@
+// The library and set lists in a real browser, on a phone (390 px) and at a desk (1280 px): a dozen songs, a
+// search that finds one, a sort and a filter that change the list; then a set list of three songs, reordered,
+// with its total length checked against hand arithmetic, and its stage view for print.
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { launchChromium, outputDir, signInThroughApp, viewports } from './chromium';
+import { PASSWORD, signedInUser, waitForAnalysis } from '@/tests/api/helpers';
+import { formatDuration } from '@/shared/format';
+
+const CLIP = fs.readFileSync(path.resolve(__dirname, '../../fixtures/clips/drums-bass-124.mp3'));
+let browser: Browser;
+let player: Awaited<ReturnType<typeof signedInUser>>;
+/** Beats the engine measured in the clip; both songs with a recording have this clip. */
+let beats: number;
+
+// Invented songs. "Ready to perform" = working tempo has reached the goal: Lanterns, Slate Roof, Tidewater.
+const SONGS = [
+  { title: 'Copperline Reel', composer: 'trad.', key: 'D major', goalBpm: 112, workingBpm: 88, chosenBpm: 124 },
+  {
+    title: 'Lanterns over Kessel Bay',
+    composer: 'Ilya Brandt',
+    key: 'E minor',
+    meter: '6/8',
+    goalBpm: 72,
+    workingBpm: 72,
+    chosenBpm: 70,
+  },
+  { title: 'Nine Steps Waltz', composer: 'Pieter Vahl', key: 'G major', meter: '3/4', goalBpm: 152, workingBpm: 126 },
+  { title: 'Saltmarsh Air', composer: 'Wren Adeyemi', key: 'A minor', chosenBpm: 62 },
+  { title: 'Slate Roof Nocturne', composer: 'Marta Quist', meter: '3/4', goalBpm: 66, workingBpm: 66 },
+  { title: 'Ferry Bell Polka', composer: 'Anouk Stell', meter: '2/4', goalBpm: 120, workingBpm: 100, chosenBpm: 116 },
+  { title: 'Gull Rock Hornpipe', composer: 'trad.', goalBpm: 100, workingBpm: 80 },
+  {
+    title: 'Tidewater Blues',
+    composer: 'Jonah Pell',
+    key: 'B♭',
+    meter: '12/8',
+    goalBpm: 90,
+    workingBpm: 90,
+    chosenBpm: 88,
+  },
+  { title: 'Quarry Lane March', composer: 'trad.', meter: '6/8', goalBpm: 116, workingBpm: 96 },
+  { title: 'Moss and Granite', composer: 'Liesel Dorn', meter: '5/4', chosenBpm: 84 },
+  { title: 'Harbour Lights Jig', composer: 'trad.', meter: '6/8', goalBpm: 126, workingBpm: 110 },
+  { title: 'Windward Etude', composer: 'Sorrel Ames', goalBpm: 140, workingBpm: 92 },
+];
+
+beforeAll(async () => {
+  player = await signedInUser('library-ui');
+  const ids: Record<string, string> = {};
+  for (const song of SONGS) ids[song.title] = (await player.agent.post('/api/songs').send(song).expect(201)).body.id;
+  const uploads = [];
+  for (const title of ['Copperline Reel', 'Saltmarsh Air'])
+    uploads.push(
+      (
+        await player.agent
+          .post(`/api/songs/${ids[title]}/recordings`)
+          .field('kind', 'reference')
+          .attach('file', CLIP, 'band.mp3')
+          .expect(201)
+      ).body.id as string,
+    );
+  const analysed = await Promise.all(uploads.map((id) => waitForAnalysis(player.agent, id, 60_000)));
+  beats = analysed[0].analysis.beatCount;
+  expect(analysed[1].analysis.beatCount).toBe(beats);
+  browser = await launchChromium();
+}, 120_000);
+afterAll(async () => {
+  await browser?.close();
+});
+
+/** Waits until the library shows exactly these titles, in this order. */
+const waitForTitles = (page: Page, titles: string[]) =>
+  page.waitForFunction(
+    (want) =>
+      JSON.stringify(
+        [...document.querySelectorAll('[data-testid="library-song-title"]')].map((e) => (e as HTMLElement).innerText),
+      ) === JSON.stringify(want),
+    titles,
+  );
+
+describe.each(viewports)('library and set lists at $name width', (viewport) => {
+  test('search, sort and filter a dozen songs; a set list of three, reordered, totalled and printed', async () => {
+    const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await signInThroughApp(page, player.email, PASSWORD);
+
+    // All twelve, by title; a table at a desk, cards on a phone.
+    await waitForTitles(page, [...SONGS.map((s) => s.title)].sort());
+    expect(await page.getByTestId(viewport.width >= 900 ? 'song-row' : 'song-card').count()).toBe(12);
+    await page.screenshot({ path: path.join(outputDir, `library-${viewport.name}.png`), fullPage: true });
+
+    // Search by composer: one tap in the box, a few letters.
+    await page.getByTestId('library-search').fill('vahl');
+    await waitForTitles(page, ['Nine Steps Waltz']);
+    await page.getByTestId('library-search').fill('');
+
+    // Chosen tempo, slowest first; songs without one come last.
+    await page.getByTestId('sort-chosenBpm').click();
+    await waitForTitles(page, [
+      'Saltmarsh Air',
+      'Lanterns over Kessel Bay',
+      'Moss and Granite',
+      'Tidewater Blues',
+      'Ferry Bell Polka',
+      'Copperline Reel',
+      'Gull Rock Hornpipe',
+      'Harbour Lights Jig',
+      'Nine Steps Waltz',
+      'Quarry Lane March',
+      'Slate Roof Nocturne',
+      'Windward Etude',
+    ]);
+    // Ready to perform only, still by chosen tempo: Lanterns 70, Tidewater 88, then the nocturne without one.
+    await page.getByTestId('status-ready').click();
+    await waitForTitles(page, ['Lanterns over Kessel Bay', 'Tidewater Blues', 'Slate Roof Nocturne']);
+    await page.getByText('Ready to perform: the working tempo has reached the goal tempo.').waitFor();
+    await page.screenshot({ path: path.join(outputDir, `library-ready-${viewport.name}.png`), fullPage: true });
+
+    // A set list of three: two with a chosen tempo and a recording, one without a chosen tempo.
+    await page.getByRole('link', { name: 'Set lists' }).click();
+    await page.getByTestId('set-lists').waitFor();
+    await page.getByTestId('new-set-list-name').fill(`Harbour Lane, Friday (${viewport.name})`);
+    await page.getByTestId('create-set-list').click();
+    await page.getByTestId('set-list').waitFor();
+    for (const [i, title] of ['Copperline Reel', 'Saltmarsh Air', 'Nine Steps Waltz'].entries()) {
+      await page.getByRole('button', { name: `Add ${title}` }).click();
+      await page.waitForFunction((n) => document.querySelectorAll('[data-testid="set-list-song"]').length === n, i + 1);
+    }
+    // A song lasts its beats at its chosen tempo: B beats at 124 BPM last B × 60 / 124 s, at 62 BPM twice as
+    // long, B × 60 / 62 s; together B × 180 / 124 s. The waltz has no chosen tempo and is not counted.
+    const total = `${formatDuration((beats * 180) / 124)} in all at the chosen tempos, not counting 1 song without a length`;
+    await page.getByTestId('set-list-total').filter({ hasText: total }).waitFor();
+    expect(await page.getByTestId('set-list-song-length').allInnerTexts()).toEqual([
+      formatDuration((beats * 60) / 124),
+      formatDuration((beats * 60) / 62),
+      'no chosen tempo yet',
+    ]);
+
+    // Reorder: the air to the top.
+    await page.getByRole('button', { name: 'Move Saltmarsh Air up' }).click();
+    await page.waitForFunction(() =>
+      document.querySelector('[data-testid="set-list-song"]')?.textContent?.includes('Saltmarsh Air'),
+    );
+    await page.getByTestId('set-list-total').filter({ hasText: total }).waitFor();
+    // The screen scrolls inside its own view: back to the top for the picture.
+    await page.getByTestId('set-list').evaluate((el) => el.scrollTo(0, 0));
+    await page.screenshot({ path: path.join(outputDir, `set-list-${viewport.name}.png`), fullPage: true });
+
+    // The stage view: every click tempo large, in the new order; on paper the buttons are gone.
+    await page.getByTestId('open-stage-view').click();
+    await page.getByTestId('stage-view').waitFor();
+    expect(await page.getByTestId('stage-bpm').allInnerTexts()).toEqual(['62', '124', '—']);
+    await page.getByTestId('stage-total').filter({ hasText: total }).waitFor();
+    await page.screenshot({ path: path.join(outputDir, `set-list-stage-${viewport.name}.png`), fullPage: true });
+    await page.emulateMedia({ media: 'print' });
+    await page.locator('#stage-toolbar').waitFor({ state: 'hidden' });
+    await page.screenshot({ path: path.join(outputDir, `set-list-print-${viewport.name}.png`), fullPage: true });
+
+    // Back on the Set lists screen the new list reads its songs and total.
+    await page.emulateMedia({ media: 'screen' });
+    await page.getByRole('button', { name: '‹ Back' }).click();
+    await page.getByTestId('set-list').waitFor();
+    await page.getByRole('link', { name: 'Set lists' }).click();
+    await page
+      .getByTestId('set-list-card')
+      .filter({ hasText: `Harbour Lane, Friday (${viewport.name})` })
+      .waitFor();
+    await page.screenshot({ path: path.join(outputDir, `set-lists-${viewport.name}.png`), fullPage: true });
+
+    expect(errors).toEqual([]);
+    await context.close();
+  }, 90_000);
+});
