@@ -1,11 +1,20 @@
 // The tempo engine: samples in, analysis out. Each stage is one function in its own file, called here in
 // the order the signal flows: onset → periodicity → tempo → metrical level → beats → meter → curve → summary.
 import type { Analysis } from '@/shared/analysis';
-import { onsetEnvelope } from './onset';
-import { bpmToLag, globalPeriodicity, localPulse, localTempogram, trackPeriod, MIN_BPM, MAX_BPM } from './periodicity';
-import { estimateTempo, relationTo } from './tempo';
+import { onsetEnvelope, type OnsetEnvelope } from './onset';
+import {
+  bpmToLag,
+  globalPeriodicity,
+  localPulse,
+  localTempogram,
+  trackPeriod,
+  MIN_BPM,
+  MAX_BPM,
+  type PeriodicityCurve,
+} from './periodicity';
+import { estimateTempo, relationTo, type TempoEstimate } from './tempo';
 import { round } from './numbers';
-import { beatsWithOffBeatBass, trackBeats } from './beats';
+import { beatsWithOffBeatBass, offBeatBassRatio, trackBeats } from './beats';
 import { estimateMeter } from './meter';
 import { regressionBpm, summarise, tempoCurve, interBeatTempi, median } from './curve';
 import { ANALYSIS_RATE, resample } from './resample';
@@ -28,9 +37,8 @@ export interface AnalyseOptions {
 
 export function analyse(samples: Float32Array, sampleRate: number, options: AnalyseOptions = {}): Analysis {
   const started = performance.now();
-  const audio = sampleRate === ANALYSIS_RATE ? samples : resample(samples, sampleRate, ANALYSIS_RATE);
   const durationSec = samples.length / sampleRate;
-  const env = onsetEnvelope(audio, ANALYSIS_RATE);
+  const env = envelopeOf(samples, sampleRate);
   const fr = env.frameRate;
   const empty: Analysis = {
     bpm: null,
@@ -57,34 +65,18 @@ export function analyse(samples: Float32Array, sampleRate: number, options: Anal
   for (let i = 0; i < env.strength.length; i++) energy += env.strength[i]!;
   if (energy < 1e-3 || env.strength.length < bpmToLag(MIN_BPM, fr) * 2) return finish(empty);
 
-  const periodicity = globalPeriodicity(env.strength, fr);
-  const tempo = estimateTempo(periodicity, (b) => localPulse(env.strength, fr, b));
+  const { periodicity, tempo } = ruleBasedTempo(env);
   if (!tempo) return finish(empty);
-  const level = chooseLevel(
-    levelCandidates(periodicity, env.strength, env.low, tempo.bpm),
-    options.levelModel ?? LEVEL_MODEL,
-  );
+  const levelModel = options.levelModel ?? LEVEL_MODEL;
+  const level = chooseLevel(levelCandidates(periodicity, env, tempo.bpm), levelModel);
   const modelBpm = level?.bpm ?? tempo.bpm;
 
-  // Follow the tempo over time within ±35 % of the global period (a ritardando of a quarter, a ramp from 90 to
-  // 130), which keeps the grid on its metrical level: ×4/3 and ×3/2 pulses lie outside it.
-  const lag0 = bpmToLag(modelBpm, fr);
-  const minLag = Math.max(2, Math.floor(Math.max(bpmToLag(MAX_BPM, fr), lag0 / TEMPO_PATH_RANGE)));
-  const maxLag = Math.ceil(Math.min(bpmToLag(MIN_BPM, fr), lag0 * TEMPO_PATH_RANGE));
-  const tg = localTempogram(env.strength, fr, minLag, maxLag);
-  const path = trackPeriod(tg, lag0);
-  const periodAt = new Float32Array(env.strength.length);
-  for (let i = 0, w = 0; i < periodAt.length; i++) {
-    while (w < tg.centres.length - 1 && tg.centres[w + 1]! <= i) w++;
-    const a = tg.centres[w]!;
-    const b = tg.centres[Math.min(w + 1, tg.centres.length - 1)]!;
-    const f = b > a ? Math.max(0, Math.min(1, (i - a) / (b - a))) : 0;
-    periodAt[i] = path[w]! * (1 - f) + path[Math.min(w + 1, path.length - 1)]! * f;
-  }
-
-  const tracked = trackBeats(env.strength, periodAt);
+  const tracked = trackGrid(env, modelBpm);
   // The bass between the beats may say the beat is twice as fast (beats.ts), within the range of a beat.
-  const withOffBeats = 2 * modelBpm <= LEVEL_MAX_BPM ? beatsWithOffBeatBass(tracked, env.strength, env.low) : null;
+  const withOffBeats =
+    2 * modelBpm <= LEVEL_MAX_BPM
+      ? beatsWithOffBeatBass(tracked, env.strength, env.low, levelModel.offBeatBassDoubles)
+      : null;
   const beatFrames = withOffBeats ?? tracked;
   const globalBpm = withOffBeats ? 2 * modelBpm : modelBpm;
   const toSec = (f: number) => f / fr + env.offsetSec - ONSET_LATENCY_SEC;
@@ -132,14 +124,57 @@ export function analyse(samples: Float32Array, sampleRate: number, options: Anal
   });
 }
 
+/** The rule-based tempo (tempo.ts) of an onset envelope, with the periodicity it was read from. */
+function ruleBasedTempo(env: OnsetEnvelope): { periodicity: PeriodicityCurve; tempo: TempoEstimate | null } {
+  const fr = env.frameRate;
+  const periodicity = globalPeriodicity(env.strength, fr);
+  const pulseIn = (x: Float32Array) => (b: number) => localPulse(x, fr, b);
+  return { periodicity, tempo: estimateTempo(periodicity, pulseIn(env.strength), pulseIn(env.low)) };
+}
+
+/**
+ * Beat frames at one metrical level: the tempo followed over time within ±32 % of the level's period (a
+ * ritardando of a quarter, a ramp from 90 to 130), which keeps the grid on its level (×4/3 and ×3/2 pulses
+ * lie outside it), then the dynamic-programming beat tracker along that path.
+ */
+function trackGrid(env: OnsetEnvelope, bpm: number): number[] {
+  const fr = env.frameRate;
+  const lag0 = bpmToLag(bpm, fr);
+  const minLag = Math.max(2, Math.floor(Math.max(bpmToLag(MAX_BPM, fr), lag0 / TEMPO_PATH_RANGE)));
+  const maxLag = Math.ceil(Math.min(bpmToLag(MIN_BPM, fr), lag0 * TEMPO_PATH_RANGE));
+  const tg = localTempogram(env.strength, fr, minLag, maxLag);
+  const path = trackPeriod(tg, lag0);
+  const periodAt = new Float32Array(env.strength.length);
+  for (let i = 0, w = 0; i < periodAt.length; i++) {
+    while (w < tg.centres.length - 1 && tg.centres[w + 1]! <= i) w++;
+    const a = tg.centres[w]!;
+    const b = tg.centres[Math.min(w + 1, tg.centres.length - 1)]!;
+    const f = b > a ? Math.max(0, Math.min(1, (i - a) / (b - a))) : 0;
+    periodAt[i] = path[w]! * (1 - f) + path[Math.min(w + 1, path.length - 1)]! * f;
+  }
+  return trackBeats(env.strength, periodAt);
+}
+
+function envelopeOf(samples: Float32Array, sampleRate: number): OnsetEnvelope {
+  const audio = sampleRate === ANALYSIS_RATE ? samples : resample(samples, sampleRate, ANALYSIS_RATE);
+  return onsetEnvelope(audio, ANALYSIS_RATE);
+}
+
 /** The metrical-level candidates of a recording with their features, for fitting the level model. */
 export function levelCandidatesOf(samples: Float32Array, sampleRate: number): LevelCandidate[] {
-  const audio = sampleRate === ANALYSIS_RATE ? samples : resample(samples, sampleRate, ANALYSIS_RATE);
-  const env = onsetEnvelope(audio, ANALYSIS_RATE);
+  const env = envelopeOf(samples, sampleRate);
   if (env.strength.length < bpmToLag(MIN_BPM, env.frameRate) * 2) return [];
-  const periodicity = globalPeriodicity(env.strength, env.frameRate);
-  const tempo = estimateTempo(periodicity, (b) => localPulse(env.strength, env.frameRate, b));
-  return tempo ? levelCandidates(periodicity, env.strength, env.low, tempo.bpm) : [];
+  const { periodicity, tempo } = ruleBasedTempo(env);
+  return tempo ? levelCandidates(periodicity, env, tempo.bpm) : [];
+}
+
+/**
+ * The bass band's accents between the beats over those on them (beats.ts) for the grid tracked at `bpm`, for
+ * fitting the bound above which the grid is doubled; null where the grid is too short to say.
+ */
+export function offBeatBassRatioOf(samples: Float32Array, sampleRate: number, bpm: number): number | null {
+  const env = envelopeOf(samples, sampleRate);
+  return offBeatBassRatio(trackGrid(env, bpm), env.low);
 }
 
 /** The doubled grid's tempo first (with the model's probability for it, 0 when it was no candidate), then the model's choice. */

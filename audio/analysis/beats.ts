@@ -8,14 +8,6 @@ import { median } from './curve';
 
 /** Edge beats weaker than this fraction of the median beat strength lie outside the music (half, as before). */
 const EDGE_FRACTION = 0.5;
-/**
- * The bass band's accents between the beats outweighing those on them by this factor means the beats in
- * between are beats too (low-register accents mark the beat level, Klapuri, Eronen & Astola 2006): the grid
- * is doubled. On the rendered corpus the ratio stays below 0.33; on the 70 real clips the two beat grids at
- * half the annotated tempo that it catches reach 1.39 and 1.76, while a grid at the right level reaches 1.13;
- * the bound lies between them (set on all 70 clips, not cross-validated: a rule, not a fit).
- */
-const OFF_BEAT_BASS_DOUBLES = 1.25;
 /** Beats in one bar of 4/4 at the slowest: fewer beats than this say nothing about where the bass falls. */
 const MIN_BEATS_FOR_OFF_BEATS = 4;
 
@@ -127,11 +119,11 @@ function peakNear(x: Float32Array, f: number): number {
 }
 
 /**
- * When the bass band accents the points halfway between the beats more than the beats themselves
- * (OFF_BEAT_BASS_DOUBLES), those points are beats too: returns the grid with them inserted (refined to the
- * onset peak as the others), else null.
+ * The bass band's accents halfway between the beats over its accents on them, or null when the grid is too
+ * short to say. Low-register accents mark the beat level (Klapuri, Eronen & Astola 2006): well above 1, the
+ * points in between are beats too.
  */
-export function beatsWithOffBeatBass(frames: number[], onset: Float32Array, low: Float32Array): number[] | null {
+export function offBeatBassRatio(frames: number[], low: Float32Array): number | null {
   if (frames.length < MIN_BEATS_FOR_OFF_BEATS) return null;
   let on = 0;
   let off = 0;
@@ -139,7 +131,22 @@ export function beatsWithOffBeatBass(frames: number[], onset: Float32Array, low:
     on += peakNear(low, frames[i]!);
     off += peakNear(low, (frames[i]! + frames[i + 1]!) / 2);
   }
-  if (!(off > OFF_BEAT_BASS_DOUBLES * on)) return null;
+  return on > 0 ? off / on : off > 0 ? Infinity : null;
+}
+
+/**
+ * When the bass band accents the points halfway between the beats more than the beats themselves, by more
+ * than `doubles` (the level model's offBeatBassDoubles, fitted with it), those points are beats too: returns
+ * the grid with them inserted (refined to the onset peak as the others), else null.
+ */
+export function beatsWithOffBeatBass(
+  frames: number[],
+  onset: Float32Array,
+  low: Float32Array,
+  doubles: number,
+): number[] | null {
+  const ratio = offBeatBassRatio(frames, low);
+  if (ratio === null || !(ratio > doubles)) return null;
   const out: number[] = [];
   frames.forEach((f, i) => {
     out.push(f);

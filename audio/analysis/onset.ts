@@ -7,6 +7,8 @@ export interface OnsetEnvelope {
   strength: Float32Array;
   /** Onset strength of the lowest band only (bass, kick): used for meter and downbeats. */
   low: Float32Array;
+  /** Onset strength above the lowest band (snare, hands, hi-hat, chords): against `low`, the backbeat. */
+  upper: Float32Array;
   /** Frames per second. */
   frameRate: number;
   /** Seconds of the first frame's centre (negative: the first frames hang over the start). */
@@ -24,6 +26,7 @@ export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetE
   const frames = Math.max(0, Math.floor(samples.length / HOP) + 1);
   const strength = new Float32Array(frames);
   const low = new Float32Array(frames);
+  const upper = new Float32Array(frames);
   let prev = new Float32Array(bins);
   let cur = new Float32Array(bins);
   forEachSpectrum(
@@ -44,6 +47,7 @@ export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetE
         }
         strength[f] = all;
         low[f] = bass;
+        upper[f] = all - bass;
       }
       const t = prev;
       prev = cur;
@@ -55,6 +59,7 @@ export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetE
   return {
     strength: removeTrend(strength, Math.round(frameRate * 0.4)),
     low: removeTrend(low, Math.round(frameRate * 0.4)),
+    upper: removeTrend(upper, Math.round(frameRate * 0.4)),
     frameRate,
     // FRAME_SIZE zeros are read before the signal: frame f is centred at f·HOP − FRAME_SIZE/2 samples.
     offsetSec: -FRAME_SIZE / 2 / sampleRate,

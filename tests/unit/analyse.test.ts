@@ -2,7 +2,7 @@
 // steady clicks, a ramp, silence, a single chord and very short inputs.
 import { analyse } from '@/audio/analysis/analyse';
 import { beatFMeasure } from '@/audio/analysis/evaluation';
-import { clickTrack, rampBeats, RATE, singleChord, steadyBeats, tempoAt } from './signals';
+import { backbeatGroove, clickTrack, rampBeats, RATE, singleChord, steadyBeats, tempoAt } from './signals';
 
 describe('steady click tracks', () => {
   test.each([60, 120, 177])('%p BPM reads within 0.5 BPM, every click a beat', (bpm) => {
@@ -50,6 +50,17 @@ describe('steady click tracks', () => {
     expect(a.meter).toBe('3/4');
     const expected = truth.filter((_, i) => accents.has(i));
     expect(beatFMeasure(expected, a.downbeats)).toBeGreaterThan(0.95);
+  });
+});
+
+describe('a backbeat groove (kick on 1 and 3, snare on 2 and 4, hi-hat on every eighth)', () => {
+  // The hi-hat's eighths are as complete a pulse as the quarters, but the bass plays only on the quarters: the
+  // beat is the quarter note (common practice). Before the bass had to agree, 92 read as 184.
+  test.each([92, 100])('%p BPM reads at the quarter note, every beat found', (bpm) => {
+    const g = backbeatGroove(bpm, 30);
+    const a = analyse(g.x, RATE);
+    expect(Math.abs(a.bpm! / bpm - 1)).toBeLessThan(0.01);
+    expect(beatFMeasure(g.beats, a.beats)).toBeGreaterThan(0.95);
   });
 });
 

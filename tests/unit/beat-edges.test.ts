@@ -1,5 +1,6 @@
 // Beat-grid edges and off-beat bass, on signals and envelopes whose truth is exact by construction.
-import { beatsWithOffBeatBass, trackBeats } from '@/audio/analysis/beats';
+import { beatsWithOffBeatBass, offBeatBassRatio, trackBeats } from '@/audio/analysis/beats';
+import { LEVEL_MODEL } from '@/audio/analysis/level-weights';
 
 test('a clip cut in mid-sound (its first onset 40× any other) keeps its beats to the end', () => {
   // An onset envelope with a pulse every 100 frames, the first one far louder, as a cut in mid-chord gives.
@@ -17,19 +18,27 @@ describe('bass between the beats', () => {
     return x;
   };
   const onset = envelope([...frames, ...frames.map((f) => f + 50)]);
+  // The shipped bound (fitted by npm run train:level; at least 1 by construction of its search).
+  const bound = LEVEL_MODEL.offBeatBassDoubles;
 
   test('bass on the midpoints only: the midpoints become beats, on their onset peaks', () => {
-    const doubled = beatsWithOffBeatBass(frames, onset, envelope(frames.map((f) => f + 50)));
+    const doubled = beatsWithOffBeatBass(frames, onset, envelope(frames.map((f) => f + 50)), bound);
     expect(doubled).not.toBeNull();
     expect(doubled!).toHaveLength(2 * frames.length - 1);
     expect(doubled!.filter((_, i) => i % 2 === 1).map(Math.round)).toEqual(frames.slice(0, -1).map((f) => f + 50));
   });
 
   test('bass on the beats (a kick on every beat): the grid stays', () => {
-    expect(beatsWithOffBeatBass(frames, onset, envelope(frames))).toBeNull();
+    expect(beatsWithOffBeatBass(frames, onset, envelope(frames), bound)).toBeNull();
   });
 
   test('bass equally on and between the beats (no evidence either way): the grid stays', () => {
-    expect(beatsWithOffBeatBass(frames, onset, envelope([...frames, ...frames.map((f) => f + 50)]))).toBeNull();
+    expect(beatsWithOffBeatBass(frames, onset, envelope([...frames, ...frames.map((f) => f + 50)]), bound)).toBeNull();
+  });
+
+  test('the ratio itself: 0 with the bass on the beats, 1 with it on and between, none for a grid too short', () => {
+    expect(offBeatBassRatio(frames, envelope(frames))).toBe(0);
+    expect(offBeatBassRatio(frames, envelope([...frames, ...frames.map((f) => f + 50)]))).toBeCloseTo(1, 6);
+    expect(offBeatBassRatio(frames.slice(0, 3), envelope(frames))).toBeNull();
   });
 });

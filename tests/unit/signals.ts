@@ -118,3 +118,37 @@ export function zeroCrossingFrequency(x: Float32Array, rate: number, from = 0, t
   }
   return (count - 1) / ((last - first) / rate);
 }
+
+/**
+ * A drum groove at `bpm`: kick (a 60 Hz thump) on beats 1 and 3, snare (a noise burst) on 2 and 4, closed
+ * hi-hat (short high noise) on every eighth note, all equally loud — the backbeat pattern of rock, pop and
+ * hip-hop (common practice), whose beat is the quarter note although the hi-hat pulse is twice as fast.
+ * Noise from a fixed-seed generator, so the signal is the same on every run. Returns samples and beat times.
+ */
+export function backbeatGroove(bpm: number, seconds: number, rate = RATE): { x: Float32Array; beats: number[] } {
+  const x = new Float32Array(Math.round(seconds * rate));
+  let seed = 12345;
+  const noise = () => {
+    seed = (seed * 1103515245 + 12345) % 2147483648;
+    return seed / 1073741824 - 1;
+  };
+  const add = (t: number, len: number, sample: (i: number) => number) => {
+    const start = Math.round(t * rate);
+    for (let i = 0; i < len * rate && start + i < x.length; i++) x[start + i]! += sample(i);
+  };
+  const beats = steadyBeats(bpm, seconds);
+  let prevHat = 0;
+  beats.forEach((t, i) => {
+    if (i % 2 === 0) add(t, 0.2, (k) => 0.8 * Math.exp(-k / (0.06 * rate)) * Math.sin((2 * Math.PI * 60 * k) / rate));
+    else add(t, 0.15, (k) => 0.5 * Math.exp(-k / (0.04 * rate)) * noise());
+    for (const h of [t, t + 30 / bpm])
+      add(h, 0.04, (k) => {
+        // First difference of noise: a crude high-pass, as a closed hi-hat sounds.
+        const n = noise();
+        const v = n - prevHat;
+        prevHat = n;
+        return 0.25 * Math.exp(-k / (0.01 * rate)) * v;
+      });
+  });
+  return { x, beats };
+}
