@@ -95,8 +95,7 @@ export function theilSenAt(points: { x: number; y: number }[], at: number): numb
   const slopes: number[] = [];
   for (let i = 0; i < points.length; i++)
     for (let j = i + 1; j < points.length; j++)
-      if (points[j]!.x !== points[i]!.x)
-        slopes.push((points[j]!.y - points[i]!.y) / (points[j]!.x - points[i]!.x));
+      if (points[j]!.x !== points[i]!.x) slopes.push((points[j]!.y - points[i]!.y) / (points[j]!.x - points[i]!.x));
   const slope = slopes.length ? median(slopes) : 0;
   const intercept = median(points.map((p) => p.y - slope * p.x));
   return intercept + slope * at;
@@ -250,4 +249,34 @@ export function steadinessSummary(r: SteadinessReport): string {
         ? `every bar within ${r.tolerancePct} % of ${whole(r.referenceBpm)}`
         : '';
   return `${head}${tail ? `; ${tail}` : ''}.`;
+}
+
+export interface TakeComparison {
+  /** First beat to last beat of each, in seconds. */
+  durationA: number;
+  durationB: number;
+  /** B − A. */
+  durationDiffSec: number;
+  meanA: number | null;
+  meanB: number | null;
+  /** B − A, in BPM and as a share of A in percent. */
+  meanDiffBpm: number | null;
+  meanDiffPct: number | null;
+}
+
+/** How two takes of one piece differ as a whole: how long each plays (first to last beat) and its mean tempo. */
+export function compareTakes(a: { grid: Grid; report: SteadinessReport }, b: { grid: Grid; report: SteadinessReport }) {
+  const span = (g: Grid) => (g.beats.length > 1 ? g.beats[g.beats.length - 1]! - g.beats[0]! : 0);
+  const meanA = a.report.meanBpm;
+  const meanB = b.report.meanBpm;
+  const both = meanA !== null && meanB !== null;
+  return {
+    durationA: span(a.grid),
+    durationB: span(b.grid),
+    durationDiffSec: span(b.grid) - span(a.grid),
+    meanA,
+    meanB,
+    meanDiffBpm: both ? meanB - meanA : null,
+    meanDiffPct: both ? (meanB / meanA - 1) * 100 : null,
+  } satisfies TakeComparison;
 }

@@ -3,6 +3,7 @@
 // true start, end, drift and stray bars are known by construction and worked in the comments.
 import {
   coefficientOfVariationPct,
+  compareTakes,
   steadiness,
   steadinessSummary,
   theilSenAt,
@@ -35,7 +36,10 @@ test('a steady take reads stability near zero and drift within ±0.5 %', () => {
   expect(Math.abs(r.endBpm! - 120)).toBeLessThan(1);
   expect(r.regions).toEqual([]);
   // Exact beats: no variation at all.
-  const exact = steadiness(take(() => 120, 128), { referenceBpm: 120 });
+  const exact = steadiness(
+    take(() => 120, 128),
+    { referenceBpm: 120 },
+  );
   expect(exact.stabilityPct!).toBeCloseTo(0, 9);
   expect(exact.driftPct!).toBeCloseTo(0, 9);
   expect(steadinessSummary(exact)).toBe('Starts at 120, ends at 120 — the same tempo; every bar within 3 % of 120.');
@@ -53,7 +57,10 @@ test('a take that rushes by 4 % reads a drift of 4 ± 0.5 % and names the bars t
   expect(steadinessSummary(r)).toMatch(/^Starts at 100, ends at 104 — 4 % faster; rushes in bars \d+–32\.$/);
 
   // The same 4 % as one even ramp over the whole take.
-  const ramp = steadiness(take((k) => 100 + (4 * k) / 127, 128), { referenceBpm: 100 });
+  const ramp = steadiness(
+    take((k) => 100 + (4 * k) / 127, 128),
+    { referenceBpm: 100 },
+  );
   expect(Math.abs(ramp.driftPct! - 4)).toBeLessThan(0.5);
 });
 
@@ -110,7 +117,9 @@ test('a region marked rubato leaves the figures unchanged by what happens inside
 test('a take held against a chosen tempo it never reaches drags throughout; against its own tempo it is steady', () => {
   // 16 bars at 100 against a chosen 120: every bar 16.7 % slow.
   const g = take(() => 100, 64);
-  expect(steadiness(g, { referenceBpm: 120 }).regions).toMatchObject([{ direction: 'slower', firstBar: 1, lastBar: 16 }]);
+  expect(steadiness(g, { referenceBpm: 120 }).regions).toMatchObject([
+    { direction: 'slower', firstBar: 1, lastBar: 16 },
+  ]);
   const own = steadiness(g);
   expect(own.referenceBpm).toBeCloseTo(100, 9);
   expect(own.regions).toEqual([]);
@@ -135,7 +144,12 @@ test('the summary names two places and counts the rest', () => {
 test('Theil–Sen reads a line exactly and ignores one wild point among four', () => {
   // y = 2x + 1 at x = 1…4: the line at 1 is 3. With y(3) replaced by 50 the median slope is still 2 (four of
   // the six pairwise slopes do not involve the wild point… three of them are exactly 2).
-  expect(theilSenAt([1, 2, 3, 4].map((x) => ({ x, y: 2 * x + 1 })), 1)).toBeCloseTo(3, 9);
+  expect(
+    theilSenAt(
+      [1, 2, 3, 4].map((x) => ({ x, y: 2 * x + 1 })),
+      1,
+    ),
+  ).toBeCloseTo(3, 9);
   const wild = [1, 2, 3, 4].map((x) => ({ x, y: x === 3 ? 50 : 2 * x + 1 }));
   expect(Math.abs(theilSenAt(wild, 1) - 3)).toBeLessThan(1);
 });
@@ -144,4 +158,16 @@ test('the coefficient of variation is the population standard deviation over the
   // 90 and 110: mean 100, sd 10 → 10 %.
   expect(coefficientOfVariationPct([90, 110])).toBeCloseTo(10, 9);
   expect(coefficientOfVariationPct([100])).toBeNull();
+});
+
+test('two takes compared: the difference in how long they play and in mean tempo', () => {
+  // 16 bars (64 intervals) at 100 BPM play 64 × 0.6 = 38.4 s; at 120 BPM 64 × 0.5 = 32 s: 6.4 s shorter,
+  // 20 BPM (20 %) faster on average.
+  const ga = take(() => 100, 64);
+  const gb = take(() => 120, 64);
+  const c = compareTakes({ grid: ga, report: steadiness(ga) }, { grid: gb, report: steadiness(gb) });
+  expect(c.durationA).toBeCloseTo(38.4, 9);
+  expect(c.durationDiffSec).toBeCloseTo(-6.4, 9);
+  expect(c.meanDiffBpm!).toBeCloseTo(20, 9);
+  expect(c.meanDiffPct!).toBeCloseTo(20, 9);
 });
