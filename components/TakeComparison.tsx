@@ -123,7 +123,7 @@ export function TakeComparison({ song, recordings }: { song: Song; recordings: R
 
       {trend.length >= 2 ? (
         <View style={{ gap: space.sm }} testID="trend">
-          <Heading level={3}>Your last {trend.length} takes</Heading>
+          <Heading level={3}>The last {trend.length} takes</Heading>
           <SteadinessTrendChart
             points={trend.map((t, i) => ({
               n: i + 1,
