@@ -42,6 +42,7 @@ const rushing = (k: number) => (k < 32 ? 120 : 124.8);
 
 let songId: string;
 let ritId: string;
+let referenceId: string;
 let email: string;
 
 beforeAll(async () => {
@@ -68,6 +69,18 @@ beforeAll(async () => {
     ids.push(id);
   }
   ritId = ids[0]!;
+  referenceId = (
+    await player.agent
+      .post(`/api/songs/${songId}/recordings`)
+      .field('kind', 'reference')
+      .attach(
+        'file',
+        takeFile('band-reference', () => 120),
+        'band-reference.wav',
+      )
+      .expect(201)
+  ).body.id;
+  expect((await waitForAnalysis(player.agent, referenceId, 120_000)).status).toBe('done');
 }, 400_000);
 afterAll(async () => {
   await browser?.close();
@@ -141,6 +154,18 @@ test('on a phone the report reads the same, with the mark kept', async () => {
     .filter({ hasText: /^ritardando · bars/ })
     .waitFor();
   await shot(page, 'tempo-curve-card', 'steadiness-report-phone');
+  expect(errors).toEqual([]);
+  await context.close();
+});
+
+test('a reference shows its tempo curve, and the steadiness report on request', async () => {
+  const { page, errors, context } = await open(viewports[0]);
+  await page.goto(`${baseUrl}/recordings/${referenceId}`);
+  await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
+  await page.getByTestId('tempo-curve').waitFor();
+  expect(await page.getByTestId('steadiness-summary').count()).toBe(0);
+  await page.getByTestId('show-steadiness').click();
+  await page.getByTestId('steadiness-summary').filter({ hasText: 'every bar within 3 % of 120' }).waitFor();
   expect(errors).toEqual([]);
   await context.close();
 });
