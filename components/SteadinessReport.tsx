@@ -266,7 +266,7 @@ export function SteadinessReport({
           const bars = report.intended.find((i) => i.startSec === m.startSec && i.endSec === m.endSec);
           return (
             <Row key={m.id}>
-              <Text style={[type.body, { color: colors.ink }]} testID={`mark-${m.kind}`}>
+              <Text style={[type.body, { color: colors.ink }]} testID={`marked-${m.kind}`}>
                 {KIND_WORDS[m.kind]} ·{' '}
                 {bars && bars.firstBar > 0 ? `${barsInWords(bars.firstBar, bars.lastBar)} · ` : ''}
                 {formatClock(m.startSec)}–{formatClock(m.endSec)}
@@ -276,20 +276,11 @@ export function SteadinessReport({
             </Row>
           );
         })}
-        {canEdit && loop ? (
+        {canEdit && loop && !(marks ?? []).some((m) => m.startSec === loop.start && m.endSec === loop.end) ? (
           <Row>
-            <Button
-              label={`Mark ${loopLabel ?? 'the loop'} as rubato`}
-              kind="secondary"
-              onPress={() => addMark('rubato')}
-              testID="mark-rubato"
-            />
-            <Button
-              label="… as ritardando"
-              kind="secondary"
-              onPress={() => addMark('ritardando')}
-              testID="mark-ritardando"
-            />
+            <Text style={[type.label, { color: colors.ink }]}>Mark {loopLabel ?? 'the loop'} as</Text>
+            <Chip label="rubato" onPress={() => addMark('rubato')} testID="mark-rubato" />
+            <Chip label="ritardando" onPress={() => addMark('ritardando')} testID="mark-ritardando" />
           </Row>
         ) : null}
         {markError ? <Notice tone="error">{markError}</Notice> : null}

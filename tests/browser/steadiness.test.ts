@@ -130,11 +130,13 @@ test('the report finds the slow bars, loops them in one tap, and a ritardando ma
   // Marked as a ritardando, the bars are left out: nothing strays, and the mark is listed with its bars.
   await page.getByTestId('mark-ritardando').click();
   await page
-    .getByTestId('mark-ritardando')
+    .getByTestId('marked-ritardando')
     .filter({ hasText: /^ritardando · bars/ })
     .waitFor();
   await page.getByTestId('steadiness-summary').filter({ hasText: 'every bar within 3 % of 120' }).waitFor();
   expect(await region.count()).toBe(0);
+  // The loop is marked now: it is not offered again.
+  expect(await page.getByTestId('mark-rubato').count()).toBe(0);
   await shot(page, 'tempo-curve-card', 'steadiness-marked-desktop');
 
   // A narrower tolerance is the player's to set.
@@ -150,7 +152,7 @@ test('on a phone the report reads the same, with the mark kept', async () => {
   await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
   await page.getByTestId('steadiness-summary').filter({ hasText: 'every bar within 3 % of 120' }).waitFor();
   await page
-    .getByTestId('mark-ritardando')
+    .getByTestId('marked-ritardando')
     .filter({ hasText: /^ritardando · bars/ })
     .waitFor();
   await shot(page, 'tempo-curve-card', 'steadiness-report-phone');
