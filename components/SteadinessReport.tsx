@@ -163,7 +163,7 @@ export function SteadinessReport({
       </Row>
       <Small>
         Drift compares the tempo of the first and last four bars. Beat-to-beat variation is how much the tempo moves
-        from one beat to the next (the coefficient of variation: under 2 % is tight, over 5 % is loose).
+        from one beat to the next (the coefficient of variation; a click track would read 0 %).
       </Small>
       {chart}
 
