@@ -28,6 +28,8 @@ import type {
   SongPatch,
   SongTempos,
   Student,
+  TempoMark,
+  TempoMarkInput,
   Teacher,
   UserSummary,
 } from '@/shared/schemas';
@@ -255,6 +257,36 @@ export async function changeNote(recordingId: string, noteId: string, patch: Not
 export async function deleteNote(recordingId: string, noteId: string) {
   await apiFetch(`/api/notes/${noteId}`, { method: 'DELETE' });
   await mutate(notesKey(recordingId));
+}
+
+// ── Rubato and ritardando marks ──────────────────────────────────────────────────────────────────────
+
+const tempoMarksKey = (recordingId: string) => `/api/recordings/${recordingId}/tempo-marks`;
+
+export function useTempoMarks(recordingId: string | undefined) {
+  const { data, error } = useSWR<{ marks: TempoMark[] }>(recordingId ? tempoMarksKey(recordingId) : null, fetcher);
+  return { marks: data?.marks, error };
+}
+
+/** The marks of several recordings at once (the song's comparison and trend), by recording id. */
+export function useTempoMarksOf(recordingIds: string[]) {
+  const { data } = useSWR(recordingIds.length ? ['tempo-marks', ...recordingIds] : null, async () => {
+    const lists = await Promise.all(
+      recordingIds.map((id) => fetcher<{ marks: TempoMark[] }>(tempoMarksKey(id)).then((d) => d.marks)),
+    );
+    return new Map(recordingIds.map((id, i) => [id, lists[i]!]));
+  });
+  return data;
+}
+
+export async function addTempoMark(recordingId: string, input: TempoMarkInput) {
+  await apiFetch(tempoMarksKey(recordingId), { body: input });
+  await mutate(tempoMarksKey(recordingId));
+}
+
+export async function removeTempoMark(recordingId: string, markId: string) {
+  await apiFetch(`/api/tempo-marks/${markId}`, { method: 'DELETE' });
+  await mutate(tempoMarksKey(recordingId));
 }
 
 // ── Settings ─────────────────────────────────────────────────────────────────────────────────────────

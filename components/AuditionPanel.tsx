@@ -16,6 +16,7 @@ import {
   NotesCard,
   PassagesCard,
   PlayerCard,
+  SteadinessCard,
 } from '@/components/audition/AuditionCards';
 import type { PeaksDto, Recording, Song } from '@/shared/schemas';
 
@@ -38,6 +39,7 @@ export function AuditionPanel({
   const beatFeel = <BeatFeelCard s={s} recording={recording} canEdit={canEdit} />;
   const passages = <PassagesCard s={s} song={song} recording={recording} canEdit={canEdit} />;
   const candidates = <CandidatesCard s={s} song={song} canEdit={canEdit} wide={wide} />;
+  const steadiness = <SteadinessCard s={s} recording={recording} song={song} canEdit={canEdit} />;
 
   if (wide) {
     // The player column keeps the waveform and transport at the top of the view; the side column scrolls past.
@@ -46,6 +48,7 @@ export function AuditionPanel({
         <View style={{ flex: 3, gap: space.lg }}>
           {player}
           <NotesCard s={s} recording={recording} />
+          {steadiness}
           {beatFeel}
         </View>
         <View style={{ flex: 2, gap: space.lg }}>
@@ -60,6 +63,7 @@ export function AuditionPanel({
     <View style={{ gap: space.lg }}>
       {player}
       <NotesCard s={s} recording={recording} />
+      {steadiness}
       {passages}
       {candidates}
       {beatFeel}

@@ -11,7 +11,11 @@ import { uploadRecording } from '@/client/upload';
 import type { Recording, RecordingKind } from '@/shared/schemas';
 
 const kinds: { value: RecordingKind; label: string; hint: string }[] = [
-  { value: 'take', label: 'My take', hint: 'You playing: for the steadiness report and your practice log.' },
+  {
+    value: 'take',
+    label: 'My take',
+    hint: 'You playing: Tactus shows how steady it is (drift, beat-to-beat variation, the bars that rush or drag) and compares it with your other takes.',
+  },
   { value: 'reference', label: 'Reference', hint: 'Someone else’s recording you learn from.' },
 ];
 

@@ -21,6 +21,7 @@ import { songPracticeRouter } from '@/server/routes/practice';
 import { passagesRouter, songPassagesRouter } from '@/server/routes/passages';
 import { notesRouter, recordingNotesRouter } from '@/server/routes/notes';
 import { setListsRouter } from '@/server/routes/setlists';
+import { recordingTempoMarksRouter, tempoMarksRouter } from '@/server/routes/tempo-marks';
 import type { Health } from '@/shared/schemas';
 
 const { version } = require('../package.json') as { version: string };
@@ -59,6 +60,8 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.use('/api/songs', songsRouter);
   app.use('/api/recordings/:recordingId/notes', recordingNotesRouter);
   app.use('/api/notes', notesRouter);
+  app.use('/api/recordings/:recordingId/tempo-marks', recordingTempoMarksRouter);
+  app.use('/api/tempo-marks', tempoMarksRouter);
   app.use('/api/recordings', recordingsRouter);
   app.use('/api/set-lists', setListsRouter);
   app.use('/api/students', studentsRouter);

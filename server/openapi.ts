@@ -25,6 +25,9 @@ import {
   NoteSchema,
   PreferencesSchema,
   ReplyInputSchema,
+  TempoMarkInputSchema,
+  TempoMarkListSchema,
+  TempoMarkSchema,
   PassageInputSchema,
   PassageListSchema,
   PassagePatchSchema,
@@ -348,6 +351,33 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       errors: [403],
     },
 
+    // ── Intended tempo changes ──
+    {
+      method: 'get',
+      path: '/api/recordings/{recordingId}/tempo-marks',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'The stretches of a recording marked rubato or ritardando (left out of the steadiness report)',
+      ok: { 200: json('In time order.', s.TempoMarkList) },
+    },
+    {
+      method: 'post',
+      path: '/api/recordings/{recordingId}/tempo-marks',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'Mark a stretch as rubato or ritardando (owner only)',
+      body: s.TempoMarkInput,
+      ok: { 201: json('The new mark.', s.TempoMark) },
+    },
+    {
+      method: 'delete',
+      path: '/api/tempo-marks/{id}',
+      tag: 'recordings',
+      access: 'signed-in',
+      summary: 'Remove a rubato or ritardando mark (owner only)',
+      ok: { 204: noContent('Removed.') },
+    },
+
     // ── Tempos and practice ──
     {
       method: 'get',
@@ -663,6 +693,9 @@ function namedSchemas() {
     NotePatch: r('NotePatch', NotePatchSchema),
     ReplyInput: r('ReplyInput', ReplyInputSchema),
     NoteList: r('NoteList', NoteListSchema),
+    TempoMark: r('TempoMark', TempoMarkSchema),
+    TempoMarkInput: r('TempoMarkInput', TempoMarkInputSchema),
+    TempoMarkList: r('TempoMarkList', TempoMarkListSchema),
     Song: r('Song', SongSchema),
     SongInput: r('SongInput', SongInputSchema),
     SongPatch: r('SongPatch', SongPatchSchema),

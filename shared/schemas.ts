@@ -473,6 +473,27 @@ export type Note = z.infer<typeof NoteSchema>;
 export type NoteReply = z.infer<typeof NoteReplySchema>;
 export const NoteListSchema = z.object({ notes: z.array(NoteSchema) });
 
+// ── Intended tempo changes on a recording ─────────────────────────────────────────────────────────────
+
+export const TEMPO_MARK_KINDS = ['rubato', 'ritardando'] as const;
+export const TempoMarkKindSchema = z.enum(TEMPO_MARK_KINDS, { message: 'choose rubato or ritardando' });
+/** A stretch the player meant to play freely or slowing down: left out of the steadiness figures. */
+export const TempoMarkInputSchema = z
+  .object({ kind: TempoMarkKindSchema, startSec: SecondsSchema, endSec: SecondsSchema })
+  .strict()
+  .refine((m) => m.endSec > m.startSec, { message: 'the marked passage must end after it starts', path: ['endSec'] });
+export type TempoMarkInput = z.infer<typeof TempoMarkInputSchema>;
+export const TempoMarkSchema = z.object({
+  id: z.string(),
+  recordingId: z.string(),
+  kind: TempoMarkKindSchema,
+  startSec: z.number(),
+  endSec: z.number(),
+  createdAt: z.string(),
+});
+export type TempoMark = z.infer<typeof TempoMarkSchema>;
+export const TempoMarkListSchema = z.object({ marks: z.array(TempoMarkSchema) });
+
 export const PreferencesSchema = z.object({ noteDigests: z.boolean() }).strict();
 export type Preferences = z.infer<typeof PreferencesSchema>;
 

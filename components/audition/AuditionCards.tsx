@@ -7,6 +7,7 @@ import { Button, Card, Heading, Notice, Row, Small } from '@/components/ui';
 import { colors, space, type } from '@/components/theme';
 import { PracticeLog } from '@/components/PracticeLog';
 import { NotesPanel } from '@/components/NotesPanel';
+import { SteadinessReport } from '@/components/SteadinessReport';
 import { barContaining, snapPassage } from '@/audio/practice/passage';
 import { formatBpm } from '@/shared/format';
 import type { PeaksDto, Recording, Song } from '@/shared/schemas';
@@ -256,5 +257,33 @@ export function NotesCard({ s, recording }: { s: AuditionSession; recording: Rec
       onSeek={s.audition.seek}
       onLoop={(start, end) => s.stepUp.changePassage({ start, end })}
     />
+  );
+}
+
+/** The tempo curve with the steadiness report, on the grid the player feels; a region's Loop plays it. */
+export function SteadinessCard({
+  s,
+  recording,
+  song,
+  canEdit,
+}: {
+  s: AuditionSession;
+  recording: Recording;
+  song: Song | undefined;
+  canEdit: boolean;
+}) {
+  return (
+    <Card testID="tempo-curve-card">
+      <Heading level={3}>{recording.kind === 'take' ? 'How steady' : 'Tempo across the recording'}</Heading>
+      <SteadinessReport
+        recording={recording}
+        song={song}
+        grid={s.grid}
+        canEdit={canEdit}
+        loop={s.audition.loop}
+        loopLabel={s.loopLabel}
+        onLoop={(start, end) => s.stepUp.changePassage({ start, end })}
+      />
+    </Card>
   );
 }

@@ -47,13 +47,12 @@ export function useAuditionSession({
     [a.beats, a.downbeats, originalBpm, barOneSec, nudgeMs, meter],
   );
   const felt = useMemo(() => feltAt(beatLevel), [feltAt, beatLevel]);
-  const grid = {
-    beats: felt.beats,
-    downbeats: felt.downbeats,
-    durationSec: recording.durationSec || a.durationSec,
-    originalBpm: felt.bpm,
-    meter,
-  };
+  const durationSec = recording.durationSec || a.durationSec;
+  // One object per grid, so what is computed from it (the steadiness report) is computed once.
+  const grid = useMemo(
+    () => ({ beats: felt.beats, downbeats: felt.downbeats, durationSec, originalBpm: felt.bpm, meter }),
+    [felt, durationSec, meter],
+  );
   const audition = useAuditionPlayer(audioUrl, grid);
   const { loop, bpm, setBpm, skip } = audition;
 

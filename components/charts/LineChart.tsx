@@ -245,7 +245,11 @@ export function LineChart({
       return {
         ...s,
         d: path(points) ?? '',
-        dots: s.points.length > 0 && plotW / s.points.length >= DOT_SPACING ? s.points : [],
+        // A gap (a point without a value) has no dot.
+        dots:
+          s.points.length > 0 && plotW / s.points.length >= DOT_SPACING
+            ? s.points.filter((p) => Number.isFinite(p.y))
+            : [],
       };
     });
     const refYs = spreadLabels(

@@ -8,7 +8,7 @@ import { smoothTempo, tempoByBar, type BarTempo } from '@/audio/practice/tempo-b
 import { formatBpm } from '@/shared/format';
 import { Small } from '@/components/ui';
 import { colors, space } from '@/components/theme';
-import { LineChart, type ReferenceLine } from './LineChart';
+import { LineChart, type ReferenceLine, type Series, type XRange } from './LineChart';
 
 type SongTempos = Pick<Song, 'chosenBpm' | 'goalBpm' | 'workingBpm'>;
 
@@ -58,23 +58,44 @@ export function tempoCaption(bars: BarTempo[]): string {
   return `Tempo by bar: starts at ${round(smooth[0]!.bpm)}, ends at ${round(smooth[smooth.length - 1]!.bpm)} (${bars.length} bars)`;
 }
 
+/**
+ * The steadiness report draws on the same chart: the bars smoothed over its window as a second line, the bars that
+ * rush or drag and the marked rubato as labelled bands, and its own caption.
+ */
+export interface TempoCurveOverlay {
+  smoothed?: { label: string; bars: BarTempo[] };
+  ranges?: XRange[];
+  caption?: string;
+}
+
 export function TempoCurveChart({
   analysis,
   song,
   height = 220,
+  overlay,
 }: {
   analysis: Pick<Analysis, 'beats' | 'downbeats' | 'durationSec'> | null | undefined;
   song?: SongTempos | null;
   height?: number;
+  overlay?: TempoCurveOverlay;
 }) {
   const bars = useMemo(() => (analysis ? tempoByBar(analysis) : []), [analysis]);
   const refs = useMemo(() => referenceLines(song), [song]);
-  const series = useMemo(
-    () => [
-      { id: 'tempo', label: 'tempo by bar', points: bars.map((b) => ({ x: b.bar, y: b.bpm })), color: colors.teal },
-    ],
-    [bars],
-  );
+  const smoothed = overlay?.smoothed;
+  const series = useMemo((): Series[] => {
+    const raw: Series = {
+      id: 'tempo',
+      label: 'tempo by bar',
+      points: bars.map((b) => ({ x: b.bar, y: b.bpm })),
+      color: colors.teal,
+      width: smoothed ? 1.5 : 2,
+    };
+    if (!smoothed) return [raw];
+    // A bar left out (marked rubato) is a gap in the smoothed line, not a slope across it.
+    const byBar = new Map(smoothed.bars.map((b) => [b.bar, b.bpm]));
+    const points = bars.map((b) => ({ x: b.bar, y: byBar.get(b.bar) ?? NaN }));
+    return [raw, { id: 'smoothed', label: smoothed.label, points, color: colors.tealDark, width: 3, dash: '8 3' }];
+  }, [bars, smoothed]);
   const yDomain = useMemo((): [number, number] => {
     const ys = [...bars.map((b) => b.bpm), ...refs.map((r) => r.y)];
     const lo = Math.min(...ys);
@@ -84,7 +105,7 @@ export function TempoCurveChart({
   }, [bars, refs]);
 
   if (!analysis) return <Small>The tempo curve appears here once the analysis is done.</Small>;
-  const caption = tempoCaption(bars);
+  const caption = bars.length === 0 ? tempoCaption(bars) : (overlay?.caption ?? tempoCaption(bars));
   if (bars.length === 0) return <Small>{caption}</Small>;
 
   const lines = refs.map((r) => r.label).join(', ');
@@ -94,6 +115,7 @@ export function TempoCurveChart({
       <LineChart
         series={series}
         referenceLines={refs}
+        ranges={overlay?.ranges}
         xDomain={bars.length > 1 ? [bars[0]!.bar, bars[bars.length - 1]!.bar] : undefined}
         yDomain={yDomain}
         xTickSteps={BAR_TICK_STEPS}

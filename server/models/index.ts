@@ -14,6 +14,7 @@ import { Passage } from './Passage';
 import { StudioInvitation } from './StudioInvitation';
 import { RecordingNote } from './RecordingNote';
 import { SetList, SetListItem } from './SetList';
+import { TempoMark } from './TempoMark';
 
 User.hasMany(Song, { foreignKey: 'ownerId', as: 'songs', onDelete: 'CASCADE' });
 Song.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
@@ -28,6 +29,7 @@ Song.hasMany(PracticeEntry, { foreignKey: 'songId', as: 'practice', onDelete: 'C
 RecordingNote.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 Song.hasMany(Passage, { foreignKey: 'songId', as: 'passages', onDelete: 'CASCADE' });
 Passage.belongsTo(Recording, { foreignKey: 'recordingId', as: 'recording' });
+Recording.hasMany(TempoMark, { foreignKey: 'recordingId', as: 'tempoMarks', onDelete: 'CASCADE' });
 
 /** better-auth's model names (after our modelName mapping) → the Sequelize model that stores them. */
 export const authModels = { users: User, sessions: Session, accounts: Account, verifications: Verification } as const;
@@ -49,4 +51,5 @@ export {
   RecordingNote,
   SetList,
   SetListItem,
+  TempoMark,
 };

@@ -17,7 +17,8 @@ export type ThingKind =
   | 'practice-entry'
   | 'passage'
   | 'note'
-  | 'set-list';
+  | 'set-list'
+  | 'tempo-mark';
 export type Action = 'read' | 'write';
 
 /**
@@ -41,6 +42,8 @@ export const ACCESS: Record<ThingKind, Record<Action, readonly Relation[]>> = {
   note: { read: ['owner', 'linked-teacher', 'admin'], write: ['owner', 'linked-teacher'] },
   // A set list is the player's plan for a gig; their teacher may look at it too.
   'set-list': { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
+  // What the player meant as rubato or ritardando in their own recording; the teacher sees it in the report.
+  'tempo-mark': { read: ['owner', 'linked-teacher', 'admin'], write: ['owner'] },
 };
 
 const NAMES: Record<ThingKind, string> = {
@@ -54,6 +57,7 @@ const NAMES: Record<ThingKind, string> = {
   passage: 'passage',
   note: 'note',
   'set-list': 'set list',
+  'tempo-mark': 'marked passage',
 };
 
 export async function relationTo(user: Me | null | undefined, ownerId: string): Promise<Relation> {

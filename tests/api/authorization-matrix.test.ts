@@ -126,6 +126,13 @@ const newNote = async () =>
       .send({ text: 'spare', atSec: 1 })
       .expect(201)
   ).body.id;
+const newTempoMark = async () =>
+  (
+    await w.people.owner.agent
+      .post(`/api/recordings/${w.recordingId}/tempo-marks`)
+      .send({ kind: 'rubato', startSec: 1, endSec: 2 })
+      .expect(201)
+  ).body.id;
 const newSetList = async () =>
   (
     await w.people.owner.agent
@@ -284,6 +291,21 @@ const MATRIX: Record<string, Case> = {
     expect: { owner: 204, linkedTeacher: 403, otherTeacher: 404, otherPlayer: 404, admin: 403, anonymous: 401 },
     prepare: newNote,
     send: (a, id) => a.delete(`/api/notes/${id}`),
+  },
+
+  'GET /api/recordings/:recordingId/tempo-marks': {
+    expect: read,
+    send: (a) => a.get(`/api/recordings/${w.recordingId}/tempo-marks`),
+  },
+  'POST /api/recordings/:recordingId/tempo-marks': {
+    expect: ownerOnly(201),
+    send: (a) =>
+      a.post(`/api/recordings/${w.recordingId}/tempo-marks`).send({ kind: 'ritardando', startSec: 2, endSec: 3 }),
+  },
+  'DELETE /api/tempo-marks/:id': {
+    expect: ownerOnly(204),
+    prepare: newTempoMark,
+    send: (a, id) => a.delete(`/api/tempo-marks/${id}`),
   },
 
   'GET /api/set-lists': { expect: signedIn(200), send: (a) => a.get('/api/set-lists') },

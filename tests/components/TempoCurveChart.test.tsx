@@ -3,6 +3,8 @@
 import React from 'react';
 import { render, screen } from '@testing-library/react';
 import { TempoCurveChart } from '@/components/charts/TempoCurveChart';
+import { reportRanges } from '@/components/SteadinessReport';
+import { steadiness } from '@/audio/practice/steadiness';
 
 function stepGrid() {
   const beats = [1];
@@ -108,4 +110,28 @@ test('a ten-minute take keeps bar numbers apart and evenly spaced and the path n
   expect(bars[0]).toBe(1);
   expect(Math.log2(step) % 1).toBe(0);
   bars.forEach((b, i) => expect(b).toBe(1 + i * step));
+});
+
+test('with the steadiness report on it: a smoothed line with a gap at the marked bars, and labelled bands', () => {
+  // The step grid (bars 1–4 at 100, 5–8 at 110) with bars 3–4 marked rubato: the report smooths bars 1, 2, 5–8
+  // and leaves 3–4 out, so its line breaks there; bar 5 onward runs 10 % faster than the chosen 100.
+  const grid = stepGrid();
+  const report = steadiness(grid, {
+    referenceBpm: 100,
+    intended: [{ kind: 'rubato', startSec: grid.downbeats[2]!, endSec: grid.downbeats[4]! }],
+  });
+  expect(report.bars.filter((b) => b.intended).map((b) => b.bar)).toEqual([3, 4]);
+  render(
+    <TempoCurveChart
+      analysis={grid}
+      song={{ chosenBpm: 100, goalBpm: null, workingBpm: null }}
+      overlay={{ smoothed: { label: 'smoothed over 3 bars', bars: report.smoothed }, ranges: reportRanges(report) }}
+    />,
+  );
+  const smoothed = screen.getByTestId('series-smoothed').getAttribute('d')!;
+  // d3's line starts a new M at each undefined point: bars 1–2, then 5–8.
+  expect(smoothed.match(/M/g)).toHaveLength(2);
+  expect(screen.getByText('rubato')).toBeTruthy();
+  expect(screen.getByText('rushes')).toBeTruthy();
+  expect(screen.getByText('smoothed over 3 bars')).toBeTruthy();
 });

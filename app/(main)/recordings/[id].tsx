@@ -74,9 +74,6 @@ export default function RecordingScreen() {
             <Small>
               Confidence {Math.round(a.confidence * 100)} % · {a.meter ?? 'meter unclear'} ·{' '}
               {plural(a.beatCount, 'beat')}
-              {a.startBpm !== null && a.endBpm !== null
-                ? ` · starts ${formatBpm(Math.round(a.startBpm))}, ends ${formatBpm(Math.round(a.endBpm))}`
-                : ''}
             </Small>
             {a.confidence < 0.4 ? (
               <Notice tone="caution">Tactus is not sure about this one: check it by tapping along.</Notice>
@@ -103,10 +100,13 @@ export default function RecordingScreen() {
               />
             </Card>
           ) : null}
-          <Card testID="tempo-curve-card">
-            <Heading level={3}>Tempo across the recording</Heading>
-            <TempoCurveChart analysis={a} song={song} />
-          </Card>
+          {/* With a player, the tempo curve is drawn on the beat the player feels, with the steadiness report. */}
+          {bpm === null ? (
+            <Card testID="tempo-curve-card">
+              <Heading level={3}>Tempo across the recording</Heading>
+              <TempoCurveChart analysis={a} song={song} />
+            </Card>
+          ) : null}
           {/* With a player, the notes sit beside it (AuditionPanel), where tapping one plays from it. */}
           {bpm === null ? <NotesPanel recording={r} /> : null}
         </>

@@ -10,6 +10,7 @@ import { space } from '@/components/theme';
 import { ScreenTitle } from '@/components/ScreenTitle';
 import { useCandidates, useMe, useRecordings, useSong } from '@/client/hooks';
 import { DurationPlanner } from '@/components/DurationPlanner';
+import { TakeComparison } from '@/components/TakeComparison';
 import { EditOrDeleteSong, RecordingActions, SetTempos, TemposSetBy } from '@/components/SongManagement';
 import { whose } from '@/shared/format';
 
@@ -63,6 +64,7 @@ export default function SongScreen() {
           {r.permissions.edit ? <RecordingActions recording={r} /> : null}
         </View>
       ))}
+      {recordings && recordings.length > 0 ? <TakeComparison song={song} recordings={recordings} /> : null}
       {song.permissions.addReference ? (
         <UploadPanel
           songId={song.id}
