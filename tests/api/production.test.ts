@@ -64,13 +64,16 @@ test('production serves the OpenAPI document, without the development routes, an
 });
 
 /** Starts a production server with `env` over the test settings; resolves with its exit code and output. */
-function startProduction(env: NodeJS.ProcessEnv) {
+function startProduction(env: Record<string, string | undefined>) {
   return new Promise<{ code: number | null; output: string }>((resolve) => {
-    const proc = spawnTs(
-      'server/index.ts',
-      { ...process.env, NODE_ENV: 'production', TACTUS_PORT: '1', TACTUS_DB_NAME: 'tactus_test', ...env },
-      ['ignore', 'pipe', 'pipe'],
-    );
+    const childEnv: NodeJS.ProcessEnv = {
+      ...process.env,
+      NODE_ENV: 'production',
+      TACTUS_PORT: '1',
+      TACTUS_DB_NAME: 'tactus_test',
+    };
+    Object.assign(childEnv, env);
+    const proc = spawnTs('server/index.ts', childEnv, ['ignore', 'pipe', 'pipe']);
     let output = '';
     proc.stdout!.on('data', (c: Buffer) => (output += c.toString()));
     proc.stderr!.on('data', (c: Buffer) => (output += c.toString()));

@@ -7,7 +7,7 @@ import request from 'supertest';
 import { agent, baseUrl, PASSWORD, query, signedInUser, testAddress, uniqueEmail, type TestServer } from './helpers';
 import { freePort, spawnTs, waitForOk } from '@/tests/setup/processes';
 
-const serverEnv = JSON.parse(process.env.TACTUS_TEST_SERVER_ENV!) as Record<string, string>;
+const serverEnv = JSON.parse(process.env.TACTUS_TEST_SERVER_ENV!) as NodeJS.ProcessEnv;
 const SMALL = { uploads: 3, invitations: 2, mailsPerAccount: 2, signUps: 3 };
 
 let child: ChildProcess;
