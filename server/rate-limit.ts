@@ -90,19 +90,23 @@ export const digest = (text: string) =>
 const waitWords = (ms: number) =>
   ms < 60_000 ? plural(Math.max(1, Math.ceil(ms / 1000)), 'second') : plural(Math.ceil(ms / 60_000), 'minute');
 
-const refusal = (what: string, ms: number) =>
-  new TooManyRequests(`${what} Try again in ${waitWords(ms)}.`, Math.max(1, Math.ceil(ms / 1000)));
+/** "Too many … Try again in 15 minutes[, or …]." */
+const refusal = (what: string, ms: number, otherwise?: string) =>
+  new TooManyRequests(
+    `${what} Try again in ${waitWords(ms)}${otherwise ? `, or ${otherwise}` : ''}.`,
+    Math.max(1, Math.ceil(ms / 1000)),
+  );
 
 /**
  * Counts one request against `name` for `key`; past the limit, a 429 saying when to try again. A store that
  * cannot be reached lets the request through (and says so in the log): the database it lives in is the one
  * every request needs anyway.
  */
-export async function consume(name: LimitName, key: string, what: string): Promise<void> {
+export async function consume(name: LimitName, key: string, what: string, otherwise?: string): Promise<void> {
   try {
     await limiter(name).consume(key);
   } catch (err) {
-    if (err instanceof RateLimiterRes) throw refusal(what, err.msBeforeNext);
+    if (err instanceof RateLimiterRes) throw refusal(what, err.msBeforeNext, otherwise);
     log.warn({ err, limit: name }, 'rate limit store unavailable');
   }
 }

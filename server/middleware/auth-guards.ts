@@ -29,7 +29,12 @@ const GUARDS: Record<string, Guard> = {
   'POST /sign-in/email': async (req, res) => {
     const key = accountAtAddress(req);
     await consume('signInPerAddress', address(req), 'Too many sign-in attempts from your network.');
-    await consume('signInFailures', key, 'Too many wrong passwords for this account.');
+    await consume(
+      'signInFailures',
+      key,
+      'Too many wrong passwords for this account.',
+      'choose a new one with “Forgot your password?”',
+    );
     res.on('finish', () => {
       if (res.statusCode === 200) void forget('signInFailures', key);
     });

@@ -37,7 +37,7 @@ const expectTooMany = (res: request.Response, words: RegExp) => {
   expect(res.status).toBe(429);
   expect(res.body.error.code).toBe('too_many_requests');
   expect(res.body.error.message).toMatch(words);
-  expect(res.body.error.message).toMatch(/Try again in \d+ (second|minute)s?\./);
+  expect(res.body.error.message).toMatch(/Try again in \d+ (second|minute)s?[.,]/);
   expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
 };
 
@@ -55,6 +55,9 @@ test('ten wrong passwords for one account from one address, on either server, lo
   for (const url of [baseUrl, second.url]) {
     const res = await signIn(url, PASSWORD);
     expectTooMany(res, /wrong passwords/);
+    expect(res.body.error.message).toMatch(
+      /Try again in 1?\d minutes, or choose a new one with “Forgot your password\?”\.$/,
+    );
     expect(Number(res.headers['retry-after'])).toBeLessThanOrEqual(15 * 60);
     expect(Number(res.headers['retry-after'])).toBeGreaterThan(14 * 60);
   }
