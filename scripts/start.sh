@@ -12,6 +12,8 @@ export TACTUS_DB_NAME=tactus_dev
 export TACTUS_PORT="${TACTUS_PORT:-4610}"
 export TACTUS_PUBLIC_URL="${TACTUS_PUBLIC_URL:-http://127.0.0.1:$TACTUS_PORT}"
 export TACTUS_SERVE_WEB=1
+# One JSON line per request goes to the log file, not the console (server/log.ts).
+export TACTUS_LOG_FILE="${TACTUS_LOG_FILE:-$TACTUS_STATE/logs/server.log}"
 
 "$ROOT/node_modules/.bin/tsx" "$ROOT/server/mail/catcher-cli.ts" &
 catcher=$!

@@ -7,6 +7,9 @@ import { auth } from './auth';
 import { config } from './config';
 import { databaseState } from './db';
 import { errorHandler, HttpError } from './http';
+import { requestLogger } from './log';
+import { authGuards } from './middleware/auth-guards';
+import { sameOriginOnly, securityHeaders } from './middleware/security';
 import { buildOpenApiDocument, openApiRouter } from './openapi';
 import { loadUser } from '@/server/middleware/session';
 import { adminRouter } from '@/server/routes/admin';
@@ -29,12 +32,17 @@ const { version } = require('../package.json') as { version: string };
 export function createApp(opts: { serveWeb?: boolean } = {}) {
   const app = express();
   app.disable('x-powered-by');
+  // The server listens on loopback only: whatever is in front of it (a reverse proxy) says who the client is.
   app.set('trust proxy', 'loopback');
+  app.use(requestLogger);
+  app.use(securityHeaders);
+  app.use('/api', sameOriginOnly);
 
-  // better-auth reads the raw body itself, so it is mounted before the JSON parser.
+  // better-auth behind our guards: bounded bodies, checked names, rate limits (server/middleware/auth-guards.ts).
+  app.use('/api/auth', ...authGuards);
   app.all('/api/auth/{*splat}', toNodeHandler(auth));
 
-  app.use(express.json({ limit: '1mb' }));
+  app.use(express.json({ limit: config.maxJsonBytes }));
 
   app.get('/api/health', async (_req, res) => {
     const database = await databaseState();

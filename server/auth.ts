@@ -2,11 +2,12 @@
 import { betterAuth } from 'better-auth';
 import { config } from './config';
 import { sequelizeAdapter } from './auth-adapter';
+import { log } from './log';
 import { linkMail, sendMail } from '@/server/mail/mailer';
 
 const deliver = (mail: Parameters<typeof sendMail>[0]) => {
   // better-auth waits for these hooks; sending in the background keeps sign-up fast, and a failure is logged.
-  sendMail(mail).catch((err) => console.error('[tactus] could not send mail:', err));
+  sendMail(mail).catch((err) => log.error({ err }, 'could not send mail'));
 };
 
 export const auth = betterAuth({
@@ -14,12 +15,7 @@ export const auth = betterAuth({
   baseURL: config.publicUrl,
   basePath: '/api/auth',
   secret: config.authSecret,
-  trustedOrigins: [
-    config.publicUrl,
-    'http://localhost:8081',
-    'http://127.0.0.1:8081',
-    ...(process.env.TACTUS_TRUSTED_ORIGINS?.split(',') ?? []),
-  ],
+  trustedOrigins: config.trustedOrigins,
   database: sequelizeAdapter(),
   telemetry: { enabled: false },
   user: {
@@ -67,5 +63,8 @@ export const auth = betterAuth({
         ),
       ),
   },
-  rateLimit: { enabled: config.production },
+  // Our own limits (server/rate-limit.ts) count in the database, in every mode and across processes;
+  // better-auth's would count per process, and only in production.
+  rateLimit: { enabled: false },
+  advanced: { useSecureCookies: config.secureCookies },
 });

@@ -5,6 +5,8 @@ const root = process.env.TACTUS_ROOT ?? path.resolve(__dirname, '..');
 const state = process.env.TACTUS_STATE ?? path.join(root, '.tactus');
 const production = process.env.NODE_ENV === 'production';
 const port = Number(process.env.TACTUS_PORT ?? 4610);
+const publicUrl = process.env.TACTUS_PUBLIC_URL ?? `http://127.0.0.1:${port}`;
+const num = (name: string, fallback: number) => Number(process.env[name] ?? fallback);
 
 export const config = {
   root,
@@ -12,8 +14,41 @@ export const config = {
   /** The caught-mail page and other development helpers are never mounted in production. */
   devTools: !production || process.env.TACTUS_DEV_TOOLS === '1',
   port,
-  publicUrl: process.env.TACTUS_PUBLIC_URL ?? `http://127.0.0.1:${port}`,
+  publicUrl,
   authSecret: process.env.TACTUS_AUTH_SECRET ?? 'tactus-local-development-secret-change-me-in-production',
+  /** Production refuses to start on the development secret (server/index.ts). */
+  authSecretSet: Boolean(process.env.TACTUS_AUTH_SECRET),
+  /** Origins whose pages may send state-changing requests: the app itself and the Expo dev server. */
+  trustedOrigins: [
+    new URL(publicUrl).origin,
+    'http://localhost:8081',
+    'http://127.0.0.1:8081',
+    ...(process.env.TACTUS_TRUSTED_ORIGINS?.split(',').filter(Boolean) ?? []),
+  ],
+  /** Session cookies marked Secure: on when the public address is https, or TACTUS_SECURE_COOKIES=1. */
+  secureCookies:
+    process.env.TACTUS_SECURE_COOKIES === '1' ||
+    (process.env.TACTUS_SECURE_COOKIES !== '0' && publicUrl.startsWith('https:')),
+  /** Structured request logs (pino): level, and a file to write them to (default: standard output). */
+  log: {
+    level: process.env.TACTUS_LOG_LEVEL ?? 'info',
+    file: process.env.TACTUS_LOG_FILE,
+  },
+  /** The largest JSON body any route reads, sign-in routes included (the server says 413 past it). */
+  maxJsonBytes: num('TACTUS_MAX_JSON_BYTES', 1024 * 1024),
+  /**
+   * Rate limits, counted in the database so every server process shares them: `points` requests per
+   * `seconds`. Sign-in failures are counted per account and address, the rest per address or per person.
+   */
+  rateLimits: {
+    signInFailures: { points: num('TACTUS_RATE_SIGNIN_FAILURES', 10), seconds: num('TACTUS_RATE_SIGNIN_SECONDS', 900) },
+    signInPerAddress: { points: num('TACTUS_RATE_SIGNIN_PER_ADDRESS', 100), seconds: 900 },
+    signUp: { points: num('TACTUS_RATE_SIGNUPS', 20), seconds: num('TACTUS_RATE_SIGNUP_SECONDS', 3600) },
+    mailPerAccount: { points: num('TACTUS_RATE_MAILS_PER_ACCOUNT', 5), seconds: 3600 },
+    mailPerAddress: { points: num('TACTUS_RATE_MAILS_PER_ADDRESS', 20), seconds: 3600 },
+    invitations: { points: num('TACTUS_RATE_INVITATIONS', 30), seconds: 3600 },
+    uploads: { points: num('TACTUS_RATE_UPLOADS', 60), seconds: 3600 },
+  },
   webDist: process.env.TACTUS_WEB_DIST ?? path.join(root, 'dist'),
   db: {
     host: process.env.TACTUS_DB_HOST ?? '127.0.0.1',

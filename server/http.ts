@@ -1,6 +1,7 @@
 // The API's error shape and the helpers that produce it (see ApiErrorSchema in shared/schemas.ts).
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { ZodType } from 'zod';
+import { log } from './log';
 
 export class HttpError extends Error {
   constructor(
@@ -11,6 +12,16 @@ export class HttpError extends Error {
     readonly issues?: { field: string; message: string }[],
   ) {
     super(message);
+  }
+}
+
+/** Too many requests of one kind: 429 with Retry-After, so a client knows when to try again. */
+export class TooManyRequests extends HttpError {
+  constructor(
+    message: string,
+    readonly retryAfterSec: number,
+  ) {
+    super(429, 'too_many_requests', message);
   }
 }
 
@@ -45,28 +56,29 @@ export const handler =
     }
   };
 
-// Answers are always JSON, even when a route had already set another type (the audio route sets its own).
-export function errorHandler(err: unknown, _req: Request, res: Response, _next: NextFunction) {
-  if (err instanceof HttpError) {
+/**
+ * Answers are always JSON, even when a route had already set another type (the audio route sets its own), and
+ * carry the request id the log line has (never a stack trace).
+ */
+export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
+  const requestId = String(req.id ?? '');
+  const answer = (status: number, error: { code: string; message: string; field?: string; issues?: unknown }) =>
     res
       .type('json')
-      .status(err.status)
-      .json({ error: { code: err.code, message: err.message, field: err.field, issues: err.issues } });
+      .status(status)
+      .json({ error: { ...error, requestId } });
+  if (err instanceof TooManyRequests) res.set('Retry-After', String(err.retryAfterSec));
+  if (err instanceof HttpError) {
+    answer(err.status, { code: err.code, message: err.message, field: err.field, issues: err.issues });
     return;
   }
   const e = err as { type?: string; status?: number; message?: string };
   if (e?.type === 'entity.parse.failed') {
-    res
-      .type('json')
-      .status(400)
-      .json({ error: { code: 'invalid_json', message: 'the request body is not valid JSON' } });
+    answer(400, { code: 'invalid_json', message: 'the request body is not valid JSON' });
     return;
   }
   if (e?.type === 'entity.too.large') {
-    res
-      .type('json')
-      .status(413)
-      .json({ error: { code: 'too_large', message: 'the request body is too large' } });
+    answer(413, { code: 'too_large', message: 'the request body is too large' });
     return;
   }
   // Other refusals that Express and its body parser mark as the client's (an unknown charset or
@@ -87,12 +99,10 @@ export function errorHandler(err: unknown, _req: Request, res: Response, _next: 
       (err instanceof URIError
         ? ['bad_path', 'the address is not valid (it has a broken % escape)']
         : ['bad_request', 'the request could not be read']);
-    res.type('json').status(status).json({ error: { code, message } });
+    answer(status, { code, message });
     return;
   }
-  console.error('[tactus] unexpected error:', err);
-  res
-    .type('json')
-    .status(500)
-    .json({ error: { code: 'internal', message: 'something went wrong on our side' } });
+  // The stack goes to the log, under the request id the answer names; the answer says only that it failed.
+  (req.log ?? log).error({ err }, 'unexpected error');
+  answer(500, { code: 'internal', message: 'something went wrong on our side' });
 }

@@ -9,7 +9,22 @@ import { ENGINE_VERSION } from '@/audio/analysis/version';
 import { cleanSpool } from '@/server/middleware/upload';
 import { startDigests, stopDigests } from '@/server/services/digests';
 
+/** Settings production cannot do without; the server says which and does not start. */
+function productionProblems(): string[] {
+  if (!config.production) return [];
+  const problems: string[] = [];
+  if (!config.authSecretSet)
+    problems.push('TACTUS_AUTH_SECRET is not set (sessions would be signed with a public key)');
+  else if (config.authSecret.length < 32) problems.push('TACTUS_AUTH_SECRET is shorter than 32 characters');
+  return problems;
+}
+
 async function main() {
+  const problems = productionProblems();
+  if (problems.length) {
+    console.error(`[tactus] will not start in production: ${problems.join('; ')}`);
+    process.exit(1);
+  }
   const applied = await migrate();
   if (applied.length) console.log(`[tactus] applied migrations: ${applied.join(', ')}`);
   cleanSpool();
@@ -23,6 +38,12 @@ async function main() {
   const app = createApp({ serveWeb });
   const server = app.listen(config.port, '127.0.0.1', () => {
     console.log(`[tactus] serving ${serveWeb ? 'the app and ' : ''}the API at ${config.publicUrl}`);
+    if (config.devTools)
+      console.log(
+        `[tactus] development helpers are on (caught mail at /dev/mail, API docs at /api/docs); ` +
+          `they are never mounted with NODE_ENV=production`,
+      );
+    if (config.log.file) console.log(`[tactus] request log: ${config.log.file}`);
   });
   const stop = () => {
     stopDigests();

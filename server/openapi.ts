@@ -867,7 +867,8 @@ export function buildOpenApiDocument(opts: { devTools: boolean }) {
       version,
       description:
         'Songs, recordings and their tempo analysis, candidate and chosen tempos, practice logs, studios. ' +
-        'Every error of our own is `{ error: { code, message, field? } }`; better-auth’s endpoints under /api/auth answer in its own shape. ' +
+        'Every error of our own is `{ error: { code, message, field?, requestId } }` (requestId = the X-Request-Id header); better-auth’s endpoints under /api/auth answer in its own shape, except where our guards refuse first (413, 400, 429). ' +
+        'Sign-in, sign-up, account mails, invitations and uploads are rate-limited: 429 with Retry-After. A POST, PATCH, PUT or DELETE with a foreign Origin gets 403. ' +
         'An operation with `security` needs the session cookie; `x-roles` names the roles it allows when not every signed-in user may call it.',
     },
     tags: [

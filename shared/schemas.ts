@@ -196,12 +196,26 @@ export type Teacher = z.infer<typeof TeacherSchema>;
 export const TeacherListSchema = z.object({ teachers: z.array(TeacherSchema) });
 
 /** Every error the API sends has this shape; `field` names the offending input when there is one. */
+/** A person's name as teachers and students see it. */
+export const PersonNameSchema = z.string().trim().min(1, 'enter your name').max(200);
+const AvatarUrlSchema = z.url({ protocol: /^https?$/, error: 'enter a web address (https://…)' }).max(2048);
+
+/** better-auth's sign-up body: its own fields are its business; the name (and any picture) are checked first. */
+export const SignUpFieldsSchema = z.looseObject({ name: PersonNameSchema, image: AvatarUrlSchema.nullish() });
+
+/** better-auth's update-user body: only the name and the picture can be changed there. */
+export const UpdateUserSchema = z
+  .strictObject({ name: PersonNameSchema.optional(), image: AvatarUrlSchema.nullable().optional() })
+  .refine((b) => b.name !== undefined || b.image !== undefined, 'nothing to change: send a name or a picture');
+
 export const ApiErrorSchema = z.object({
   error: z.object({
     code: z.string(),
     message: z.string(),
     field: z.string().optional(),
     issues: z.array(z.object({ field: z.string(), message: z.string() })).optional(),
+    /** The id of the request in the server's log (also the X-Request-Id header): quote it when reporting a fault. */
+    requestId: z.string().optional(),
   }),
 });
 export type ApiError = z.infer<typeof ApiErrorSchema>;

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { handler, parseBody } from '@/server/http';
 import { currentUser, requireRole, requireUser } from '@/server/middleware/session';
+import { rateLimit } from '@/server/rate-limit';
 import { InviteStudentSchema } from '@/shared/schemas';
 import {
   acceptInvitation,
@@ -61,6 +62,7 @@ invitationsRouter.get(
 invitationsRouter.post(
   '/',
   teachers,
+  rateLimit('invitations', (req) => currentUser(req).id, 'You have sent many invitations in the last hour.'),
   handler(async (req, res) => {
     const { email } = parseBody(InviteStudentSchema, req.body);
     res.status(202).json(await inviteStudent(currentUser(req), email));

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import rangeParser from 'range-parser';
 import { handler, HttpError, parseBody } from '@/server/http';
 import { currentUser, requireUser } from '@/server/middleware/session';
+import { rateLimit } from '@/server/rate-limit';
 import { receiveUpload, removeSpooled, spooledFile } from '@/server/middleware/upload';
 import { songFor } from '@/server/services/songs';
 import {
@@ -35,6 +36,7 @@ songRecordingsRouter.post(
   (req, _res, next) => {
     assertMayUploadTo(currentUser(req), String(req.params.songId)).then(() => next(), next);
   },
+  rateLimit('uploads', (req) => currentUser(req).id, 'You have uploaded many recordings in the last hour.'),
   receiveUpload,
   handler(async (req, res) => {
     try {

@@ -28,10 +28,17 @@ export const servers = {
 };
 export type TestServer = (typeof servers)['disk'];
 
-/** better-auth refuses cookie-bearing POSTs without an Origin, as a browser would send it. */
-export function agent(url = baseUrl) {
-  return request.agent(url).set('Origin', url);
+/**
+ * A client of its own address (from 198.18.0.0/15, the range RFC 2544 sets aside for tests), as the reverse
+ * proxy in front of the server would report it: the per-address rate limits then count each test's
+ * requests apart, at their normal values. better-auth refuses cookie-bearing POSTs without an Origin, as a
+ * browser would send it.
+ */
+export function agent(url = baseUrl, address = testAddress()) {
+  return request.agent(url).set('Origin', url).set('X-Forwarded-For', address);
 }
+
+export const testAddress = () => `198.${18 + crypto.randomInt(2)}.${crypto.randomInt(256)}.${crypto.randomInt(1, 255)}`;
 
 export const uniqueEmail = (label: string) => `${label}-${crypto.randomBytes(4).toString('hex')}@players.example`;
 
