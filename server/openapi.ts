@@ -31,6 +31,7 @@ import {
   PassageSchema,
   PeaksSchema,
   PracticeEntryListSchema,
+  PracticeLogSchema,
   PracticeEntrySchema,
   PracticeInputSchema,
   ReceivedInvitationListSchema,
@@ -382,8 +383,35 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       tag: 'tempos',
       access: 'signed-in',
       summary: 'Log a practice entry (owner only)',
+      description:
+        'By hand or from a step-up run. Logging never changes a working tempo: the app offers the raise and sets ' +
+        'it through the tempos routes, so the player can undo it.',
       body: s.PracticeInput,
       ok: { 201: json('The new entry.', s.PracticeEntry) },
+    },
+    {
+      method: 'get',
+      path: '/api/practice',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'The whole practice log of the person asking, across their songs',
+      ok: { 200: json('Newest first, each entry with its song’s title.', s.PracticeLog) },
+    },
+    {
+      method: 'get',
+      path: '/api/practice/export',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'The whole practice log of the person asking, as CSV',
+      description:
+        'RFC 4180: a header row, comma-separated, fields with commas, quotes or line breaks quoted, CRLF line ends; ' +
+        'dates in ISO 8601 (UTC). Sent as an attachment.',
+      ok: {
+        200: {
+          description: 'Oldest first.',
+          content: { 'text/csv': { schema: { type: 'string' } } },
+        },
+      },
     },
     // ── Passages ──
     {
@@ -677,6 +705,7 @@ function namedSchemas() {
     PracticeInput: r('PracticeInput', PracticeInputSchema),
     PracticeEntry: r('PracticeEntry', PracticeEntrySchema),
     PracticeEntryList: r('PracticeEntryList', PracticeEntryListSchema),
+    PracticeLog: r('PracticeLog', PracticeLogSchema),
     Passage: r('Passage', PassageSchema),
     PassageInput: r('PassageInput', PassageInputSchema),
     PassagePatch: r('PassagePatch', PassagePatchSchema),
