@@ -3,7 +3,7 @@ import React from 'react';
 import { Text, View } from 'react-native';
 import { Small } from './ui';
 import { colors, space, type } from './theme';
-import { formatBpm, formatDateTime, plural } from '@/shared/format';
+import { formatBpm, formatDateTime, formatMinutes, plural } from '@/shared/format';
 import { usePractice } from '@/client/hooks';
 import type { PracticeEntryDto } from '@/shared/schemas';
 
@@ -19,7 +19,11 @@ export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: num
   const { entries } = usePractice(songId);
   if (!entries) return null;
   if (entries.length === 0)
-    return <Small>No practice logged yet. A finished step-up run on a loop writes its entry here.</Small>;
+    return (
+      <Small>
+        No practice logged yet. Log a session by hand, or finish a step-up run on a loop: it writes its entry here.
+      </Small>
+    );
   return (
     <View style={{ gap: space.xs }} testID="practice-log">
       {entries.slice(0, limit).map((e) => (
@@ -30,9 +34,10 @@ export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: num
             {formatBpm(e.reachedBpm)} BPM
           </Text>
           <Small>
-            {plural(e.repetitions, 'repetition')} · {e.minutes} min{e.clean ? ' · reached the goal' : ''} ·{' '}
+            {plural(e.repetitions, 'repetition')} · {formatMinutes(e.minutes)} · {e.clean ? 'clean' : 'not yet clean'} ·{' '}
             {formatDateTime(e.createdAt)}
           </Small>
+          {e.note ? <Small muted={false}>“{e.note}”</Small> : null}
         </View>
       ))}
     </View>
