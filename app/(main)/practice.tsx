@@ -31,8 +31,9 @@ export default function Practice() {
       )}
       <MetronomePanel />
       <Notice tone="caution">
-        Long, repetitive practice strains hands, arms and ears. Warm up, take a short break every 20–30 minutes, and
-        stop if anything hurts; your teacher or a health professional can advise you on a routine that suits you.
+        Long, repetitive practice strains hands, arms and ears. Warm up, take short breaks (the player suggests one
+        after 45 minutes without a real pause), and stop if anything hurts; your teacher or a health professional can
+        advise you on a routine that suits you.
       </Notice>
     </Screen>
   );
