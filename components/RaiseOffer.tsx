@@ -20,17 +20,17 @@ export interface Offer {
 
 type Tempos = { workingBpm: number | null; goalBpm: number | null; workingSetBy: { id: string; name: string } | null };
 
-/** The offer a logged entry earns, if any: on its saved passage when it was played on one, else on the song.
- * A loop that is not a saved passage has no working tempo of its own, so it earns none. */
+/** The offer a logged entry earns, if any: on its saved passage when it was played on one, else on the song
+ * (a loop that is not saved as a passage has no working tempo of its own; the player decides whether it speaks
+ * for the song). */
 export function offerAfter(
-  entry: Pick<PracticeEntryDto, 'clean' | 'reachedBpm' | 'passageId' | 'recordingId'>,
+  entry: Pick<PracticeEntryDto, 'clean' | 'reachedBpm' | 'passageId'>,
   song: Song,
   passages: Passage[],
   meId: string | undefined,
 ): Offer | null {
   const passage = entry.passageId ? passages.find((p) => p.id === entry.passageId) : null;
   if (entry.passageId && !passage) return null;
-  if (!passage && entry.recordingId) return null;
   const tempos: Tempos = passage ?? song;
   const toBpm = raiseOffer(entry, tempos);
   if (toBpm === null) return null;

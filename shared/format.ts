@@ -60,8 +60,11 @@ export const formatDayNumber = (day: number, locale?: string) =>
     new Date(Math.floor(day) * 86_400_000),
   );
 
-/** Minutes of practice: whole minutes up to two hours ("45 min"), then hours and minutes ("2 h 05 min"). */
+/** Minutes of practice: a tenth under ten minutes ("0.5 min", so a short run is not "0 min"), whole minutes up to
+ * two hours ("45 min"), then hours and minutes ("2 h 05 min"). */
 export function formatMinutes(minutes: number): string {
+  const t = tenth(minutes);
+  if (t < 10) return `${Number.isInteger(t) ? t : t.toFixed(1)} min`;
   const whole = Math.round(minutes);
   if (whole < 120) return `${whole} min`;
   return `${Math.floor(whole / 60)} h ${String(whole % 60).padStart(2, '0')} min`;

@@ -110,7 +110,10 @@ test('a moment typed as m:ss, m:ss.s or plain seconds (worked examples by hand)'
   expect(parseClock('soon')).toBeNull();
 });
 
-test('practice minutes: whole minutes up to two hours, then hours and minutes (worked examples by hand)', () => {
+test('practice minutes: a tenth under ten, whole minutes up to two hours, then hours and minutes (by hand)', () => {
+  expect(formatMinutes(0.1)).toBe('0.1 min');
+  expect(formatMinutes(5)).toBe('5 min');
+  expect(formatMinutes(9.96)).toBe('10 min');
   expect(formatMinutes(31)).toBe('31 min');
   expect(formatMinutes(68.1)).toBe('68 min');
   expect(formatMinutes(119.6)).toBe('2 h 00 min');
