@@ -42,16 +42,17 @@ export function offerAfter(
   };
 }
 
-const setWorking = (on: Offer['on'], workingBpm: number | null) =>
-  on.kind === 'song' ? setSongTempos(on.songId, { workingBpm }) : setPassageTempos(on.passage, { workingBpm });
+/** Raise to a tempo, or undo the raise: the server puts back the tempo it replaced, with who set it. */
+const setWorking = (on: Offer['on'], change: { workingBpm: number } | { undoWorking: true }) =>
+  on.kind === 'song' ? setSongTempos(on.songId, change) : setPassageTempos(on.passage, change);
 
 export function RaiseOffer({ offer, onDone }: { offer: Offer; onDone: () => void }) {
   const [state, setState] = useState<'offered' | 'raised' | 'undone'>('offered');
   const [problem, setProblem] = useState<string | null>(null);
   const what = offer.on.kind === 'song' ? 'the working tempo' : `the working tempo of “${offer.on.passage.name}”`;
-  const act = (to: number | null, next: typeof state) => {
+  const act = (change: Parameters<typeof setWorking>[1], next: typeof state) => {
     setProblem(null);
-    setWorking(offer.on, to).then(
+    setWorking(offer.on, change).then(
       () => setState(next),
       (e: Error) => setProblem(e.message),
     );
@@ -71,7 +72,7 @@ export function RaiseOffer({ offer, onDone }: { offer: Offer; onDone: () => void
             <Button
               label={`Raise ${what} to ${formatBpm(offer.toBpm)} BPM`}
               kind="secondary"
-              onPress={() => act(offer.toBpm, 'raised')}
+              onPress={() => act({ workingBpm: offer.toBpm }, 'raised')}
               testID="accept-raise"
             />
             <Button label="Not now" kind="quiet" onPress={onDone} testID="decline-raise" />
@@ -82,7 +83,7 @@ export function RaiseOffer({ offer, onDone }: { offer: Offer; onDone: () => void
           <Notice tone="success">
             Raised {what} to {formatBpm(offer.toBpm)} BPM.
           </Notice>
-          <Button label="Undo" kind="quiet" onPress={() => act(offer.fromBpm, 'undone')} testID="undo-raise" />
+          <Button label="Undo" kind="quiet" onPress={() => act({ undoWorking: true }, 'undone')} testID="undo-raise" />
         </>
       ) : (
         <Notice tone="info">

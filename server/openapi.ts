@@ -195,9 +195,12 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       tag: 'songs',
       access: 'signed-in',
       summary: 'Set the working and goal tempo (owner or linked teacher)',
-      description: 'The song records who set each tempo and when.',
+      description:
+        'The song records who set each tempo and when, and keeps the working tempo a change replaced: ' +
+        '`undoWorking: true` puts it back with who set it (409 when there is nothing to undo).',
       body: s.SongTempos,
       ok: { 200: json('The song as it is now.', s.Song) },
+      errors: [409],
     },
     {
       method: 'delete',
@@ -446,8 +449,10 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       tag: 'passages',
       access: 'signed-in',
       summary: 'Set a passage’s working and goal tempo (owner or linked teacher)',
+      description: 'As for a song: `undoWorking: true` puts back the working tempo the last change replaced.',
       body: s.SongTempos,
       ok: { 200: json('The passage as it is now.', s.Passage) },
+      errors: [409],
     },
     {
       method: 'delete',

@@ -87,9 +87,18 @@ export const SongSchema = z.object({
 export type Song = z.infer<typeof SongSchema>;
 /** Working and goal tempo: the player's own, or set for them by their teacher. */
 export const SongTemposSchema = z
-  .object({ workingBpm: BpmSchema.nullable(), goalBpm: BpmSchema.nullable() })
+  .object({
+    workingBpm: BpmSchema.nullable(),
+    goalBpm: BpmSchema.nullable(),
+    /** Put back the working tempo the last change replaced, with who set it (Undo). */
+    undoWorking: z.literal(true),
+  })
   .partial()
-  .strict();
+  .strict()
+  .refine((t) => !(t.undoWorking && t.workingBpm !== undefined), {
+    message: 'give a working tempo or undo the last change, not both',
+    path: ['undoWorking'],
+  });
 export type SongTempos = z.infer<typeof SongTemposSchema>;
 export const SongListSchema = z.object({ songs: z.array(SongSchema) });
 

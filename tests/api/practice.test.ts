@@ -5,7 +5,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import request from 'supertest';
 import { parse } from 'csv-parse/sync';
-import { baseUrl, query, signedInUser, waitForAnalysis } from './helpers';
+import { baseUrl, linkStudent, query, signedInUser, waitForAnalysis } from './helpers';
 import { root } from '@/tests/setup/processes';
 
 const clip = fs.readFileSync(path.join(root, 'fixtures/clips/drums-bass-124.mp3'));
@@ -140,4 +140,35 @@ test('the CSV export parses back field for field, with commas, quotes and line b
   const listed = (await player.agent.get('/api/practice').expect(200)).body.entries as { createdAt: string }[];
   expect(rows.map((r) => r.date)).toEqual(listed.map((e) => e.createdAt).reverse());
   for (const r of rows) expect(r.date).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/);
+});
+
+test('Undo of a raise puts back the working tempo with who set it: the teacher’s name survives the round trip', async () => {
+  const player = await signedInUser('practice-undo');
+  const teacher = await signedInUser('practice-undo-teacher', 'teacher');
+  await linkStudent(teacher, player);
+  const song = (await player.agent.post('/api/songs').send({ title: 'Undo Reel', goalBpm: 112 }).expect(201)).body.id;
+  await teacher.agent.patch(`/api/songs/${song}/tempos`).send({ workingBpm: 90 }).expect(200);
+  const raised = (await player.agent.patch(`/api/songs/${song}/tempos`).send({ workingBpm: 96 }).expect(200)).body;
+  expect(raised).toMatchObject({ workingBpm: 96, workingSetBy: { id: player.id } });
+  const undone = (await player.agent.patch(`/api/songs/${song}/tempos`).send({ undoWorking: true }).expect(200)).body;
+  expect(undone).toMatchObject({
+    workingBpm: 90,
+    workingSetBy: { id: teacher.id, name: 'Test practice-undo-teacher' },
+  });
+  // Nothing left to undo, said in words; an undo and a tempo at once is refused.
+  const again = await player.agent.patch(`/api/songs/${song}/tempos`).send({ undoWorking: true }).expect(409);
+  expect(again.body.error.message).toMatch(/no change of the working tempo to undo/);
+  const both = await player.agent
+    .patch(`/api/songs/${song}/tempos`)
+    .send({ undoWorking: true, workingBpm: 100 })
+    .expect(400);
+  expect(both.body.error.field).toBe('undoWorking');
+  // A passage's working tempo the same way (the passage from beforeAll has 80, set by its owner).
+  await owner.agent.patch(`/api/passages/${passageId}/tempos`).send({ workingBpm: 84 }).expect(200);
+  const back = (await owner.agent.patch(`/api/passages/${passageId}/tempos`).send({ undoWorking: true }).expect(200))
+    .body;
+  expect(back).toMatchObject({ workingBpm: 80 });
+  // Another player cannot undo anything of the song: 404.
+  const stranger = await signedInUser('practice-undo-stranger');
+  await stranger.agent.patch(`/api/songs/${song}/tempos`).send({ undoWorking: true }).expect(404);
 });

@@ -94,7 +94,10 @@ describe.each(viewports)('practice log at $width px', (viewport) => {
     expect((await player.agent.get(`/api/songs/${songId}`).expect(200)).body.workingBpm).toBe(96);
     await offer.getByTestId('undo-raise').click();
     await offer.getByText('The working tempo is back at 90 BPM.').waitFor();
-    expect((await player.agent.get(`/api/songs/${songId}`).expect(200)).body.workingBpm).toBe(90);
+    const after = (await player.agent.get(`/api/songs/${songId}`).expect(200)).body;
+    expect(after).toMatchObject({ workingBpm: 90, workingSetBy: { id: teacher.id } });
+    // The song's header says again that the teacher set it.
+    await page.getByText(new RegExp(`^Working tempo 90 set by Test practice-teacher-${viewport.name}`)).waitFor();
 
     // A clean session on the passage draws the passage's own chart and offers the passage's raise.
     await logByHand(page, { passage: 'the turn', reached: '84', clean: true, reps: '8', minutes: '6' });
