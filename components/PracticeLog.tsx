@@ -30,8 +30,10 @@ export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: num
         <View key={e.id} style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'baseline' }}>
           <Text style={[type.label, { color: colors.ink }]}>
             {e.passage ?? 'Whole piece'}
-            {bars(e) && bars(e) !== e.passage ? ` (${bars(e)})` : ''}: {formatBpm(e.startBpm)} →{' '}
-            {formatBpm(e.reachedBpm)} BPM
+            {bars(e) && bars(e) !== e.passage ? ` (${bars(e)})` : ''}:{' '}
+            {e.startBpm === e.reachedBpm
+              ? `at ${formatBpm(e.reachedBpm)} BPM`
+              : `${formatBpm(e.startBpm)} → ${formatBpm(e.reachedBpm)} BPM`}
           </Text>
           <Small>
             {plural(e.repetitions, 'repetition')} · {formatMinutes(e.minutes)} · {e.clean ? 'clean' : 'not yet clean'} ·{' '}
