@@ -1,6 +1,7 @@
 // SWR hooks: how screens read server data. Mutations revalidate the keys they change.
 import useSWR, { mutate } from 'swr';
-import { ApiRequestError, apiFetch, fetcher } from './api';
+import { Linking, Platform } from 'react-native';
+import { ApiRequestError, apiBase, apiFetch, fetcher } from './api';
 import type {
   Candidate,
   Invitation,
@@ -17,6 +18,7 @@ import type {
   PeaksDto,
   PracticeEntryDto,
   PracticeInput,
+  PracticeLogEntry,
   Preferences,
   ReceivedInvitation,
   Recording,
@@ -222,12 +224,24 @@ export function usePractice(songId: string | undefined) {
 
 export async function logPractice(songId: string, input: PracticeInput) {
   const entry = await apiFetch<PracticeEntryDto>(practiceKey(songId), { body: input });
-  await mutate(practiceKey(songId));
-  // A clean faster entry on a passage raises the passage's working tempo.
-  await mutate(passagesKey(songId));
-  await mutate(`/api/songs/${songId}`);
-  await refreshLibrary();
+  // The library shows when each song was last practised.
+  await Promise.all([mutate(practiceKey(songId)), mutate(MY_PRACTICE_KEY), refreshLibrary()]);
   return entry;
+}
+
+const MY_PRACTICE_KEY = '/api/practice';
+
+/** The whole log of the person signed in, across their songs (the weekly summary reads it). */
+export function useMyPractice() {
+  const { data, error } = useSWR<{ entries: PracticeLogEntry[] }>(MY_PRACTICE_KEY, fetcher);
+  return { entries: data?.entries, error };
+}
+
+/** The whole log as a CSV file: the server sends it as an attachment, so the page stays where it is. */
+export function downloadPracticeLog() {
+  const url = `${apiBase}/api/practice/export`;
+  if (Platform.OS === 'web') window.location.assign(url);
+  else void Linking.openURL(url);
 }
 
 // ── Notes on a recording ─────────────────────────────────────────────────────────────────────────────
@@ -304,7 +318,7 @@ export async function setPreferences(patch: Partial<Preferences>) {
 /** Working and goal tempo of a song, by its player or their teacher. */
 export async function setSongTempos(songId: string, tempos: SongTempos) {
   await apiFetch(`/api/songs/${songId}/tempos`, { method: 'PATCH', body: tempos });
-  await mutate(`/api/songs/${songId}`);
+  await Promise.all([mutate(`/api/songs/${songId}`), mutate('/api/songs')]);
 }
 
 export async function changeSong(id: string, patch: SongPatch) {
@@ -345,6 +359,13 @@ export async function addPassage(songId: string, input: PassageInput) {
 
 export async function changePassage(p: Passage, patch: PassagePatch) {
   const next = await apiFetch<Passage>(`/api/passages/${p.id}`, { method: 'PATCH', body: patch });
+  await mutate(passagesKey(p.songId));
+  return next;
+}
+
+/** Working and goal tempo of a passage. */
+export async function setPassageTempos(p: Pick<Passage, 'id' | 'songId'>, tempos: SongTempos) {
+  const next = await apiFetch<Passage>(`/api/passages/${p.id}/tempos`, { method: 'PATCH', body: tempos });
   await mutate(passagesKey(p.songId));
   return next;
 }

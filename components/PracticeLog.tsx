@@ -3,7 +3,7 @@ import React from 'react';
 import { Text, View } from 'react-native';
 import { Small } from './ui';
 import { colors, space, type } from './theme';
-import { formatBpm, formatDateTime, plural } from '@/shared/format';
+import { formatBpm, formatDateTime, formatMinutes, plural } from '@/shared/format';
 import { usePractice } from '@/client/hooks';
 import type { PracticeEntryDto } from '@/shared/schemas';
 
@@ -19,20 +19,27 @@ export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: num
   const { entries } = usePractice(songId);
   if (!entries) return null;
   if (entries.length === 0)
-    return <Small>No practice logged yet. A finished step-up run on a loop writes its entry here.</Small>;
+    return (
+      <Small>
+        No practice logged yet. Log a session by hand, or finish a step-up run on a loop: it writes its entry here.
+      </Small>
+    );
   return (
     <View style={{ gap: space.xs }} testID="practice-log">
       {entries.slice(0, limit).map((e) => (
         <View key={e.id} style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'baseline' }}>
           <Text style={[type.label, { color: colors.ink }]}>
             {e.passage ?? 'Whole piece'}
-            {bars(e) && bars(e) !== e.passage ? ` (${bars(e)})` : ''}: {formatBpm(e.startBpm)} →{' '}
-            {formatBpm(e.reachedBpm)} BPM
+            {bars(e) && bars(e) !== e.passage ? ` (${bars(e)})` : ''}:{' '}
+            {e.startBpm === e.reachedBpm
+              ? `at ${formatBpm(e.reachedBpm)} BPM`
+              : `${formatBpm(e.startBpm)} → ${formatBpm(e.reachedBpm)} BPM`}
           </Text>
           <Small>
-            {plural(e.repetitions, 'repetition')} · {e.minutes} min{e.clean ? ' · reached the goal' : ''} ·{' '}
+            {plural(e.repetitions, 'repetition')} · {formatMinutes(e.minutes)} · {e.clean ? 'clean' : 'not yet clean'} ·{' '}
             {formatDateTime(e.createdAt)}
           </Small>
+          {e.note ? <Small muted={false}>“{e.note}”</Small> : null}
         </View>
       ))}
     </View>

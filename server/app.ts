@@ -20,7 +20,7 @@ import { studentsRouter, teachersRouter } from '@/server/routes/students';
 import { invitationsRouter } from '@/server/routes/invitations';
 import { recordingsRouter, songRecordingsRouter } from '@/server/routes/recordings';
 import { candidatesRouter, songTemposRouter } from '@/server/routes/tempos';
-import { songPracticeRouter } from '@/server/routes/practice';
+import { practiceRouter, songPracticeRouter } from '@/server/routes/practice';
 import { passagesRouter, songPassagesRouter } from '@/server/routes/passages';
 import { notesRouter, recordingNotesRouter } from '@/server/routes/notes';
 import { setListsRouter } from '@/server/routes/setlists';
@@ -61,6 +61,7 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.use('/api/me', meRouter);
   app.use('/api/songs/:songId/recordings', songRecordingsRouter);
   app.use('/api/songs/:songId/practice', songPracticeRouter);
+  app.use('/api/practice', practiceRouter);
   app.use('/api/songs/:songId/passages', songPassagesRouter);
   app.use('/api/passages', passagesRouter);
   app.use('/api/songs/:songId', songTemposRouter);

@@ -10,11 +10,22 @@ export interface DemoRecording {
   label: string;
 }
 
+/** An invented practice session on the whole song, dated days before the seeding. */
+export interface DemoSession {
+  daysAgo: number;
+  startBpm: number;
+  reachedBpm: number;
+  clean: boolean;
+  repetitions: number;
+  minutes: number;
+  note?: string;
+}
+
 export interface DemoPerson {
   name: string;
   email: string;
   role: Role;
-  songs: (SongInput & { recordings?: DemoRecording[] })[];
+  songs: (SongInput & { recordings?: DemoRecording[]; practice?: DemoSession[] })[];
   /** Set lists of this person's songs, by title, in playing order. */
   setLists?: { name: string; songs: string[] }[];
 }
@@ -56,6 +67,31 @@ export const demoPeople: DemoPerson[] = [
         chosenBpm: 104,
         recordings: [
           { file: 'drums-bass-124.mp3', kind: 'reference', label: 'Band run-through, Pier Street rehearsal room' },
+        ],
+        // Two weeks of steady work up to the working tempo of 88, and a first try above it.
+        practice: [
+          { daysAgo: 12, startBpm: 76, reachedBpm: 80, clean: true, repetitions: 12, minutes: 20 },
+          { daysAgo: 9, startBpm: 80, reachedBpm: 84, clean: true, repetitions: 15, minutes: 25 },
+          {
+            daysAgo: 6,
+            startBpm: 84,
+            reachedBpm: 86,
+            clean: false,
+            repetitions: 10,
+            minutes: 15,
+            note: 'the turn into the B part rushes',
+          },
+          { daysAgo: 5, startBpm: 84, reachedBpm: 86, clean: true, repetitions: 12, minutes: 20 },
+          { daysAgo: 2, startBpm: 86, reachedBpm: 88, clean: true, repetitions: 9, minutes: 18 },
+          {
+            daysAgo: 1,
+            startBpm: 88,
+            reachedBpm: 92,
+            clean: false,
+            repetitions: 8,
+            minutes: 12,
+            note: 'ornaments smudge at 92, fine at 88',
+          },
         ],
       },
       {

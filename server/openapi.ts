@@ -34,6 +34,7 @@ import {
   PassageSchema,
   PeaksSchema,
   PracticeEntryListSchema,
+  PracticeLogSchema,
   PracticeEntrySchema,
   PracticeInputSchema,
   ReceivedInvitationListSchema,
@@ -204,9 +205,12 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       tag: 'songs',
       access: 'signed-in',
       summary: 'Set the working and goal tempo (owner or linked teacher)',
-      description: 'The song records who set each tempo and when.',
+      description:
+        'The song records who set each tempo and when, and keeps the working tempo a change replaced: ' +
+        '`undoWorking: true` puts it back with who set it (409 when there is nothing to undo).',
       body: s.SongTempos,
       ok: { 200: json('The song as it is now.', s.Song) },
+      errors: [409],
     },
     {
       method: 'delete',
@@ -419,8 +423,35 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       tag: 'tempos',
       access: 'signed-in',
       summary: 'Log a practice entry (owner only)',
+      description:
+        'By hand or from a step-up run. Logging never changes a working tempo: the app offers the raise and sets ' +
+        'it through the tempos routes, so the player can undo it.',
       body: s.PracticeInput,
       ok: { 201: json('The new entry.', s.PracticeEntry) },
+    },
+    {
+      method: 'get',
+      path: '/api/practice',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'The whole practice log of the person asking, across their songs',
+      ok: { 200: json('Newest first, each entry with its song’s title.', s.PracticeLog) },
+    },
+    {
+      method: 'get',
+      path: '/api/practice/export',
+      tag: 'tempos',
+      access: 'signed-in',
+      summary: 'The whole practice log of the person asking, as CSV',
+      description:
+        'RFC 4180: a header row, comma-separated, fields with commas, quotes or line breaks quoted, CRLF line ends; ' +
+        'dates in ISO 8601 (UTC). Sent as an attachment.',
+      ok: {
+        200: {
+          description: 'Oldest first.',
+          content: { 'text/csv': { schema: { type: 'string' } } },
+        },
+      },
     },
     // ── Passages ──
     {
@@ -455,8 +486,10 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       tag: 'passages',
       access: 'signed-in',
       summary: 'Set a passage’s working and goal tempo (owner or linked teacher)',
+      description: 'As for a song: `undoWorking: true` puts back the working tempo the last change replaced.',
       body: s.SongTempos,
       ok: { 200: json('The passage as it is now.', s.Passage) },
+      errors: [409],
     },
     {
       method: 'delete',
@@ -717,6 +750,7 @@ function namedSchemas() {
     PracticeInput: r('PracticeInput', PracticeInputSchema),
     PracticeEntry: r('PracticeEntry', PracticeEntrySchema),
     PracticeEntryList: r('PracticeEntryList', PracticeEntryListSchema),
+    PracticeLog: r('PracticeLog', PracticeLogSchema),
     Passage: r('Passage', PassageSchema),
     PassageInput: r('PassageInput', PassageInputSchema),
     PassagePatch: r('PassagePatch', PassagePatchSchema),

@@ -3,7 +3,7 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { auth } from './auth';
-import { Account, User, StudioLink } from '@/server/models';
+import { Account, PracticeEntry, User, StudioLink } from '@/server/models';
 import { createSong } from '@/server/services/songs';
 import { createSetList } from '@/server/services/setlists';
 import { storeRecording } from '@/server/services/recordings';
@@ -43,10 +43,29 @@ export async function seedDemo(): Promise<{ created: boolean }> {
     });
     const me = { id: user.id, name: user.name, email: user.email, emailVerified: true, role: user.role };
     const songIds = new Map<string, string>();
-    for (const { recordings = [], ...input } of person.songs) {
+    for (const { recordings = [], practice = [], ...input } of person.songs) {
       const song = await createSong(me, input);
       songIds.set(song.title, song.id);
       for (const r of recordings) await addDemoRecording(song, user.id, r);
+      for (const { daysAgo, note, ...session } of practice) {
+        // Dated in the past as written by hand then; logging it now would put all of it on today.
+        const at = new Date(now.getTime() - daysAgo * 86_400_000);
+        await PracticeEntry.create({
+          songId: song.id,
+          userId: user.id,
+          passage: null,
+          passageId: null,
+          recordingId: null,
+          startSec: null,
+          endSec: null,
+          startBar: null,
+          endBar: null,
+          ...session,
+          note: note ?? null,
+          createdAt: at,
+          updatedAt: at,
+        });
+      }
     }
     for (const list of person.setLists ?? [])
       await createSetList(me, { name: list.name, songIds: list.songs.map((title) => songIds.get(title)!) });

@@ -52,3 +52,20 @@ export function parseClock(text: string): number | null {
   if (m[1] !== undefined && seconds >= 60) return null;
   return Number(m[1] ?? 0) * 60 + seconds;
 }
+
+/** A calendar day given as days since 1970-01-01 ("2 Dec", "Dec 2"): the day number is already the reader's
+ * local day, so it is read in UTC to stay that day. */
+export const formatDayNumber = (day: number, locale?: string) =>
+  new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', timeZone: 'UTC' }).format(
+    new Date(Math.floor(day) * 86_400_000),
+  );
+
+/** Minutes of practice: a tenth under ten minutes ("0.5 min", so a short run is not "0 min"), whole minutes up to
+ * two hours ("45 min"), then hours and minutes ("2 h 05 min"). */
+export function formatMinutes(minutes: number): string {
+  const t = tenth(minutes);
+  if (t < 10) return `${Number.isInteger(t) ? t : t.toFixed(1)} min`;
+  const whole = Math.round(minutes);
+  if (whole < 120) return `${whole} min`;
+  return `${Math.floor(whole / 60)} h ${String(whole % 60).padStart(2, '0')} min`;
+}

@@ -95,9 +95,18 @@ export const SongSchema = z.object({
 export type Song = z.infer<typeof SongSchema>;
 /** Working and goal tempo: the player's own, or set for them by their teacher. */
 export const SongTemposSchema = z
-  .object({ workingBpm: BpmSchema.nullable(), goalBpm: BpmSchema.nullable() })
+  .object({
+    workingBpm: BpmSchema.nullable(),
+    goalBpm: BpmSchema.nullable(),
+    /** Put back the working tempo the last change replaced, with who set it (Undo). */
+    undoWorking: z.literal(true),
+  })
   .partial()
-  .strict();
+  .strict()
+  .refine((t) => !(t.undoWorking && t.workingBpm !== undefined), {
+    message: 'give a working tempo or undo the last change, not both',
+    path: ['undoWorking'],
+  });
 export type SongTempos = z.infer<typeof SongTemposSchema>;
 
 // ── The library: a player's songs, searched, sorted and filtered on the server ─────────────────────
@@ -413,7 +422,10 @@ export const PracticeInputSchema = z
       .number()
       .min(0)
       .max(24 * 60, 'must be at most a day (1440 minutes)'),
+    /** The reached tempo was played clean (a step-up run: a full set of clean passes at it). */
     clean: z.boolean(),
+    /** What the player wants to remember of the session; blank is none. */
+    note: z.string().trim().max(1000, 'use at most 1000 characters').nullish(),
   })
   .strict();
 export type PracticeInput = z.infer<typeof PracticeInputSchema>;
@@ -432,10 +444,15 @@ export const PracticeEntrySchema = z.object({
   repetitions: z.number(),
   minutes: z.number(),
   clean: z.boolean(),
+  note: z.string().nullable(),
   createdAt: z.string(),
 });
 export type PracticeEntryDto = z.infer<typeof PracticeEntrySchema>;
 export const PracticeEntryListSchema = z.object({ entries: z.array(PracticeEntrySchema) });
+/** A player's whole log across their songs (the weekly summary reads it), each entry with its song's title. */
+export const PracticeLogEntrySchema = PracticeEntrySchema.extend({ songTitle: z.string() });
+export type PracticeLogEntry = z.infer<typeof PracticeLogEntrySchema>;
+export const PracticeLogSchema = z.object({ entries: z.array(PracticeLogEntrySchema) });
 
 // ── Notes on a recording ────────────────────────────────────────────────────────────────────────────
 

@@ -1,6 +1,7 @@
 // The cards of the audition player, each drawing one part of an AuditionSession: the player (waveform,
 // position, transport, tempo), the beat you feel, passages with the loop and step-up, candidate tempos, levels,
 // export, and the phone's compact transport.
+import { RaiseOffer } from '@/components/RaiseOffer';
 import React from 'react';
 import { Text, View } from 'react-native';
 import { Button, Card, Heading, Notice, Row, Small } from '@/components/ui';
@@ -41,6 +42,7 @@ export function PlayerCard({
     <Card testID="audition" style={wide ? (sticky('top') as object) : undefined}>
       <Heading level={3}>Listen at another tempo</Heading>
       {audition.failure ? <Notice tone="error">{audition.failure}</Notice> : null}
+      {s.breakReminder.due ? <BreakSuggestion onDismiss={s.breakReminder.dismiss} /> : null}
       {peaks ? (
         <PlayerWaveform
           minMax={peaks.minMax}
@@ -151,6 +153,9 @@ export function PassagesCard({
         onNotClean={stepUp.notClean}
         onEndStepUp={stepUp.end}
       />
+      {stepUp.offer ? (
+        <RaiseOffer key={`${stepUp.offer.toBpm}-${stepUp.logged}`} offer={stepUp.offer} onDone={stepUp.dismissOffer} />
+      ) : null}
       {song ? (
         <View style={{ gap: space.xs }}>
           <Text style={[type.label, { color: colors.muted }]}>Practice log</Text>
@@ -285,5 +290,18 @@ export function SteadinessCard({
         onLoop={(start, end) => s.stepUp.changePassage({ start, end })}
       />
     </Card>
+  );
+}
+
+/** After 45 minutes of continuous practice: a suggestion, never a block; the player goes on when they choose. */
+function BreakSuggestion({ onDismiss }: { onDismiss: () => void }) {
+  return (
+    <View style={{ gap: space.xs }} testID="break-suggestion">
+      <Notice tone="caution">
+        You have been practising for 45 minutes with hardly a pause. A few minutes away from the instrument (stretch,
+        rest your ears) helps hands, arms and hearing; if anything aches or rings, stop and ask a health professional.
+      </Notice>
+      <Button label="Not now" kind="quiet" onPress={onDismiss} testID="dismiss-break" />
+    </View>
   );
 }

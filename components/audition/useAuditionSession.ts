@@ -1,6 +1,6 @@
 // Everything the audition player on one recording needs, joined: the beat grid as the player feels it, the
 // player itself, the last loop kept across reloads, the song's saved passages on this recording, the step-up
-// run and its logging, keys, candidate tempos and export. AuditionPanel only lays the parts out.
+// run and its logging, the break suggestion after long practice, keys, candidate tempos and export. AuditionPanel only lays the parts out.
 import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useCandidates, useNotes, usePassages } from '@/client/hooks';
 import { keepLastLoop, readLastLoop } from '@/client/last-loop';
@@ -11,6 +11,7 @@ import type { Passage, Recording, Song } from '@/shared/schemas';
 import type { SnapUnit } from './PassageLoop';
 import { useAuditionPlayer } from './useAuditionPlayer';
 import { useStepUpRun } from './useStepUpRun';
+import { useBreakReminder } from './useBreakReminder';
 import { usePlayerKeys } from './usePlayerKeys';
 import { useWavExport } from './useWavExport';
 
@@ -79,6 +80,7 @@ export function useAuditionSession({
     downbeats: felt.downbeats,
     originalBpm: felt.bpm,
   });
+  const breakReminder = useBreakReminder(audition.playing);
   const { candidates } = useCandidates(song?.id);
   usePlayerKeys({ togglePlay: audition.togglePlay, skip, bpm, setBpm, candidateBpms: candidates?.map((c) => c.bpm) });
   const wav = useWavExport({
@@ -117,6 +119,7 @@ export function useAuditionSession({
     passages,
     saved,
     stepUp,
+    breakReminder,
     wav,
     unit,
     setUnit,

@@ -1,9 +1,11 @@
 // A step-up run on the looped passage (audio/practice/step-up.ts): the player reports each pass through the
 // loop, the run raises the tempo after each clean set, and when it ends (goal reached, ended by hand, or the
-// passage changed) what was played is written to the song's practice log.
+// passage changed) what was played is written to the song's practice log. A run that played a full set clean
+// above the working tempo then offers to raise it (the song's, or the saved passage's).
 import { useEffect, useRef, useState } from 'react';
 import { MAX_SPEED, MIN_SPEED } from '@/client/player';
-import { logPractice } from '@/client/hooks';
+import { logPractice, useMe } from '@/client/hooks';
+import { offerAfter, type Offer } from '@/components/RaiseOffer';
 import { barsOf, describePassage, type Passage } from '@/audio/practice/passage';
 import { passFinished, startStepUp, type StepUpPlan, type StepUpState } from '@/audio/practice/step-up';
 import { formatBpm, plural, tenth } from '@/shared/format';
@@ -52,6 +54,8 @@ export function useStepUpRun({
   const { onLoopPassRef, loop, bpm, setBpm, seek, play, pause, setFailure } = audition;
   const [stepUp, setStepUp] = useState<StepUpState | null>(null);
   const [logged, setLogged] = useState<string | null>(null);
+  const [offer, setOffer] = useState<Offer | null>(null);
+  const { me } = useMe();
   const run = useRef<{ state: StepUpState; notClean: boolean; startedAt: number } | null>(null);
 
   const finish = async (s: StepUpState) => {
@@ -64,15 +68,17 @@ export function useStepUpRun({
     const reached = s.reachedBpm ?? s.plan.startBpm;
     if (!canLog) return;
     try {
-      await logPractice(song.id, {
+      const entry = await logPractice(song.id, {
         ...region,
         passage,
         startBpm: s.plan.startBpm,
         reachedBpm: reached,
         repetitions: s.repetitions,
         minutes,
-        clean: s.done,
+        // The reached tempo is the last one played as a full clean set; before the first set there is none.
+        clean: s.reachedBpm !== null,
       });
+      setOffer(offerAfter(entry, song, saved ? [saved] : [], me?.id));
       setLogged(
         `Logged: ${passage ?? 'the recording'}, ${formatBpm(s.plan.startBpm)} → ${formatBpm(reached)} BPM, ${plural(s.repetitions, 'repetition')}, ${minutes} min.`,
       );
@@ -103,6 +109,7 @@ export function useStepUpRun({
     run.current = { state: s, notClean: false, startedAt: Date.now() };
     setStepUp(s);
     setLogged(null);
+    setOffer(null);
     setBpm(s.bpm);
     if (loop) seek(loop.start);
     play();
@@ -134,6 +141,9 @@ export function useStepUpRun({
   return {
     stepUp,
     logged,
+    /** The raise of the working tempo the last run earned, if any. */
+    offer,
+    dismissOffer: () => setOffer(null),
     defaultPlan,
     start,
     end,

@@ -20,6 +20,8 @@ export class PracticeEntry extends Model<InferAttributes<PracticeEntry>, InferCr
   declare repetitions: number;
   declare minutes: number;
   declare clean: boolean;
+  /** What the player wants to remember of the session. */
+  declare note: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -40,6 +42,7 @@ PracticeEntry.init(
     repetitions: { type: DataTypes.INTEGER, allowNull: false },
     minutes: { type: DataTypes.FLOAT, allowNull: false },
     clean: { type: DataTypes.BOOLEAN, allowNull: false },
+    note: { type: DataTypes.STRING(1000), allowNull: true },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),
   },

@@ -21,6 +21,8 @@ export class Song extends Model<InferAttributes<Song>, InferCreationAttributes<S
   declare workingSetAt: CreationOptional<Date | null>;
   declare goalSetBy: CreationOptional<string | null>;
   declare goalSetAt: CreationOptional<Date | null>;
+  /** The working tempo the last change replaced, for Undo (see services/users.ts `workingUndo`). */
+  declare previousWorking: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -41,6 +43,7 @@ Song.init(
     workingSetAt: { type: DataTypes.DATE(3), allowNull: true },
     goalSetBy: { type: DataTypes.STRING(64), allowNull: true },
     goalSetAt: { type: DataTypes.DATE(3), allowNull: true },
+    previousWorking: { type: DataTypes.STRING(200), allowNull: true },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),
   },

@@ -4,7 +4,7 @@ import { HttpError } from '@/server/http';
 import type { Me, Passage as PassageDto, PassageInput, PassagePatch, SongTempos } from '@/shared/schemas';
 import { assertMay, missing, type Action } from './access';
 import { songFor } from './songs';
-import { namesOf, setByColumns, setByView } from './users';
+import { namesOf, setByColumns, setByView, tempoColumns } from './users';
 
 /** Passages as the API shows them, with who set their tempos. */
 export async function passageViews(passages: Passage[]): Promise<PassageDto[]> {
@@ -113,5 +113,5 @@ export async function setPassageTempos(user: Me, id: string, tempos: SongTempos)
   const p = await passageFor(user, 'read', id);
   const song = await Song.findByPk(p.songId, { attributes: ['ownerId'] });
   await assertMay(user, 'write', 'song-tempos', song?.ownerId);
-  return (await passageViews([await p.update({ ...tempos, ...setByColumns(user.id, tempos) })]))[0]!;
+  return (await passageViews([await p.update(tempoColumns(p, user.id, tempos))]))[0]!;
 }

@@ -1,12 +1,14 @@
 // A song's practice log: entries by hand or from step-up runs, on the whole piece, a saved passage or a loop
-// of a recording, and what a clean session does to the working tempo.
-import { PracticeEntry, Recording } from '@/server/models';
+// of a recording; a player's whole log across songs, and its CSV export. Logging never moves a working tempo:
+// the app offers the raise (audio/practice/progress.ts) and the player applies it through the tempos routes.
+import { Op } from 'sequelize';
+import { stringify } from 'csv-stringify/sync';
+import { PracticeEntry, Recording, Song } from '@/server/models';
 import { HttpError } from '@/server/http';
-import type { Me, PracticeEntryDto, PracticeInput } from '@/shared/schemas';
+import type { Me, PracticeEntryDto, PracticeInput, PracticeLogEntry } from '@/shared/schemas';
 import { assertMay } from './access';
 import { passageFor } from './passages';
 import { songFor } from './songs';
-import { setByColumns } from './users';
 
 export const toPracticeDto = (p: PracticeEntry): PracticeEntryDto => ({
   id: p.id,
@@ -23,6 +25,7 @@ export const toPracticeDto = (p: PracticeEntry): PracticeEntryDto => ({
   repetitions: p.repetitions,
   minutes: p.minutes,
   clean: Boolean(p.clean),
+  note: p.note,
   createdAt: p.createdAt.toISOString(),
 });
 
@@ -75,10 +78,7 @@ async function whereItWasPlayed(user: Me, songId: string, input: PracticeInput) 
   return { passage: null, label: input.passage ?? null, region };
 }
 
-/**
- * Logging a clean session at a faster tempo moves the working tempo up to it: the saved passage's when it was
- * played on one, the song's when the whole piece was played.
- */
+/** A practice entry, by hand or from a step-up run; only the song's owner logs. */
 export async function logPractice(user: Me, songId: string, input: PracticeInput): Promise<PracticeEntryDto> {
   const song = await songFor(user, 'write', songId);
   await assertMay(user, 'write', 'practice-entry', song.ownerId);
@@ -93,13 +93,65 @@ export async function logPractice(user: Me, songId: string, input: PracticeInput
     repetitions: input.repetitions,
     minutes: input.minutes,
     clean: input.clean,
+    note: input.note || null,
   });
-  if (input.clean) {
-    const wholePiece = !where.passage && !where.region.recordingId && !where.label;
-    const faster = (working: number | null) => working === null || input.reachedBpm > working;
-    const raised = { workingBpm: input.reachedBpm, ...setByColumns(user.id, { workingBpm: input.reachedBpm }) };
-    if (where.passage && faster(where.passage.workingBpm)) await where.passage.update(raised);
-    if (wholePiece && faster(song.workingBpm)) await song.update(raised);
-  }
   return toPracticeDto(entry);
+}
+
+/** Every entry on the songs `user` owns, newest first, with the song's title. */
+export async function myPracticeLog(user: Me): Promise<PracticeLogEntry[]> {
+  await assertMay(user, 'read', 'practice-entry', user.id);
+  const songs = await Song.findAll({ where: { ownerId: user.id }, attributes: ['id', 'title'] });
+  const titles = new Map(songs.map((s) => [s.id, s.title]));
+  if (titles.size === 0) return [];
+  const entries = await PracticeEntry.findAll({
+    where: { songId: { [Op.in]: [...titles.keys()] } },
+    order: [['createdAt', 'DESC']],
+  });
+  return entries.map((e) => ({ ...toPracticeDto(e), songTitle: titles.get(e.songId)! }));
+}
+
+/** The columns of the export, in order: the header row names them as a spreadsheet shows them. */
+const CSV_COLUMNS = [
+  'date',
+  'song',
+  'passage',
+  'first bar',
+  'last bar',
+  'start BPM',
+  'reached BPM',
+  'clean',
+  'repetitions',
+  'minutes',
+  'note',
+] as const;
+
+/**
+ * The whole log as CSV, oldest first: RFC 4180 (a header row, commas, fields holding a comma, quote or line
+ * break quoted with inner quotes doubled, CRLF between records), dates as ISO 8601 in UTC.
+ */
+export async function practiceCsv(user: Me): Promise<{ fileName: string; csv: string }> {
+  const log = (await myPracticeLog(user)).reverse();
+  const rows = log.map((e) => [
+    e.createdAt,
+    e.songTitle,
+    e.passage ?? '',
+    e.startBar ?? '',
+    e.endBar ?? '',
+    e.startBpm,
+    e.reachedBpm,
+    e.clean ? 'yes' : 'no',
+    e.repetitions,
+    e.minutes,
+    e.note ?? '',
+  ]);
+  const csv = stringify(rows, {
+    header: true,
+    columns: [...CSV_COLUMNS],
+    record_delimiter: 'windows',
+    // With CRLF records the library quotes only fields holding a whole CRLF; a note typed with a bare line feed
+    // must be quoted too, or a reader would split the record there.
+    quoted_match: /[\r\n]/,
+  });
+  return { fileName: `practice-log-${new Date().toISOString().slice(0, 10)}.csv`, csv };
 }

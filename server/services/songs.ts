@@ -14,7 +14,7 @@ import type {
 } from '@/shared/schemas';
 import { allows, assertMay, missing, relationTo, type Action } from './access';
 import { removeStoredFiles, storageKeysOfSong } from './recordings';
-import { namesOf, setByColumns, setByView } from './users';
+import { namesOf, setByColumns, setByView, tempoColumns } from './users';
 
 /** Songs as `user` sees them: with who set their tempos and what `user` may do with each. */
 export async function songViews(user: Me, songs: Song[]): Promise<SongDto[]> {
@@ -153,7 +153,8 @@ export async function createSong(owner: Me, input: SongInput): Promise<SongDto> 
 
 export async function updateSong(user: Me, songId: string, patch: SongPatch): Promise<SongDto> {
   const song = await songFor(user, 'write', songId);
-  return songView(user, await song.update({ ...(patch as Partial<Song>), ...setByColumns(user.id, patch) }));
+  const tempos = tempoColumns(song, user.id, { workingBpm: patch.workingBpm, goalBpm: patch.goalBpm });
+  return songView(user, await song.update({ ...(patch as Partial<Song>), ...tempos }));
 }
 
 /** Working and goal tempo, by the player or their linked teacher; the song records who set them and when. */
@@ -162,7 +163,7 @@ export async function setSongTempos(user: Me, songId: string, tempos: SongTempos
   if (!song) throw missing('song');
   await assertMay(user, 'read', 'song', song.ownerId);
   await assertMay(user, 'write', 'song-tempos', song.ownerId);
-  return songView(user, await song.update({ ...tempos, ...setByColumns(user.id, tempos) }));
+  return songView(user, await song.update(tempoColumns(song, user.id, tempos)));
 }
 
 /** The song's rows go first (its recordings, candidates and log cascade), then its recordings' files. */

@@ -1,7 +1,7 @@
 // Accounts as an admin sees them.
 import { User } from '@/server/models';
-import { notFound } from '@/server/http';
-import type { Me, Preferences, Role, UserSummary } from '@/shared/schemas';
+import { HttpError, notFound } from '@/server/http';
+import type { Me, Preferences, Role, SongTempos, UserSummary } from '@/shared/schemas';
 
 export const toUserSummary = (u: User): UserSummary => ({
   id: u.id,
@@ -66,5 +66,52 @@ export function setByColumns(userId: string, patch: { workingBpm?: number | null
   return {
     ...(patch.workingBpm !== undefined ? { workingSetBy: userId, workingSetAt: now } : {}),
     ...(patch.goalBpm !== undefined ? { goalSetBy: userId, goalSetAt: now } : {}),
+  };
+}
+
+interface WorkingTempo {
+  workingBpm: number | null;
+  workingSetBy: string | null;
+  workingSetAt: Date | null;
+  previousWorking: string | null;
+}
+
+/**
+ * The columns a tempo patch writes on a song or passage: the tempos, who set them, and the working tempo it
+ * replaces (kept as it was, setter included, so Undo can put it back). `undoWorking` puts the kept one back.
+ */
+export function tempoColumns(current: WorkingTempo, userId: string, patch: SongTempos) {
+  if (patch.undoWorking) {
+    if (!current.previousWorking)
+      throw new HttpError(
+        409,
+        'nothing_to_undo',
+        'undoWorking: there is no change of the working tempo to undo',
+        'undoWorking',
+      );
+    const before = JSON.parse(current.previousWorking) as { bpm: number | null; by: string | null; at: string | null };
+    return {
+      workingBpm: before.bpm,
+      workingSetBy: before.by,
+      workingSetAt: before.at === null ? null : new Date(before.at),
+      previousWorking: null,
+    };
+  }
+  const { workingBpm, goalBpm } = patch;
+  const replaced =
+    workingBpm !== undefined && workingBpm !== current.workingBpm
+      ? {
+          previousWorking: JSON.stringify({
+            bpm: current.workingBpm,
+            by: current.workingSetBy,
+            at: current.workingSetAt?.toISOString() ?? null,
+          }),
+        }
+      : {};
+  return {
+    ...(workingBpm !== undefined ? { workingBpm } : {}),
+    ...(goalBpm !== undefined ? { goalBpm } : {}),
+    ...replaced,
+    ...setByColumns(userId, { workingBpm, goalBpm }),
   };
 }

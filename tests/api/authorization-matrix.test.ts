@@ -248,6 +248,10 @@ const MATRIX: Record<string, Case> = {
         .post(`/api/songs/${w.songId}/practice`)
         .send({ startBpm: 90, reachedBpm: 94, repetitions: 4, minutes: 8, clean: false }),
   },
+  // Everyone signed in has a log of their own (empty for most): the answer never holds another person's entries
+  // (tests/api/practice.test.ts checks the contents).
+  'GET /api/practice': { expect: signedIn(200), send: (a) => a.get('/api/practice') },
+  'GET /api/practice/export': { expect: signedIn(200), send: (a) => a.get('/api/practice/export') },
   'GET /api/songs/:songId/passages': { expect: read, send: (a) => a.get(`/api/songs/${w.songId}/passages`) },
   'POST /api/songs/:songId/passages': {
     expect: ownerOnly(201),

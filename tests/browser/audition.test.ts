@@ -157,6 +157,15 @@ test('75 %, an exact BPM, three candidates hopped while playing, the chosen temp
   const log = (await player.agent.get(`/api/songs/${song.id}/practice`).expect(200)).body.entries;
   expect(log).toHaveLength(1);
   expect(log[0]).toMatchObject({ passage: 'bar 2', startBpm: 100, reachedBpm: 110, repetitions: 3, clean: true });
+  // Clean at 110 above the working tempo of 96: the raise is offered, taken, and undone.
+  const offer = page.getByTestId('raise-offer');
+  await offer.getByText('That was clean at 110 BPM. Now 96 BPM.').waitFor();
+  await offer.getByTestId('accept-raise').click();
+  await offer.getByText('Raised the working tempo to 110 BPM.').waitFor();
+  expect((await player.agent.get(`/api/songs/${song.id}`).expect(200)).body.workingBpm).toBe(110);
+  await offer.getByTestId('undo-raise').click();
+  await offer.getByText('The working tempo is back at 96 BPM.').waitFor();
+  expect((await player.agent.get(`/api/songs/${song.id}`).expect(200)).body.workingBpm).toBe(96);
 
   expect(errors).toEqual([]);
   await context.close();

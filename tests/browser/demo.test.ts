@@ -39,6 +39,23 @@ describe.each(viewports)('demo studio at $name width', (viewport) => {
     await context.close();
   });
 
+  test('the demo player’s practice: two weeks of sessions on the chart of Copperline Reel', async () => {
+    const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+    const page = await context.newPage();
+    await signIn(page, 'ilya@harbourlane.example');
+    await page.getByText('Copperline Reel').click();
+    // The invented sessions of server/demo-data.ts: six, on six days, the last at 92 and not yet clean.
+    const chart = page.getByTestId('practice-chart-song');
+    await chart.getByText('6 sessions over 6 days; the last reached 92 BPM, not yet clean.').waitFor();
+    await chart.scrollIntoViewIfNeeded();
+    await chart.screenshot({ path: path.join(outputDir, `demo-practice-chart-${viewport.name}.png`) });
+    await page.getByRole('link', { name: 'Practice' }).click();
+    await page.getByTestId('week-summary').screenshot({
+      path: path.join(outputDir, `demo-week-${viewport.name}.png`),
+    });
+    await context.close();
+  });
+
   test('the demo teacher sees the Students page with three students', async () => {
     const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
     const page = await context.newPage();

@@ -1,7 +1,7 @@
 // The player on a long recording, generated here (never committed): a 4-minute click track at 120 BPM in 4/4 with
 // accented downbeats, so every bar's place is known by construction (bar n starts at 0.5 s + (n − 1) × 2 s).
 // At 390 px: zoom to bar 57, drag bars 57–60, name the passage, reload and find it, loop it, step up twice, see
-// the practice entry tied to the passage; scroll to the candidates and press play in the compact transport; halve
+// the practice entry tied to the passage and take the offered raise; scroll to the candidates and press play in the compact transport; halve
 // the beat (every other beat, bar numbers recounted, the click's grid with it); "this beat is one" moves bar 1.
 // At 1280 px: the waveform stays in view while the side column scrolls. Screenshots of both widths zoomed out and
 // in go to test-output/.
@@ -193,7 +193,8 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
     .getByTestId('practice-log')
     .getByText(/bridge \(bars 57–60\)/)
     .waitFor();
-  // The clean entry at 110 raised the passage's working tempo (the server's rule), shown in the list.
+  // The clean run at 110 offers to raise the passage's working tempo; taken, it shows in the list.
+  await page.getByTestId('raise-offer').getByText('Raise the working tempo of “bridge” to 110 BPM').click();
   await page
     .getByTestId('passage-bridge')
     .getByText(/working 110/)

@@ -3,6 +3,8 @@
 // count nouns singular for exactly one ("1 repetition"), plural otherwise, zero included ("0 repetitions").
 import {
   formatBpm,
+  formatDayNumber,
+  formatMinutes,
   formatClock,
   formatDate,
   formatDateTime,
@@ -106,4 +108,20 @@ test('a moment typed as m:ss, m:ss.s or plain seconds (worked examples by hand)'
   expect(parseClock('3:30,0')).toBe(210);
   expect(parseClock('1:75')).toBeNull();
   expect(parseClock('soon')).toBeNull();
+});
+
+test('practice minutes: a tenth under ten, whole minutes up to two hours, then hours and minutes (by hand)', () => {
+  expect(formatMinutes(0.1)).toBe('0.1 min');
+  expect(formatMinutes(5)).toBe('5 min');
+  expect(formatMinutes(9.96)).toBe('10 min');
+  expect(formatMinutes(31)).toBe('31 min');
+  expect(formatMinutes(68.1)).toBe('68 min');
+  expect(formatMinutes(119.6)).toBe('2 h 00 min');
+  expect(formatMinutes(125)).toBe('2 h 05 min');
+});
+
+test('a day number reads as that calendar day whatever the reader’s zone (day 20789 is 2026-12-02)', () => {
+  // Date.UTC(2026, 11, 2) / 86 400 000 = 20789; 12:00 of that day is 20789.5 and still 2 December.
+  expect(formatDayNumber(20789, 'en-GB')).toBe('2 Dec');
+  expect(formatDayNumber(20789.5, 'en-US')).toBe('Dec 2');
 });

@@ -13,6 +13,9 @@ import { DurationPlanner } from '@/components/DurationPlanner';
 import { TakeComparison } from '@/components/TakeComparison';
 import { EditOrDeleteSong, RecordingActions, SetTempos, TemposSetBy } from '@/components/SongManagement';
 import { whose } from '@/shared/format';
+import { PracticeEntryForm } from '@/components/PracticeEntryForm';
+import { PracticeProgress } from '@/components/PracticeProgress';
+import { PracticeLog } from '@/components/PracticeLog';
 
 export default function SongScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
@@ -72,6 +75,10 @@ export default function SongScreen() {
           onUploaded={(r) => router.navigate(`/recordings/${r.id}`)}
         />
       ) : null}
+      <Heading level={2}>Practice</Heading>
+      {song.permissions.edit ? <PracticeEntryForm song={song} /> : null}
+      <PracticeProgress song={song} />
+      <PracticeLog songId={song.id} />
       <DurationPlanner song={song} recordings={recordings ?? []} candidateBpms={candidates?.map((c) => c.bpm) ?? []} />
       {song.notes ? <Body muted>{song.notes}</Body> : null}
     </Screen>
