@@ -52,3 +52,10 @@ export function parseClock(text: string): number | null {
   if (m[1] !== undefined && seconds >= 60) return null;
   return Number(m[1] ?? 0) * 60 + seconds;
 }
+
+/** A beat's offset from the click: "+8 ms" late, "−12 ms" early (a true minus sign), "0 ms" on it. */
+export function formatOffsetMs(ms: number): string {
+  const r = Math.round(ms);
+  if (r === 0) return '0 ms';
+  return `${r > 0 ? '+' : '−'}${Math.abs(r)} ms`;
+}

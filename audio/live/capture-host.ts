@@ -9,6 +9,11 @@ export type ToCapture =
   { type: 'record'; from: number } | { type: 'stop' } | { type: 'stats' } | { type: 'unload' };
 
 export type FromCapture =
+  /**
+   * The microphone is live: the context time of its first sample that is not digital silence (a real input
+   * always has some noise), or of the end of a second of exact zeros (a muted input still records).
+   */
+  | { type: 'live'; time: number }
   | { type: 'onset'; time: number }
   /** Peak level (0…1) of the input over the last LEVEL_SEC. */
   | { type: 'level'; peak: number; time: number }
@@ -20,6 +25,8 @@ export type FromCapture =
 
 /** The meter is refreshed this often: smooth to the eye, few messages. */
 const LEVEL_SEC = 0.05;
+/** After this long of exact zeros the input counts as live anyway (a hardware mute switch, a silent interface). */
+const SILENT_START_SEC = 1;
 /** Recorded samples go to the main thread in chunks of about this length (fewer, larger messages). */
 const CHUNK_SEC = 0.1;
 
@@ -31,6 +38,8 @@ export class CaptureHost {
   private chunkTime = 0;
   private levelPeak = 0;
   private levelFrames = 0;
+  private live = false;
+  private zeros = 0;
   private stats = { busyMs: 0, audioMs: 0, blocks: 0, maxBlockMs: 0 };
   unloaded = false;
 
@@ -59,6 +68,7 @@ export class CaptureHost {
   /** One block of input (mono), its first sample at context time `time`. */
   process(input: Float32Array, time: number) {
     const t0 = this.now();
+    if (!this.live) this.findLive(input, time);
     for (const onset of this.detector.push(input, time)) this.post({ type: 'onset', time: onset });
     this.meter(input, time);
     if (this.recordFrom !== null) this.keep(input, time);
@@ -67,6 +77,22 @@ export class CaptureHost {
     this.stats.audioMs += (input.length / this.sampleRate) * 1000;
     this.stats.blocks++;
     this.stats.maxBlockMs = Math.max(this.stats.maxBlockMs, busy);
+  }
+
+  private findLive(input: Float32Array, time: number) {
+    let first = -1;
+    for (let i = 0; i < input.length; i++)
+      if (input[i] !== 0) {
+        first = i;
+        break;
+      }
+    if (first < 0) {
+      this.zeros += input.length;
+      if (this.zeros < SILENT_START_SEC * this.sampleRate) return;
+      first = input.length;
+    }
+    this.live = true;
+    this.post({ type: 'live', time: time + first / this.sampleRate });
   }
 
   private meter(input: Float32Array, time: number) {

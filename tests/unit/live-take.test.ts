@@ -72,3 +72,13 @@ test('the take is a mono 16-bit WAV that FFmpeg reads back sample for sample', (
     fs.rmSync(dir, { recursive: true, force: true });
   }
 });
+
+test('the input counts as live from its first sample that is not digital silence, or after a second of zeros', () => {
+  const x = new Float32Array(4000);
+  x[1000] = 0.0001;
+  const got = run(x, 3, 100);
+  expect(got.filter((m) => m.type === 'live')).toEqual([{ type: 'live', time: 3 + 1000 / SR }]);
+  const muted = run(new Float32Array(2 * SR), 3, 100).filter((m) => m.type === 'live');
+  expect(muted).toHaveLength(1);
+  expect((muted[0] as { time: number }).time).toBeCloseTo(3 + Math.ceil(SR / 128) * (128 / SR), 6);
+});
