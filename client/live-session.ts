@@ -80,6 +80,8 @@ export interface LiveEvents {
   mark?: (mark: BeatMark, onset: { time: number; receivedAt: number }) => void;
   /** The click grid is set: beat 0 (the first count-in click) sounds at context time `start`. */
   started?: (grid: { start: number; countIn: number }) => void;
+  /** The capture worklet's own time figures, sent as a run ends (for the benchmark). */
+  stats?: (s: Extract<FromCapture, { type: 'stats' }>) => void;
   /** A calibration run finished by itself. */
   calibrated?: (result: CalibrationResult) => void;
 }
@@ -173,6 +175,7 @@ export class LiveSession {
     if (m.type === 'level') this.events.level?.(m.peak);
     else if (m.type === 'audio') this.chunks.push({ time: m.time, samples: m.samples });
     else if (m.type === 'stopped') this.stopped?.();
+    else if (m.type === 'stats') this.events.stats?.(m);
     else if (m.type === 'onset') {
       this.onsets.push(m.time);
       const mark = this.feedback?.add(m.time - this.latencySec);
@@ -203,6 +206,7 @@ export class LiveSession {
         this.stopped = resolve;
         setTimeout(resolve, 500);
       });
+      this.post({ type: 'stats' });
       this.post({ type: 'stop' });
       await done;
       this.post({ type: 'unload' });

@@ -35,6 +35,8 @@ const stateWords: Record<PlayState, { label: string; colour: string }> = {
 /** What the browser test and the benchmark read: the delay from each onset to its mark on screen. */
 interface LiveProbe {
   delaysMs: number[];
+  /** The capture worklet's time figures of the last run. */
+  stats?: { busyMs: number; audioMs: number; blocks: number; maxBlockMs: number };
 }
 const probe = (): LiveProbe | null =>
   Platform.OS === 'web' ? ((window as unknown as { tactusLive?: LiveProbe }).tactusLive ??= { delaysMs: [] }) : null;
@@ -69,6 +71,10 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
   const newSession = () =>
     new LiveSession({
       level: setLevel,
+      stats: (st) => {
+        const p = probe();
+        if (p) p.stats = st;
+      },
       mark: (m, onset) => setMarks((ms) => [...ms, { ...m, receivedAt: onset.receivedAt, onset: onset.time }]),
       calibrated: (r) => {
         setPhase('idle');
