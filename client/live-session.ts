@@ -100,6 +100,7 @@ export class LiveSession {
   private stopped: (() => void) | null = null;
   private calibrationTimer: ReturnType<typeof setTimeout> | null = null;
   private latencySec = 0;
+  private disposed = false;
   running = false;
 
   constructor(private readonly events: LiveEvents = {}) {}
@@ -134,6 +135,12 @@ export class LiveSession {
     } catch (e) {
       node.port.postMessage({ type: 'unload' } satisfies ToCapture);
       throw micError(e);
+    }
+    if (this.disposed) {
+      // The card left the screen while the browser asked: the microphone is released at once.
+      this.stream.getTracks().forEach((t) => t.stop());
+      node.port.postMessage({ type: 'unload' } satisfies ToCapture);
+      return;
     }
     this.source = ctx.createMediaStreamSource(this.stream);
     this.source.connect(node);
@@ -224,6 +231,7 @@ export class LiveSession {
 
   /** Abandons a run without keeping anything (the card leaves the screen). */
   dispose() {
+    this.disposed = true;
     void this.finish();
     this.chunks = [];
   }

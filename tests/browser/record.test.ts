@@ -189,6 +189,8 @@ test('a refused microphone gets a plain message, and the rest of the song page s
   await page.getByTestId('record-bpm').waitFor();
   await page.getByTestId('record-panel').getByRole('button', { name: '+1' }).click();
   await page.getByTestId('record-bpm').getByText('91 BPM').waitFor();
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await page.getByTestId('record-panel').screenshot({ path: path.join(outputDir, 'record-refused-desktop.png') });
   expect(errors).toEqual([]);
   await context.close();
 });

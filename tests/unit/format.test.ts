@@ -3,6 +3,7 @@
 // count nouns singular for exactly one ("1 repetition"), plural otherwise, zero included ("0 repetitions").
 import {
   formatBpm,
+  formatOffsetMs,
   formatClock,
   formatDate,
   formatDateTime,
@@ -106,4 +107,13 @@ test('a moment typed as m:ss, m:ss.s or plain seconds (worked examples by hand)'
   expect(parseClock('3:30,0')).toBe(210);
   expect(parseClock('1:75')).toBeNull();
   expect(parseClock('soon')).toBeNull();
+});
+
+describe('formatOffsetMs', () => {
+  test('early reads with a true minus sign, late with a plus, whole milliseconds', () => {
+    expect(formatOffsetMs(-12.4)).toBe('−12 ms');
+    expect(formatOffsetMs(8.6)).toBe('+9 ms');
+    expect(formatOffsetMs(0.3)).toBe('0 ms');
+    expect(formatOffsetMs(-0.4)).toBe('0 ms');
+  });
 });
