@@ -19,12 +19,18 @@ const STEADY = 20;
 const RUSHING = 8;
 const RUSH_MS = 30;
 /** Where the file's first hit sits: about where the first click falls after the microphone opens. */
-const LEAD = 0.3;
+const LEAD = 0.5;
 const known = steadyThenRushing(BPM, STEADY, RUSHING, RUSH_MS, LEAD);
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-fake-mic-'));
 const MIC = path.join(dir, 'play-along.wav');
-// Two seconds of silence after the last hit, so the run is stopped before Chromium loops the file.
-fs.writeFileSync(MIC, hitTrainWav(known.times, 48000, LEAD + (STEADY + RUSHING) * PERIOD + 2));
+/**
+ * The file opens with this much digital silence. Chromium's fake microphone drops a varying number of its 10 ms
+ * buffers before the page's audio graph is attached; the card's count-in starts from the first sample that is
+ * not silence, which is then the same place in the file whatever was dropped.
+ */
+const SILENT = 0.2;
+// Two seconds after the last hit, so the run is stopped before Chromium loops the file.
+fs.writeFileSync(MIC, hitTrainWav(known.times, 48000, LEAD + (STEADY + RUSHING) * PERIOD + 2, SILENT));
 
 let browser: Browser;
 beforeAll(async () => {
