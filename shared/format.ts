@@ -69,3 +69,10 @@ export function formatMinutes(minutes: number): string {
   if (whole < 120) return `${whole} min`;
   return `${Math.floor(whole / 60)} h ${String(whole % 60).padStart(2, '0')} min`;
 }
+
+/** A beat's offset from the click: "+8 ms" late, "−12 ms" early (a true minus sign), "0 ms" on it. */
+export function formatOffsetMs(ms: number): string {
+  const r = Math.round(ms);
+  if (r === 0) return '0 ms';
+  return `${r > 0 ? '+' : '−'}${Math.abs(r)} ms`;
+}

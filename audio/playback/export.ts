@@ -32,11 +32,21 @@ function toInt16(x: Float32Array): Int16Array {
   return out;
 }
 
+/** A WAV file (16-bit PCM) of one or more channels of equal length (a recorded take is mono). */
+export function encodeWavChannels(channels: Float32Array[], sampleRate: number): Uint8Array {
+  const wav = new WaveFile();
+  wav.fromScratch(
+    channels.length,
+    sampleRate,
+    '16',
+    channels.length === 1 ? toInt16(channels[0]!) : channels.map(toInt16),
+  );
+  return wav.toBuffer();
+}
+
 /** A stereo WAV file (16-bit PCM) of the buffer. */
 export function encodeWav(audio: StereoBuffer, sampleRate: number): Uint8Array {
-  const wav = new WaveFile();
-  wav.fromScratch(2, sampleRate, '16', [toInt16(audio.left), toInt16(audio.right)]);
-  return wav.toBuffer();
+  return encodeWavChannels([audio.left, audio.right], sampleRate);
 }
 
 /** The download's name: the title, the tempo and, for a passage, which one. */

@@ -7,7 +7,8 @@ import { baseUrl } from '@/tests/api/helpers';
 
 export const outputDir = path.resolve(__dirname, '../../test-output');
 
-export async function launchChromium(): Promise<Browser> {
+/** `extraArgs`: flags for one test only (e.g. the fake microphone of the recording test). */
+export async function launchChromium(extraArgs: string[] = []): Promise<Browser> {
   fs.mkdirSync(outputDir, { recursive: true });
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
@@ -22,6 +23,7 @@ export async function launchChromium(): Promise<Browser> {
       '--disable-sync',
       // Audio may start without a gesture in tests; a real listener clicks Play anyway.
       '--autoplay-policy=no-user-gesture-required',
+      ...extraArgs,
     ],
   });
 }

@@ -5,6 +5,7 @@ import {
   formatBpm,
   formatDayNumber,
   formatMinutes,
+  formatOffsetMs,
   formatClock,
   formatDate,
   formatDateTime,
@@ -124,4 +125,13 @@ test('a day number reads as that calendar day whatever the reader’s zone (day 
   // Date.UTC(2026, 11, 2) / 86 400 000 = 20789; 12:00 of that day is 20789.5 and still 2 December.
   expect(formatDayNumber(20789, 'en-GB')).toBe('2 Dec');
   expect(formatDayNumber(20789.5, 'en-US')).toBe('Dec 2');
+});
+
+describe('formatOffsetMs', () => {
+  test('early reads with a true minus sign, late with a plus, whole milliseconds', () => {
+    expect(formatOffsetMs(-12.4)).toBe('−12 ms');
+    expect(formatOffsetMs(8.6)).toBe('+9 ms');
+    expect(formatOffsetMs(0.3)).toBe('0 ms');
+    expect(formatOffsetMs(-0.4)).toBe('0 ms');
+  });
 });

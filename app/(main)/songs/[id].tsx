@@ -5,6 +5,7 @@ import { View } from 'react-native';
 import { Body, Button, EmptyState, Heading, Loading, Notice, Screen, Small } from '@/components/ui';
 import { SongTempos } from '@/components/TempoLabel';
 import { UploadPanel } from '@/components/UploadPanel';
+import { RecordPanel } from '@/components/RecordPanel';
 import { RecordingRow } from '@/components/RecordingRow';
 import { space } from '@/components/theme';
 import { ScreenTitle } from '@/components/ScreenTitle';
@@ -79,6 +80,9 @@ export default function SongScreen() {
       {song.permissions.edit ? <PracticeEntryForm song={song} /> : null}
       <PracticeProgress song={song} />
       <PracticeLog songId={song.id} />
+      {song.permissions.addTake ? (
+        <RecordPanel song={song} onKept={(r) => router.navigate(`/recordings/${r.id}`)} />
+      ) : null}
       <DurationPlanner song={song} recordings={recordings ?? []} candidateBpms={candidates?.map((c) => c.bpm) ?? []} />
       {song.notes ? <Body muted>{song.notes}</Body> : null}
     </Screen>

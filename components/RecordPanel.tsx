@@ -1,0 +1,358 @@
+// Recording a take against the click, with live feedback while playing: the count-in, the click in the
+// headphones, the input level, each beat's offset from the click, the running tempo and steady / rushing /
+// dragging. Stop, listen back, keep (uploaded and analysed like any take) or discard. The latency measurement
+// lives here too, kept per browser. The audio work is in client/live-session.ts; this is layout and state.
+import React, { useEffect, useRef, useState } from 'react';
+import { Platform, Text, View } from 'react-native';
+import { mutate } from 'swr';
+import { Button, Card, Chip, Field, Heading, Notice, Row, Small } from './ui';
+import { ProgressBar } from './ProgressBar';
+import { colors, radius, space, type } from './theme';
+import { Level } from '@/components/audition/SoundLevels';
+import { beatsPerBar } from '@/audio/playback/click';
+import { RUNNING_INTERVALS, type BeatMark, type PlayState } from '@/audio/live/feedback';
+import { CALIBRATION_CLICKS } from '@/audio/live/calibration';
+import { takeWav } from '@/audio/live/take';
+import { listenBack, LiveSession, type RecordedTake } from '@/client/live-session';
+import { keepCalibration, readCalibration, type StoredCalibration } from '@/client/latency';
+import { DEFAULT_CLICK_GAIN } from '@/client/click-sound';
+import { audioContext } from '@/client/audio-context';
+import { uploadRecording } from '@/client/upload';
+import { formatBpm, formatDate, formatDuration, formatOffsetMs, plural, tenth } from '@/shared/format';
+import type { Recording, Song } from '@/shared/schemas';
+
+type Phase = 'idle' | 'calibrating' | 'recording' | 'review' | 'uploading';
+
+/** Marks shown at once: two bars of 4/4, the window of the running tempo. */
+const SHOWN_MARKS = 8;
+
+const stateWords: Record<PlayState, { label: string; colour: string }> = {
+  steady: { label: 'Steady', colour: colors.teal },
+  rushing: { label: 'Rushing', colour: colors.amber },
+  dragging: { label: 'Dragging', colour: colors.danger },
+};
+
+/** What the browser test and the benchmark read: the delay from each onset to its mark on screen. */
+interface LiveProbe {
+  delaysMs: number[];
+  /** The capture worklet's time figures of the last run. */
+  stats?: { busyMs: number; audioMs: number; blocks: number; maxBlockMs: number };
+}
+const probe = (): LiveProbe | null =>
+  Platform.OS === 'web' ? ((window as unknown as { tactusLive?: LiveProbe }).tactusLive ??= { delaysMs: [] }) : null;
+
+export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recording) => void }) {
+  const [bpm, setBpm] = useState(song.workingBpm ?? song.chosenBpm ?? song.goalBpm ?? 100);
+  const perBar = beatsPerBar(song.meter);
+  const [clickVolume, setClickVolume] = useState(DEFAULT_CLICK_GAIN);
+  const [phase, setPhase] = useState<Phase>('idle');
+  const [error, setError] = useState<string | null>(null);
+  const [note, setNote] = useState<string | null>(null);
+  const [level, setLevel] = useState(0);
+  const [marks, setMarks] = useState<(BeatMark & { receivedAt: number; onset: number })[]>([]);
+  const [calibration, setCalibration] = useState<StoredCalibration | null>(readCalibration);
+  const [take, setTake] = useState<RecordedTake | null>(null);
+  const [listening, setListening] = useState<(() => void) | null>(null);
+  const [label, setLabel] = useState('');
+  const [progress, setProgress] = useState(0);
+  const session = useRef<LiveSession | null>(null);
+
+  useEffect(() => {
+    return () => session.current?.dispose();
+  }, []);
+
+  // The delay from an onset (on the audio clock) to its mark being on screen, for the benchmark.
+  const lastMark = marks[marks.length - 1];
+  useEffect(() => {
+    if (!lastMark || Platform.OS !== 'web') return;
+    requestAnimationFrame(() => probe()?.delaysMs.push((audioContext().currentTime - lastMark.onset) * 1000));
+  }, [lastMark]);
+
+  const newSession = () =>
+    new LiveSession({
+      level: setLevel,
+      stats: (st) => {
+        const p = probe();
+        if (p) p.stats = st;
+      },
+      mark: (m, onset) => setMarks((ms) => [...ms, { ...m, receivedAt: onset.receivedAt, onset: onset.time }]),
+      calibrated: (r) => {
+        setPhase('idle');
+        setLevel(0);
+        if (r.ok) {
+          setCalibration(keepCalibration(r.calibration));
+          setNote(`Latency measured: ${Math.round(r.calibration.latencyMs)} ms. Takes and marks are shifted by it.`);
+        } else setError(r.reason);
+      },
+    });
+
+  const begin = async (calibrating: boolean) => {
+    setError(null);
+    setNote(null);
+    setMarks([]);
+    setTake(null);
+    const s = newSession();
+    session.current = s;
+    setPhase(calibrating ? 'calibrating' : 'recording');
+    try {
+      await s.start({
+        bpm,
+        beatsPerBar: perBar,
+        clickVolume,
+        latencySec: calibrating ? 0 : (calibration?.latencyMs ?? 0) / 1000,
+        calibration: calibrating,
+      });
+    } catch (e) {
+      s.dispose();
+      setPhase('idle');
+      setError((e as Error).message);
+    }
+  };
+
+  const stop = async () => {
+    const t = await session.current?.stop();
+    setLevel(0);
+    if (t && t.seconds > 1) {
+      setTake(t);
+      setPhase('review');
+    } else {
+      setPhase('idle');
+      setNote('That was too short to keep: nothing was recorded.');
+    }
+  };
+
+  const stopListening = () => {
+    listening?.();
+    setListening(null);
+  };
+
+  const discard = () => {
+    stopListening();
+    setTake(null);
+    setPhase('idle');
+    setNote('The take was discarded; nothing was sent.');
+  };
+
+  const keep = async () => {
+    if (!take) return;
+    stopListening();
+    setPhase('uploading');
+    setError(null);
+    try {
+      const bytes = takeWav(take.samples, take.sampleRate);
+      const file = new File([bytes as Uint8Array<ArrayBuffer>], `Take at ${formatBpm(bpm)} BPM.wav`, {
+        type: 'audio/wav',
+      });
+      const r = await uploadRecording(
+        song.id,
+        file,
+        { kind: 'take', label: label.trim() || `Recorded at ${formatBpm(bpm)} BPM` },
+        setProgress,
+      );
+      await mutate(`/api/songs/${song.id}/recordings`);
+      setTake(null);
+      setLabel('');
+      setPhase('idle');
+      onKept(r);
+    } catch (e) {
+      // The take stays in the browser so it can be sent again.
+      setPhase('review');
+      setError((e as Error).message);
+    }
+  };
+
+  const busy = phase === 'calibrating' || phase === 'recording';
+  const latest = marks[marks.length - 1];
+  return (
+    <Card testID="record-panel">
+      <Heading level={3}>Record a take</Heading>
+      <Notice tone="caution">
+        Use headphones: through speakers the click is recorded with you. Keep the click moderate, as long listening at
+        high levels in headphones harms hearing (WHO–ITU H.870, safe listening), and take a break from long repetitive
+        practice if your hands or ears tire.
+      </Notice>
+      <Row align="baseline">
+        <Text style={[type.h2, { color: colors.ink }]} testID="record-bpm">
+          {formatBpm(bpm)} BPM
+        </Text>
+        <Small>{song.meter} · count-in of one bar</Small>
+      </Row>
+      <Row>
+        <Chip label="−5" disabled={busy} onPress={() => setBpm((b) => tenth(Math.max(30, b - 5)))} />
+        <Chip label="−1" disabled={busy} onPress={() => setBpm((b) => tenth(Math.max(30, b - 1)))} />
+        <Chip label="+1" disabled={busy} onPress={() => setBpm((b) => tenth(Math.min(300, b + 1)))} />
+        <Chip label="+5" disabled={busy} onPress={() => setBpm((b) => tenth(Math.min(300, b + 5)))} />
+        <Level label="Click" value={clickVolume} onChange={setClickVolume} testID="record-click-level" />
+      </Row>
+
+      <View style={{ gap: space.xs }}>
+        <Text style={[type.label, { color: colors.ink }]}>Latency</Text>
+        <Text style={[type.small, { color: colors.muted }]} testID="latency">
+          {calibration
+            ? `${Math.round(calibration.latencyMs)} ms on this browser (measured ${formatDate(calibration.at)})`
+            : 'Not measured on this browser yet: marks and takes may sit a little late.'}
+        </Text>
+        <Small>
+          To measure it, press Measure, then hold a headphone to the microphone (or tap along on the desk) for{' '}
+          {CALIBRATION_CLICKS} clicks after the count-in.
+        </Small>
+      </View>
+
+      <Row>
+        {phase === 'recording' ? (
+          <Button label="Stop" onPress={() => void stop()} testID="record-stop" />
+        ) : (
+          <Button
+            label="Start recording"
+            onPress={() => void begin(false)}
+            disabled={busy || phase === 'uploading' || phase === 'review'}
+            testID="record-start"
+          />
+        )}
+        <Button
+          label={phase === 'calibrating' ? 'Measuring…' : 'Measure latency'}
+          kind="secondary"
+          onPress={() => void begin(true)}
+          disabled={busy || phase === 'uploading' || phase === 'review'}
+          testID="calibrate"
+        />
+      </Row>
+
+      {busy ? (
+        <View style={{ gap: space.xs }}>
+          <ProgressBar value={Math.sqrt(level)} label="Input level" testID="input-level" />
+          <Small>{level > 0.9 ? 'Input level: too loud, move back from the microphone' : 'Input level'}</Small>
+        </View>
+      ) : null}
+
+      {phase === 'recording' ? (
+        <View style={{ gap: space.sm }} testID="live-view">
+          <Row align="baseline">
+            <Text
+              style={[type.h2, { color: latest ? stateWords[latest.state].colour : colors.muted }]}
+              testID="live-state"
+              aria-live="polite"
+            >
+              {latest ? stateWords[latest.state].label : 'Listening…'}
+            </Text>
+            <Text style={[type.small, { color: colors.muted }]} testID="live-bpm">
+              {latest?.bpm
+                ? `${formatBpm(tenth(latest.bpm))} BPM over the last ${plural(Math.min(RUNNING_INTERVALS, marks.length - 1), 'beat')} · target ${formatBpm(bpm)} BPM`
+                : ''}
+            </Text>
+          </Row>
+          <OffsetLane marks={marks.slice(-SHOWN_MARKS)} perBar={perBar} />
+        </View>
+      ) : null}
+
+      {take && (phase === 'review' || phase === 'uploading') ? (
+        <View style={{ gap: space.sm }} testID="take-review">
+          <Text style={[type.label, { color: colors.ink }]}>Take: {formatDuration(take.seconds)}</Text>
+          <Row>
+            <Button
+              label={listening ? 'Stop listening' : 'Listen back'}
+              kind="secondary"
+              onPress={() => {
+                if (listening) return stopListening();
+                void listenBack(take, () => setListening(null)).then((stopIt) => setListening(() => stopIt));
+              }}
+              testID="listen-back"
+            />
+          </Row>
+          <Field label="Label (optional)" value={label} onChangeText={setLabel} testID="take-label" />
+          {phase === 'uploading' ? <ProgressBar value={progress} label="Upload progress" /> : null}
+          <Row>
+            <Button
+              label="Keep and analyse"
+              onPress={() => void keep()}
+              busy={phase === 'uploading'}
+              testID="keep-take"
+            />
+            <Button
+              label="Discard"
+              kind="danger"
+              onPress={discard}
+              disabled={phase === 'uploading'}
+              testID="discard-take"
+            />
+          </Row>
+          <Small>Only a kept take leaves this browser.</Small>
+        </View>
+      ) : null}
+
+      {note ? <Notice tone="info">{note}</Notice> : null}
+      {error ? <Notice tone="error">{error}</Notice> : null}
+    </Card>
+  );
+}
+
+/** The lane's half-width in ms: offsets beyond it sit at its edge (a quarter of a beat at 150 BPM). */
+const LANE_MS = 100;
+
+/** Bar and beat after the count-in (bar 1, beat 1 is the first beat played), from the grid's beat number. */
+function barBeat(beat: number, perBar: number) {
+  const played = beat - perBar;
+  return { bar: Math.floor(played / perBar) + 1, beat: (played % perBar) + 1 };
+}
+
+/** The last beats as ticks on a lane: the centre line is the click, early to the left, late to the right. */
+function OffsetLane({ marks, perBar }: { marks: BeatMark[]; perBar: number }) {
+  return (
+    <View style={{ gap: space.xs, maxWidth: 640 }} testID="live-marks">
+      <View style={{ flexDirection: 'row', gap: space.sm }}>
+        <View style={{ width: 64 }} />
+        <View style={{ flex: 1, flexDirection: 'row', justifyContent: 'space-between' }}>
+          <Small>◂ early</Small>
+          <Small>click</Small>
+          <Small>late ▸</Small>
+        </View>
+        <View style={{ width: 64 }} />
+      </View>
+      {marks.map((m) => {
+        const x = Math.max(-1, Math.min(1, m.offsetMs / LANE_MS));
+        const words = m.offsetMs < 0 ? 'early' : 'late';
+        const at = barBeat(m.beat, perBar);
+        return (
+          <View
+            key={m.beat}
+            testID="live-mark"
+            aria-label={`Bar ${at.bar}, beat ${at.beat}: ${Math.round(Math.abs(m.offsetMs))} ms ${words}, ${m.state}`}
+            style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}
+          >
+            <Text style={[type.small, { color: colors.muted, width: 64 }]}>
+              {at.bar}.{at.beat}
+            </Text>
+            <View
+              style={{
+                flex: 1,
+                height: 14,
+                backgroundColor: colors.tealSoft,
+                borderRadius: radius.sm,
+                overflow: 'hidden',
+              }}
+            >
+              <View
+                style={{ position: 'absolute', left: '50%', top: 0, bottom: 0, width: 1, backgroundColor: colors.ink }}
+              />
+              <View
+                style={{
+                  position: 'absolute',
+                  left: `${50 + x * 48}%`,
+                  top: 1,
+                  width: 6,
+                  height: 12,
+                  marginLeft: -3,
+                  borderRadius: 3,
+                  backgroundColor: stateWords[m.state].colour,
+                }}
+              />
+            </View>
+            <Text style={[type.small, { color: colors.ink, width: 64, textAlign: 'right' }]}>
+              {formatOffsetMs(m.offsetMs)}
+            </Text>
+          </View>
+        );
+      })}
+    </View>
+  );
+}
