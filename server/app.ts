@@ -8,7 +8,7 @@ import { config } from './config';
 import { databaseState } from './db';
 import { errorHandler, HttpError } from './http';
 import { buildOpenApiDocument, openApiRouter } from './openapi';
-import { loadUser } from '@/server/middleware/session';
+import { forgetSession, loadUser } from '@/server/middleware/session';
 import { adminRouter } from '@/server/routes/admin';
 import { devRouter } from '@/server/routes/dev';
 import { meRouter } from '@/server/routes/me';
@@ -31,7 +31,7 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.set('trust proxy', 'loopback');
 
   // better-auth reads the raw body itself, so it is mounted before the JSON parser.
-  app.all('/api/auth/{*splat}', toNodeHandler(auth));
+  app.all('/api/auth/{*splat}', forgetSession, toNodeHandler(auth));
 
   app.use(express.json({ limit: '1mb' }));
 

@@ -35,6 +35,8 @@ export const config = {
       secretAccessKey: process.env.TACTUS_S3_SECRET_KEY ?? 'S3RVER',
     },
   },
+  /** How long a process remembers whom a session cookie belongs to (0: ask better-auth on every request). */
+  sessionMemoMs: Number(process.env.TACTUS_SESSION_MEMO_MS ?? 5_000),
   uploads: {
     maxBytes: Number(process.env.TACTUS_MAX_UPLOAD_BYTES ?? 200 * 1024 * 1024),
     maxDurationSec: Number(process.env.TACTUS_MAX_DURATION_SEC ?? 20 * 60),

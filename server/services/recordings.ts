@@ -161,7 +161,7 @@ export function readStoredAnalysis(a: Analysis | null): AnalysisDto | null {
 export async function toRecordingDto(user: Me, r: Recording, analysis?: Analysis | null): Promise<RecordingDto> {
   const result = readStoredAnalysis(analysis === undefined ? await Analysis.findByPk(r.id) : analysis);
   const relation = await relationTo(user, r.ownerId);
-  const names = await namesOf([r.uploadedBy, r.ownerId]);
+  const names = await namesOf([r.uploadedBy, r.ownerId], user);
   return {
     id: r.id,
     songId: r.songId,
