@@ -1,5 +1,6 @@
 // The API's error shape and the helpers that produce it (see ApiErrorSchema in shared/schemas.ts).
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
+import { ConnectionAcquireTimeoutError, ConnectionError } from 'sequelize';
 import type { ZodType } from 'zod';
 
 export class HttpError extends Error {
@@ -35,6 +36,24 @@ export const handler =
       next(err);
     }
   };
+
+/** Codes of the MariaDB connector and of Node for a database that is down or a connection that was cut. */
+const UNREACHABLE =
+  /^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|EPIPE|EHOSTUNREACH|ER_GET_CONNECTION_TIMEOUT|ER_CONNECTION_TIMEOUT|ER_SOCKET_UNEXPECTED_CLOSE|ER_CMD_CONNECTION_CLOSED|ER_CONNECTION_ALREADY_CLOSED|ER_CLOSING_POOL)$/;
+
+/** Whether an error (or one it wraps: Sequelize's `parent`, an Error's `cause`) says the database is out of reach. */
+export function isDatabaseUnreachable(err: unknown): boolean {
+  for (
+    let e = err as { code?: unknown; parent?: unknown; cause?: unknown } | undefined, depth = 0;
+    e && depth < 5;
+    depth++
+  ) {
+    if (e instanceof ConnectionError || e instanceof ConnectionAcquireTimeoutError) return true;
+    if (typeof e.code === 'string' && UNREACHABLE.test(e.code)) return true;
+    e = (e.parent ?? e.cause) as typeof e;
+  }
+  return false;
+}
 
 // Answers are always JSON, even when a route had already set another type (the audio route sets its own).
 export function errorHandler(err: unknown, _req: Request, res: Response, _next: NextFunction) {
@@ -79,6 +98,17 @@ export function errorHandler(err: unknown, _req: Request, res: Response, _next: 
         ? ['bad_path', 'the address is not valid (it has a broken % escape)']
         : ['bad_request', 'the request could not be read']);
     res.type('json').status(status).json({ error: { code, message } });
+    return;
+  }
+  if (isDatabaseUnreachable(err)) {
+    // Nothing was written (each change is one transaction); the pool reconnects once the database is back.
+    res
+      .type('json')
+      .status(503)
+      .setHeader('Retry-After', '5')
+      .json({
+        error: { code: 'unavailable', message: 'Tactus cannot reach its database just now; try again in a moment' },
+      });
     return;
   }
   console.error('[tactus] unexpected error:', err);
