@@ -55,6 +55,17 @@ export function isDatabaseUnreachable(err: unknown): boolean {
   return false;
 }
 
+/** Whether an error says a disk (the spool or the store) is full. */
+export const isOutOfSpace = (err: unknown) => ['ENOSPC', 'EDQUOT'].includes(String((err as { code?: unknown })?.code));
+
+export const storageFull = () =>
+  new HttpError(
+    507,
+    'storage_full',
+    'Tactus has run out of storage space, so the upload was not kept; try again later',
+    'file',
+  );
+
 // Answers are always JSON, even when a route had already set another type (the audio route sets its own).
 export function errorHandler(err: unknown, _req: Request, res: Response, _next: NextFunction) {
   if (err instanceof HttpError) {
@@ -98,6 +109,14 @@ export function errorHandler(err: unknown, _req: Request, res: Response, _next: 
         ? ['bad_path', 'the address is not valid (it has a broken % escape)']
         : ['bad_request', 'the request could not be read']);
     res.type('json').status(status).json({ error: { code, message } });
+    return;
+  }
+  if (isOutOfSpace(err)) {
+    const full = storageFull();
+    res
+      .type('json')
+      .status(full.status)
+      .json({ error: { code: full.code, message: full.message, field: full.field } });
     return;
   }
   if (isDatabaseUnreachable(err)) {
