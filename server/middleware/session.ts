@@ -21,10 +21,9 @@ declare module 'express-serve-static-core' {
 const memo = new Map<string, { user: Promise<Me | null>; until: number }>();
 const MEMO_MAX = 10_000;
 
-const memoKey = (req: Request) => {
-  const cookie = req.headers.cookie;
-  return cookie && cookie.includes('session_token') ? cookie : null;
-};
+/** The session token cookie's value (better-auth's name, with the __Secure- prefix it takes over HTTPS). */
+const memoKey = (req: Request) =>
+  /(?:^|;\s*)(?:__Secure-)?better-auth\.session_token=([^;]+)/.exec(req.headers.cookie ?? '')?.[1] ?? null;
 
 async function lookUp(req: Request): Promise<Me | null> {
   const session = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
