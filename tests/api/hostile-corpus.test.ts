@@ -398,6 +398,16 @@ test('hostile uploads are each refused with a clear 4xx, and nothing is stored',
     songId,
   ]);
   expect(Number(rows[0]!.n)).toBe(0);
+  // No spool file is left behind. Other test files upload to this server at the same time, so a file in
+  // flight may be seen for a moment: wait for the folder to empty rather than read it once.
+  const spool = servers.disk.spool;
+  const until = Date.now() + 15_000;
+  let left = fs.existsSync(spool) ? fs.readdirSync(spool) : [];
+  while (left.length && Date.now() < until) {
+    await new Promise((r) => setTimeout(r, 100));
+    left = fs.readdirSync(spool);
+  }
+  expect(left).toEqual([]);
 }, 180_000);
 
 test('hostile JSON bodies and ids are each refused with a clear 4xx, and nothing changes', async () => {
