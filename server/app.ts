@@ -11,7 +11,7 @@ import { requestLogger } from './log';
 import { authGuards } from './middleware/auth-guards';
 import { sameOriginOnly, securityHeaders } from './middleware/security';
 import { buildOpenApiDocument, openApiRouter } from './openapi';
-import { loadUser } from '@/server/middleware/session';
+import { forgetSession, loadUser } from '@/server/middleware/session';
 import { adminRouter } from '@/server/routes/admin';
 import { devRouter } from '@/server/routes/dev';
 import { meRouter } from '@/server/routes/me';
@@ -39,8 +39,9 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   app.use('/api', sameOriginOnly);
 
   // better-auth behind our guards: bounded bodies, checked names, rate limits (server/middleware/auth-guards.ts).
+  // It reads the raw body itself, so it is mounted before the JSON parser.
   app.use('/api/auth', ...authGuards);
-  app.all('/api/auth/{*splat}', toNodeHandler(auth));
+  app.all('/api/auth/{*splat}', forgetSession, toNodeHandler(auth));
 
   app.use(express.json({ limit: config.maxJsonBytes }));
 

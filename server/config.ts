@@ -70,9 +70,17 @@ export const config = {
       secretAccessKey: process.env.TACTUS_S3_SECRET_KEY ?? 'S3RVER',
     },
   },
+  /** How long a process remembers whom a session cookie belongs to (0: ask better-auth on every request). */
+  sessionMemoMs: Number(process.env.TACTUS_SESSION_MEMO_MS ?? 5_000),
   uploads: {
     maxBytes: Number(process.env.TACTUS_MAX_UPLOAD_BYTES ?? 200 * 1024 * 1024),
     maxDurationSec: Number(process.env.TACTUS_MAX_DURATION_SEC ?? 20 * 60),
+    /** Uploads checked at once (each in a worker thread, one ffmpeg each); the rest wait in line. */
+    concurrentChecks: Number(process.env.TACTUS_CONCURRENT_CHECKS ?? 2),
+    /** Past this many waiting, an upload is refused as busy (503) instead of queued. */
+    maxWaitingChecks: Number(process.env.TACTUS_MAX_WAITING_CHECKS ?? 100),
+    /** A check that takes longer is stopped and the upload refused (a capped decode of 20 minutes takes ~3 s). */
+    checkTimeoutMs: Number(process.env.TACTUS_CHECK_TIMEOUT_MS ?? 60_000),
   },
   analysis: {
     /** Worker threads per server process; default: one per core but one, at least one. */

@@ -1,5 +1,6 @@
 // The API's error shape and the helpers that produce it (see ApiErrorSchema in shared/schemas.ts).
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
+import { ConnectionAcquireTimeoutError, ConnectionError } from 'sequelize';
 import type { ZodType } from 'zod';
 import { log } from './log';
 
@@ -56,6 +57,35 @@ export const handler =
     }
   };
 
+/** Codes of the MariaDB connector and of Node for a database that is down or a connection that was cut. */
+const UNREACHABLE =
+  /^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|EPIPE|EHOSTUNREACH|ER_GET_CONNECTION_TIMEOUT|ER_CONNECTION_TIMEOUT|ER_SOCKET_UNEXPECTED_CLOSE|ER_CMD_CONNECTION_CLOSED|ER_CONNECTION_ALREADY_CLOSED|ER_CLOSING_POOL)$/;
+
+/** Whether an error (or one it wraps: Sequelize's `parent`, an Error's `cause`) says the database is out of reach. */
+export function isDatabaseUnreachable(err: unknown): boolean {
+  for (
+    let e = err as { code?: unknown; parent?: unknown; cause?: unknown } | undefined, depth = 0;
+    e && depth < 5;
+    depth++
+  ) {
+    if (e instanceof ConnectionError || e instanceof ConnectionAcquireTimeoutError) return true;
+    if (typeof e.code === 'string' && UNREACHABLE.test(e.code)) return true;
+    e = (e.parent ?? e.cause) as typeof e;
+  }
+  return false;
+}
+
+/** Whether an error says a disk (the spool or the store) is full. */
+export const isOutOfSpace = (err: unknown) => ['ENOSPC', 'EDQUOT'].includes(String((err as { code?: unknown })?.code));
+
+export const storageFull = () =>
+  new HttpError(
+    507,
+    'storage_full',
+    'Tactus has run out of storage space, so the upload was not kept; try again later',
+    'file',
+  );
+
 /**
  * Answers are always JSON, even when a route had already set another type (the audio route sets its own), and
  * carry the request id the log line has (never a stack trace).
@@ -100,6 +130,17 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
         ? ['bad_path', 'the address is not valid (it has a broken % escape)']
         : ['bad_request', 'the request could not be read']);
     answer(status, { code, message });
+    return;
+  }
+  if (isOutOfSpace(err)) {
+    const full = storageFull();
+    answer(full.status, { code: full.code, message: full.message, field: full.field });
+    return;
+  }
+  if (isDatabaseUnreachable(err)) {
+    // Nothing was written (each change is one transaction); the pool reconnects once the database is back.
+    res.setHeader('Retry-After', '5');
+    answer(503, { code: 'unavailable', message: 'Tactus cannot reach its database just now; try again in a moment' });
     return;
   }
   // The stack goes to the log, under the request id the answer names; the answer says only that it failed.

@@ -7,6 +7,7 @@ import { startAnalysisRunner } from '@/server/jobs/runner';
 import { queueReanalyses } from '@/server/jobs/queue';
 import { ENGINE_VERSION } from '@/audio/analysis/version';
 import { cleanSpool } from '@/server/middleware/upload';
+import { checkPool } from '@/server/analysis/check-pool';
 import { startDigests, stopDigests } from '@/server/services/digests';
 
 /** Settings production cannot do without; the server says which and does not start. */
@@ -33,6 +34,7 @@ async function main() {
   if (outdated) console.log(`[tactus] ${outdated} recording(s) analysed by an older engine queued for re-analysis`);
   // Queued jobs, and jobs whose process died mid-way, are picked up again from the table.
   const runner = startAnalysisRunner();
+  checkPool().warm();
   startDigests();
   const serveWeb = config.production || process.env.TACTUS_SERVE_WEB === '1';
   const app = createApp({ serveWeb });

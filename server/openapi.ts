@@ -101,6 +101,9 @@ const ERROR_MEANINGS: Record<number, string> = {
   413: 'The body or the uploaded file is over the size or duration limit.',
   415: 'The upload is not audio Tactus can read (MP3, WAV, FLAC, OGG or M4A).',
   416: 'The Range header cannot be served (one bytes range within the file).',
+  422: 'The upload took too long to check (it may be damaged).',
+  503: 'The database cannot be reached just now, or too many uploads are being checked (see Retry-After where given).',
+  507: 'The server has run out of storage space; the upload was not kept.',
 };
 
 const json = (description: string, schema: ZodType): ResponseConfig => ({
@@ -243,7 +246,7 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
         file: z.string().meta({ format: 'binary', description: 'The audio file: MP3, WAV, FLAC, OGG or M4A.' }),
       }),
       ok: { 201: json('Stored; its analysis is queued.', s.Recording) },
-      errors: [413, 415],
+      errors: [413, 415, 422, 507],
     },
     {
       method: 'get',
@@ -870,6 +873,9 @@ export function buildOpenApiDocument(opts: { devTools: boolean }) {
     if (op.access !== 'public') errorStatuses.add(401);
     if (Array.isArray(op.access)) errorStatuses.add(403);
     if (pathParams.length) errorStatuses.add(404);
+    // All but the document, its page and the caught mail need the database (server/http.ts,
+    // isDatabaseUnreachable); an upload may also find the checks busy.
+    if (!/^\/api\/(openapi\.json|docs|dev\/)/.test(op.path)) errorStatuses.add(503);
     const errorResponses = Object.fromEntries(
       [...errorStatuses].sort((a, b) => a - b).map((status) => [status, json(ERROR_MEANINGS[status]!, s.ApiError)]),
     );

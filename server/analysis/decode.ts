@@ -15,15 +15,19 @@ export function decodeFile(file: string, sampleRate: number = ANALYSIS_RATE): Pr
   return runDecoder(file, sampleRate, true).then(({ samples }) => ({ samples: samples!, sampleRate }));
 }
 
-/** How many seconds of audio a file really holds, decoded and counted without keeping the samples. */
-export function decodedSeconds(file: string, sampleRate = 8000): Promise<number> {
-  return runDecoder(file, sampleRate, false).then(({ frames }) => frames / sampleRate);
+/**
+ * How many seconds of audio a file really holds, decoded and counted without keeping the samples. With
+ * `atMostSec`, decoding stops there: a file whose header hides a three-hour length costs no more than the limit.
+ */
+export function decodedSeconds(file: string, sampleRate = 8000, atMostSec?: number): Promise<number> {
+  return runDecoder(file, sampleRate, false, atMostSec).then(({ frames }) => frames / sampleRate);
 }
 
 function runDecoder(
   file: string,
   sampleRate: number,
   keep: boolean,
+  atMostSec?: number,
 ): Promise<{ samples: Float32Array | null; frames: number }> {
   return new Promise((resolve, reject) => {
     const ff = spawn(
@@ -40,6 +44,7 @@ function runDecoder(
         '1',
         '-ar',
         String(sampleRate),
+        ...(atMostSec ? ['-t', String(atMostSec)] : []),
         '-f',
         'f32le',
         '-',

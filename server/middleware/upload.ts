@@ -6,7 +6,7 @@ import crypto from 'node:crypto';
 import multer from 'multer';
 import type { NextFunction, Request, Response } from 'express';
 import { config } from '@/server/config';
-import { HttpError } from '@/server/http';
+import { HttpError, isOutOfSpace, storageFull } from '@/server/http';
 
 interface SpooledFile {
   path: string;
@@ -82,14 +82,17 @@ export function receiveUpload(req: Request, res: Response, next: NextFunction) {
         new HttpError(400, 'invalid_body', `the upload could not be read: ${err.message}`, err.field ?? 'file'),
       );
     }
+    // The spool's disk is full: the partial file is gone already (bail above); say so rather than blame the upload.
+    if (isOutOfSpace(err)) return next(storageFull());
     next(new HttpError(400, 'invalid_body', `the upload could not be read: ${(err as Error).message}`, 'file'));
   });
 }
 
 export const spooledFile = (req: Request) => req.file as unknown as SpooledFile | undefined;
-export const removeSpooled = (req: Request) => {
+/** Off the request thread: unlinking a 100 MB file while the disk is busy can take a while. */
+export const removeSpooled = async (req: Request) => {
   const f = spooledFile(req);
-  if (f) fs.rmSync(f.path, { force: true });
+  if (f) await fs.promises.rm(f.path, { force: true });
 };
 
 /** At start-up: spool files left by a process that died mid-upload. Only this process's folder is touched. */

@@ -52,7 +52,7 @@ songRecordingsRouter.post(
       };
       res.status(201).json(await addRecording(currentUser(req), String(req.params.songId), upload));
     } finally {
-      removeSpooled(req);
+      await removeSpooled(req);
     }
   }),
 );

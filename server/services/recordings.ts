@@ -10,7 +10,8 @@ import { HttpError } from '@/server/http';
 import { objectStore, type ByteRange } from '@/server/storage';
 import { enqueue, retry } from '@/server/jobs/queue';
 import { analysisRunner } from '@/server/jobs/runner';
-import { checkAudio, type CheckedAudio } from '@/server/analysis/audio-check';
+import type { CheckedAudio } from '@/server/analysis/audio-check';
+import { checkPool } from '@/server/analysis/check-pool';
 import {
   AnalysisSchema,
   type Analysis as AnalysisDto,
@@ -116,7 +117,7 @@ export async function addRecording(
     throw new HttpError(403, 'forbidden', 'kind: a take is the player’s own; add this as a reference', 'kind');
   }
   const originalName = checkFileName(upload.fileName);
-  const audio = await checkAudio(upload.spoolFile, config.uploads.maxDurationSec);
+  const audio = await checkPool().check(upload.spoolFile, config.uploads.maxDurationSec);
   const uploadedBy = user.id === song.ownerId ? null : user.id;
   const recording = await storeRecording({
     songId: song.id,
@@ -160,7 +161,7 @@ export function readStoredAnalysis(a: Analysis | null): AnalysisDto | null {
 export async function toRecordingDto(user: Me, r: Recording, analysis?: Analysis | null): Promise<RecordingDto> {
   const result = readStoredAnalysis(analysis === undefined ? await Analysis.findByPk(r.id) : analysis);
   const relation = await relationTo(user, r.ownerId);
-  const names = await namesOf([r.uploadedBy, r.ownerId]);
+  const names = await namesOf([r.uploadedBy, r.ownerId], user);
   return {
     id: r.id,
     songId: r.songId,

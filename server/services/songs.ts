@@ -18,7 +18,10 @@ import { namesOf, setByColumns, setByView, tempoColumns } from './users';
 
 /** Songs as `user` sees them: with who set their tempos and what `user` may do with each. */
 export async function songViews(user: Me, songs: Song[]): Promise<SongDto[]> {
-  const names = await namesOf(songs.flatMap((s) => [s.ownerId, s.workingSetBy, s.goalSetBy]));
+  const names = await namesOf(
+    songs.flatMap((s) => [s.ownerId, s.workingSetBy, s.goalSetBy]),
+    user,
+  );
   const relations = new Map<string, Awaited<ReturnType<typeof relationTo>>>();
   for (const ownerId of new Set(songs.map((s) => s.ownerId))) relations.set(ownerId, await relationTo(user, ownerId));
   return songs.map((song) => {

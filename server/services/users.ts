@@ -1,6 +1,7 @@
 // Accounts as an admin sees them.
 import { User } from '@/server/models';
 import { HttpError, notFound } from '@/server/http';
+import { forgetSessionsOf } from '@/server/middleware/session';
 import type { Me, Preferences, Role, SongTempos, UserSummary } from '@/shared/schemas';
 
 export const toUserSummary = (u: User): UserSummary => ({
@@ -20,6 +21,7 @@ export async function setRole(userId: string, role: Role): Promise<UserSummary> 
   const user = await User.findByPk(userId);
   if (!user) throw notFound('user');
   await user.update({ role });
+  await forgetSessionsOf(user.id);
   return toUserSummary(user);
 }
 
@@ -34,13 +36,17 @@ export async function setPreferences(me: Me, patch: Partial<Preferences>): Promi
   return getPreferences(me);
 }
 
-/** Names of people by id, in one query (for "set by Marta Quist", "uploaded by …"). */
-export async function namesOf(ids: (string | null | undefined)[]): Promise<Map<string, string>> {
-  const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
-  if (!wanted.length) return new Map();
-  return new Map(
-    (await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
-  );
+/**
+ * Names of people by id, in one query (for "set by Marta Quist", "uploaded by …"). The person asking is
+ * known already: a player's own library, where every name is their own, needs no query at all.
+ */
+export async function namesOf(ids: (string | null | undefined)[], asking?: Me): Promise<Map<string, string>> {
+  const known = new Map(asking ? [[asking.id, asking.name]] : []);
+  const wanted = [...new Set(ids.filter((id): id is string => !!id && !known.has(id)))];
+  if (!wanted.length) return known;
+  for (const u of await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'], raw: true }))
+    known.set(u.id, u.name);
+  return known;
 }
 
 /** { id, name } for a person id, or null. */

@@ -5,9 +5,11 @@ import path from 'node:path';
 import crypto from 'node:crypto';
 import { pipeline } from 'node:stream/promises';
 import type { Readable } from 'node:stream';
-import type { ByteRange, ObjectStore } from './index';
+import type { ByteRange, ObjectStore, StoredObject } from './index';
 
 const SAFE_KEY = /^[a-z0-9][a-z0-9-]{0,99}$/;
+/** A write in progress, or one a crash cut short: listed so that storage:check can clear it. */
+const INCOMING = /^\.incoming-[0-9a-f]{16}$/;
 
 export class DiskStore implements ObjectStore {
   constructor(private readonly dir: string) {
@@ -16,7 +18,7 @@ export class DiskStore implements ObjectStore {
 
   private file(key: string) {
     // Keys are generated ids; anything else would be a bug, and must never reach the file system.
-    if (!SAFE_KEY.test(key)) throw new Error(`invalid storage key ${JSON.stringify(key)}`);
+    if (!SAFE_KEY.test(key) && !INCOMING.test(key)) throw new Error(`invalid storage key ${JSON.stringify(key)}`);
     return path.join(this.dir, key);
   }
 
@@ -54,5 +56,13 @@ export class DiskStore implements ObjectStore {
       () => true,
       () => false,
     );
+  }
+
+  async *list(): AsyncIterable<StoredObject> {
+    for (const entry of await fs.promises.readdir(this.dir, { withFileTypes: true })) {
+      if (!entry.isFile() || !(SAFE_KEY.test(entry.name) || INCOMING.test(entry.name))) continue;
+      const stat = await fs.promises.stat(path.join(this.dir, entry.name)).catch(() => null);
+      if (stat) yield { key: entry.name, sizeBytes: stat.size, modifiedAt: stat.mtime };
+    }
   }
 }

@@ -10,12 +10,21 @@ export interface ByteRange {
   end: number;
 }
 
+/** One stored object as a listing shows it. */
+export interface StoredObject {
+  key: string;
+  sizeBytes: number;
+  modifiedAt: Date;
+}
+
 export interface ObjectStore {
   /** Streams `source` in under `key`; a failure part-way leaves nothing under that key. */
   put(key: string, source: Readable, contentType: string): Promise<void>;
   read(key: string, range?: ByteRange): Promise<Readable>;
   remove(key: string): Promise<void>;
   exists(key: string): Promise<boolean>;
+  /** Every object, including what a write cut short left behind (for storage:check). */
+  list(): AsyncIterable<StoredObject>;
 }
 
 let store: ObjectStore | null = null;

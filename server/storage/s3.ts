@@ -8,9 +8,10 @@ import {
   S3Client,
   CreateBucketCommand,
   HeadBucketCommand,
+  ListObjectsV2Command,
 } from '@aws-sdk/client-s3';
 import { Upload } from '@aws-sdk/lib-storage';
-import type { ByteRange, ObjectStore } from './index';
+import type { ByteRange, ObjectStore, StoredObject } from './index';
 
 export interface S3Settings {
   endpoint: string;
@@ -76,5 +77,18 @@ export class S3Store implements ObjectStore {
     } catch {
       return false;
     }
+  }
+
+  async *list(): AsyncIterable<StoredObject> {
+    await this.ensureBucket();
+    let token: string | undefined;
+    do {
+      const page = await this.client.send(
+        new ListObjectsV2Command({ Bucket: this.s.bucket, ContinuationToken: token }),
+      );
+      for (const o of page.Contents ?? [])
+        if (o.Key) yield { key: o.Key, sizeBytes: o.Size ?? 0, modifiedAt: o.LastModified ?? new Date(0) };
+      token = page.IsTruncated ? page.NextContinuationToken : undefined;
+    } while (token);
   }
 }
