@@ -199,7 +199,11 @@ test('the database cut off mid-run: clear 503s, no crash, and recovery on its ow
   ];
   for (const res of refusals) {
     expect(res.status).toBe(503);
-    expect(res.body.error).toEqual({ code: 'unavailable', message: expect.stringMatching(/database/) });
+    expect(res.body.error).toEqual({
+      code: 'unavailable',
+      message: expect.stringMatching(/database/),
+      requestId: expect.any(String),
+    });
   }
   expect(server.child.exitCode).toBeNull();
   const spool = path.join(work, DB, 'spool');

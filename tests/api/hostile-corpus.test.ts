@@ -383,20 +383,40 @@ async function inBatches<T>(items: T[], width: number, run: (item: T) => Promise
 test('hostile uploads are each refused with a clear 4xx, and nothing is stored', async () => {
   const cases = uploadCases();
   expect(cases.length).toBeGreaterThanOrEqual(100);
-  await inBatches(cases, 4, async (c) => {
-    let req = player.agent.post(`/api/songs/${songId}/recordings`);
-    for (const [k, v] of Object.entries(c.fields ?? { kind: 'take' })) req = req.field(k, v);
-    // filepath: the name is sent as given, folders and all (form-data would otherwise keep only its last part).
-    if (c.file)
-      req = req.attach('file', c.file.bytes, {
-        filepath: c.file.name,
-        contentType: 'application/octet-stream',
-      } as unknown as { filename: string });
-    expectClearRefusal(await req, c.expect, c.what);
-  });
-  const rows = await query<{ n: bigint }>(servers.disk.db, 'SELECT COUNT(*) AS n FROM recordings WHERE songId = ?', [
-    songId,
-  ]);
+  // Uploads are rate-limited per player (60 an hour by default, refused ones included): each player sends at
+  // most 50 of the cases, into a song of their own.
+  const PER_PLAYER = 50;
+  const uploaders: { agent: typeof player.agent; songId: string }[] = [];
+  for (let i = 0; i < Math.ceil(cases.length / PER_PLAYER); i++) {
+    const p = await signedInUser(`hostile-uploads-${i}`);
+    const song = (
+      await p.agent
+        .post('/api/songs')
+        .send({ title: `Pier Street Reel ${i + 1}`, meter: '4/4' })
+        .expect(201)
+    ).body;
+    uploaders.push({ agent: p.agent, songId: song.id });
+  }
+  await inBatches(
+    cases.map((c, i) => ({ c, to: uploaders[Math.floor(i / PER_PLAYER)]! })),
+    4,
+    async ({ c, to }) => {
+      let req = to.agent.post(`/api/songs/${to.songId}/recordings`);
+      for (const [k, v] of Object.entries(c.fields ?? { kind: 'take' })) req = req.field(k, v);
+      // filepath: the name is sent as given, folders and all (form-data would otherwise keep only its last part).
+      if (c.file)
+        req = req.attach('file', c.file.bytes, {
+          filepath: c.file.name,
+          contentType: 'application/octet-stream',
+        } as unknown as { filename: string });
+      expectClearRefusal(await req, c.expect, c.what);
+    },
+  );
+  const rows = await query<{ n: bigint }>(
+    servers.disk.db,
+    `SELECT COUNT(*) AS n FROM recordings WHERE songId IN (${uploaders.map(() => '?').join(', ')})`,
+    uploaders.map((u) => u.songId),
+  );
   expect(Number(rows[0]!.n)).toBe(0);
   // No spool file is left behind. Other test files upload to this server at the same time, so a file in
   // flight may be seen for a moment: wait for the folder to empty rather than read it once.

@@ -85,6 +85,7 @@ afterAll(() => {
           code: 'storage_full',
           message: expect.stringMatching(/storage space/),
           field: 'file',
+          requestId: expect.any(String),
         });
       }
     }

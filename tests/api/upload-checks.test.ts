@@ -80,6 +80,7 @@ test('a FLAC hiding its three hours is decoded only to the limit and refused in 
     code: 'bad_audio',
     message: 'the recording is longer than the limit of 20 minutes',
     field: 'file',
+    requestId: expect.any(String),
   });
   expect(await recordingsOfSong()).toBe(0);
 });
