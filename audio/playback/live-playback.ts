@@ -5,7 +5,14 @@
 // position the timeline gives for that moment, cross-faded from the old one over a few milliseconds. (SoundTouch
 // keeps up to ~16 k frames of already-stretched audio queued, so changing its tempo in place would be heard a
 // third of a second late.) Loops run on a straight timeline over a looped source (audio/practice/passage.ts).
-import { loopedSource, planarSource, Stretcher, type StereoBuffer } from './stretch';
+import {
+  loopedSource,
+  planarSource,
+  Stretcher,
+  type MakeStretcher,
+  type StereoBuffer,
+  type TimeStretcher,
+} from './stretch';
 import { PlaybackMap, type PlaybackSegment } from './click';
 import { loopPass, type Passage } from '@/audio/practice/passage';
 
@@ -28,7 +35,7 @@ export interface BlockEvents {
 }
 
 export class LivePlayback {
-  private stretcher: Stretcher | null = null;
+  private stretcher: TimeStretcher | null = null;
   private map: PlaybackMap | null = null;
   private loop: Passage | null = null;
   private startsAt = 0;
@@ -41,6 +48,8 @@ export class LivePlayback {
   constructor(
     private readonly audio: StereoBuffer,
     readonly sampleRate: number,
+    /** The stretch method (audio/playback/stretch-method.ts); SoundTouch's overlap-add unless told. */
+    private readonly makeStretcher: MakeStretcher = (source, tempo) => new Stretcher(source, tempo, sampleRate),
   ) {}
 
   get active() {
@@ -140,7 +149,7 @@ export class LivePlayback {
     return events;
   }
 
-  private newStretcher(fromSec: number, speed: number): Stretcher {
+  private newStretcher(fromSec: number, speed: number): TimeStretcher {
     const sr = this.sampleRate;
     const source = this.loop
       ? loopedSource(this.audio, {
@@ -148,7 +157,7 @@ export class LivePlayback {
           endFrame: Math.round(this.loop.end * sr),
         })
       : planarSource(this.audio);
-    const s = new Stretcher(source, speed, sr);
+    const s = this.makeStretcher(source, speed);
     s.seek(fromSec * sr);
     return s;
   }
