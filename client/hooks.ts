@@ -300,6 +300,13 @@ export async function changePassage(p: Passage, patch: PassagePatch) {
   return next;
 }
 
+/** A passage's own working and goal tempo (null clears one; a field left out stays as it is). */
+export async function setPassageTempos(p: Passage, tempos: SongTempos) {
+  const next = await apiFetch<Passage>(`/api/passages/${p.id}/tempos`, { method: 'PATCH', body: tempos });
+  await mutate(passagesKey(p.songId));
+  return next;
+}
+
 export async function removePassage(p: Passage) {
   await apiFetch(`/api/passages/${p.id}`, { method: 'DELETE' });
   await mutate(passagesKey(p.songId));
