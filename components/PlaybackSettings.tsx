@@ -16,7 +16,7 @@ const METHODS: { method: StretchMethod; label: string; says: string }[] = [
   {
     method: 'overlap-add',
     label: 'Crisp hits',
-    says: 'Sharper drum hits and lighter on the battery; when slowed right down, notes land slightly early and some hits can drop out at double speed.',
+    says: 'Sharper drum hits and less work for the processor; when slowed right down, notes land slightly early and some hits can drop out at double speed.',
   },
 ];
 
