@@ -103,24 +103,28 @@ export function SavedPassages({
                   .join(' · ')}
               </Small>
             </View>
-            <Chip
-              label={on ? 'Looping' : 'Loop'}
-              selected={on}
-              hint={`Loop ${p.name}`}
-              onPress={() => onLoop(p)}
-              testID={`loop-passage-${p.name}`}
-            />
-            {canSetTempos ? (
+            <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm }}>
               <Chip
-                label="Tempos"
-                selected={editing === p.id}
-                hint={`Set the working and goal tempo of ${p.name}`}
-                onPress={() => setEditing(editing === p.id ? null : p.id)}
-                testID={`passage-tempos-${p.name}`}
-                compact
+                label={on ? 'Looping' : 'Loop'}
+                selected={on}
+                hint={`Loop ${p.name}`}
+                onPress={() => onLoop(p)}
+                testID={`loop-passage-${p.name}`}
               />
-            ) : null}
-            {canEdit ? <Chip label="Delete" hint={`Delete ${p.name}`} onPress={() => void remove(p)} compact /> : null}
+              {canSetTempos ? (
+                <Chip
+                  label="Tempos"
+                  selected={editing === p.id}
+                  hint={`Set the working and goal tempo of ${p.name}`}
+                  onPress={() => setEditing(editing === p.id ? null : p.id)}
+                  testID={`passage-tempos-${p.name}`}
+                  compact
+                />
+              ) : null}
+              {canEdit ? (
+                <Chip label="Delete" hint={`Delete ${p.name}`} onPress={() => void remove(p)} compact />
+              ) : null}
+            </View>
             {editing === p.id ? <PassageTempos passage={p} onDone={() => setEditing(null)} /> : null}
           </View>
         );
@@ -156,7 +160,10 @@ export function SavedPassages({
 function readBpm(text: string, what: string): { bpm: number | null } | { problem: string } {
   if (text.trim() === '') return { bpm: null };
   const parsed = BpmSchema.safeParse(Number(text.trim().replace(',', '.')));
-  return parsed.success ? { bpm: parsed.data } : { problem: `${what}: ${parsed.error.issues[0]!.message}` };
+  if (parsed.success) return { bpm: parsed.data };
+  // "tempo must be at least 30 BPM" reads "Working tempo must be at least 30 BPM"; "enter a number" keeps a colon.
+  const message = parsed.error.issues[0]!.message;
+  return { problem: message.startsWith('tempo ') ? `${what} ${message.slice(6)}` : `${what}: ${message}` };
 }
 
 /** The passage's own working and goal tempo; an empty field clears it. */

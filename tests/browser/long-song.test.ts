@@ -205,7 +205,7 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
   const editor = page.getByTestId('passage-tempo-editor-bridge');
   await editor.getByTestId('passage-working').fill('12');
   await editor.getByTestId('save-passage-tempos').click();
-  await editor.getByText('Working tempo: tempo must be at least 30 BPM').waitFor();
+  await editor.getByText('Working tempo must be at least 30 BPM').waitFor();
   await editor.scrollIntoViewIfNeeded();
   await page.screenshot({ path: path.join(outputDir, 'long-song-phone-passage-tempos.png') });
   expect((await player.agent.get(`/api/songs/${song.id}/passages`).expect(200)).body.passages[0]).toMatchObject({
