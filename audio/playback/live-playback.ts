@@ -114,9 +114,11 @@ export class LivePlayback {
       if (at > this.startsAt + 1 / sr)
         this.stretcher = this.newStretcher(this.map.recordingTime(at), this.stretcher.tempo);
     }
+    const m = n - silent;
     let fadeFrames = 0;
     if (this.pending) {
-      fadeFrames = this.stretcher.extract(this.fade, CROSSFADE);
+      // The cross-fade ends within this block (the next one has no old stretcher to fade from).
+      fadeFrames = this.stretcher.extract(this.fade, Math.min(CROSSFADE, m));
       const { speed, requestedAt } = this.pending;
       this.pending = null;
       const from = this.map.recordingTime(at);
@@ -124,7 +126,6 @@ export class LivePlayback {
       this.map.changeSpeed(at, speed);
       events.segment = { at, from, speed, requestedAt };
     }
-    const m = n - silent;
     if (this.scratch.length < 2 * m) this.scratch = new Float32Array(2 * m);
     const frames = this.scratch;
     const got = this.stretcher.extract(frames, m);

@@ -151,6 +151,26 @@ describe('with the phase vocoder', () => {
     expect(Math.max(...errors)).toBeLessThan(0.01);
   });
 
+  test('a start and a tempo change are heard at full level at once, and the change joins without a click', () => {
+    const x = tone(440, 6);
+    const p = new LivePlayback({ left: x, right: x }, SR, make);
+    p.start({ fromSec: 0.5, speed: 1, startsAt: 0, loop: null });
+    const { left, events } = renderFor(p, 0, 3, (at, i) => {
+      if (i === 400) p.requestSpeed(0.7, at);
+    });
+    expect(events).toHaveLength(1);
+    const peak = (from: number) => left.subarray(from, from + 441).reduce((m, v) => Math.max(m, Math.abs(v)), 0);
+    const change = 400 * Q;
+    // The tone's amplitude is 0.5: within 5 % of it over the first 10 ms, and over the 10 ms after the change.
+    expect(peak(0)).toBeGreaterThan(0.475);
+    expect(peak(change)).toBeGreaterThan(0.475);
+    expect(peak(change + 441)).toBeGreaterThan(0.475);
+    const ownStep = 0.5 * ((2 * Math.PI * 440) / SR);
+    let jump = 0;
+    for (let i = 1; i < change + 4096; i++) jump = Math.max(jump, Math.abs(left[i]! - left[i - 1]!));
+    expect(jump).toBeLessThan(ownStep * 1.2);
+  });
+
   test('a loop comes round with each pass reported once, and keeps the pitch', () => {
     const x = tone(220, 5);
     const p = new LivePlayback({ left: x, right: x }, SR, make);
