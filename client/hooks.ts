@@ -363,7 +363,7 @@ export async function changePassage(p: Passage, patch: PassagePatch) {
   return next;
 }
 
-/** Working and goal tempo of a passage. */
+/** A passage's own working and goal tempo (null clears one; a field left out stays as it is). */
 export async function setPassageTempos(p: Pick<Passage, 'id' | 'songId'>, tempos: SongTempos) {
   const next = await apiFetch<Passage>(`/api/passages/${p.id}/tempos`, { method: 'PATCH', body: tempos });
   await mutate(passagesKey(p.songId));

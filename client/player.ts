@@ -14,7 +14,10 @@ import type { StartOptions } from '@/audio/playback/live-playback';
 import { PlaybackHost, type FromEngine, type RenderStats, type ToEngine } from '@/audio/playback/playback-host';
 import { wrapIntoLoop, type Passage } from '@/audio/practice/passage';
 import { encodeWav, renderAtTempo } from '@/audio/playback/export';
-import { heardOffsetSec, type StereoBuffer } from '@/audio/playback/stretch';
+import { stretchOffline, type StereoBuffer } from '@/audio/playback/stretch';
+import { DEFAULT_STRETCH_METHOD, heardOffsetFor } from '@/audio/playback/stretch-method';
+import { SignalsmithEngine, stretchOfflineSignalsmith } from '@/audio/playback/signalsmith';
+import type { StretchMethod } from '@/shared/schemas';
 import { DEFAULT_CLICK_GAIN } from './click-sound';
 import { addWorkletModule, audioContext, resumeAudio } from './audio-context';
 import { ClickScheduler } from './click-scheduler';
@@ -37,6 +40,8 @@ export interface PlayerGrid {
 /** Figures the benchmark reads: how late tempo changes are heard, and how busy the audio rendering is. */
 export interface PlayerStats extends RenderStats {
   engine: 'audio-worklet' | 'script-processor';
+  /** The stretch method in use (overlap-add where the phase vocoder could not start). */
+  stretchMethod: StretchMethod;
   /** Seconds from each tempo change to the first block rendered at the new tempo (audio clock). */
   changeLatencies: number[];
 }
@@ -78,6 +83,7 @@ export class AuditionPlayer {
   onEnded: (() => void) | null = null;
   readonly stats: PlayerStats = {
     engine: 'audio-worklet',
+    stretchMethod: DEFAULT_STRETCH_METHOD,
     changeLatencies: [],
     busyMs: 0,
     audioMs: 0,
@@ -85,9 +91,14 @@ export class AuditionPlayer {
     maxBlockMs: 0,
   };
 
+  /** Resolves the load once the engine says its stretcher is built. */
+  private onReady: (() => void) | null = null;
+
   constructor(
     private readonly url: string,
     private readonly grid: PlayerGrid,
+    /** The stretch method asked for (the person's preference). */
+    private readonly method: StretchMethod = DEFAULT_STRETCH_METHOD,
   ) {}
 
   get durationSec() {
@@ -115,8 +126,10 @@ export class AuditionPlayer {
       (from, until) => this.beatClicks(from, until),
       (now) => this.checkEnd(now),
     );
+    const ready = new Promise<void>((resolve) => (this.onReady = resolve));
     this.engine = (await this.workletEngine(ctx, audio)) ?? this.scriptProcessorEngine(ctx, audio);
     this.engine.node.connect(this.musicGain);
+    await ready;
     // Thrown away while it loaded (the screen was left): what was just made leaves the page's context too.
     if (this.disposed) this.dispose();
   }
@@ -189,7 +202,7 @@ export class AuditionPlayer {
       const beats = countIn(startsAt + toFirstBeat, perBar, playbackBpm);
       this.countInTimes = beats.map((c) => c.time);
       this.countInEnd = startsAt + toFirstBeat;
-      for (const c of beats) this.clicks.add(c.time + heardOffsetSec(this.speed), c.accent);
+      for (const c of beats) this.clicks.add(c.time + this.heardOffset(this.speed), c.accent);
     } else this.countInTimes = [];
     const options: StartOptions = { fromSec: this.startFrom, speed: this.speed, startsAt, loop: this.loop };
     this.musicStartsAt = startsAt;
@@ -223,7 +236,17 @@ export class AuditionPlayer {
   async renderWav(bpm: number, passage: Passage | null): Promise<Uint8Array> {
     if (!this.ctx || !this.decoded) throw new Error('the audio is not loaded yet');
     const audio = this.audio ?? (await this.decode(this.ctx));
-    return encodeWav(renderAtTempo(audio, this.sampleRate, this.speedFor(bpm), passage), this.sampleRate);
+    const sr = this.sampleRate;
+    // The file sounds as the player did: the same stretch method.
+    const engine = this.stats.stretchMethod === 'phase-vocoder' ? await SignalsmithEngine.create(sr) : null;
+    const stretch = (part: StereoBuffer, tempo: number) =>
+      engine ? stretchOfflineSignalsmith(engine, part, tempo) : stretchOffline(part, tempo, sr);
+    return encodeWav(renderAtTempo(audio, sr, this.speedFor(bpm), passage, stretch), sr);
+  }
+
+  /** Where the music's attacks are heard against the timeline at `speed`, for the method in use. */
+  private heardOffset(speed: number) {
+    return heardOffsetFor(this.stats.stretchMethod, speed);
   }
 
   /** × the recording's own tempo for `bpm`, within the player's range. */
@@ -259,6 +282,11 @@ export class AuditionPlayer {
 
   /** What the audio thread reports. */
   private receive(m: FromEngine) {
+    if (m.type === 'ready') {
+      this.stats.stretchMethod = m.method;
+      this.onReady?.();
+      return;
+    }
     if (m.type !== 'stats' && (m.run !== this.run || !this.playing)) return;
     if (m.type === 'segment') {
       if (!this.map) return;
@@ -292,7 +320,7 @@ export class AuditionPlayer {
     const left = audio.left.slice();
     const right = audio.right === audio.left ? null : audio.right.slice();
     node.port.postMessage(
-      { type: 'load', left, right } satisfies ToEngine,
+      { type: 'load', left, right, method: this.method } satisfies ToEngine,
       right ? [left.buffer, right.buffer] : [left.buffer],
     );
     this.stats.engine = 'audio-worklet';
@@ -307,7 +335,12 @@ export class AuditionPlayer {
       (m) => setTimeout(() => this.receive(m), 0),
       () => performance.now(),
     );
-    host.receive({ type: 'load', left: audio.left, right: audio.right === audio.left ? null : audio.right });
+    host.receive({
+      type: 'load',
+      left: audio.left,
+      right: audio.right === audio.left ? null : audio.right,
+      method: this.method,
+    });
     const node = ctx.createScriptProcessor(FALLBACK_BLOCK, 0, 2);
     let nextBlockAt = 0;
     node.onaudioprocess = (e) => {
@@ -329,7 +362,7 @@ export class AuditionPlayer {
     // The stretched attacks come a little early or late (audio/playback/stretch.ts): the click follows the music.
     const grid = this.clickGrid ?? this.grid;
     return clicksBetween(map, grid.beats, grid.downbeats, from, until, this.loop).map((c) => ({
-      time: Math.max(now, c.time + heardOffsetSec(map.speedAt(c.time))),
+      time: Math.max(now, c.time + this.heardOffset(map.speedAt(c.time))),
       accent: c.accent,
     }));
   }

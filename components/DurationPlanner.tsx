@@ -6,7 +6,7 @@ import { View } from 'react-native';
 import { Body, Card, Chip, Field, Heading, Row, Small } from './ui';
 import { space } from './theme';
 import { barsIn, beatName, beatsInBar, bpmToFit, secondsFor, type BeatUnit } from '@/audio/practice/duration';
-import { formatBpm, formatClock, parseClock, tenth } from '@/shared/format';
+import { barsFit, formatBpm, formatClock, parseClock, plural, tenth } from '@/shared/format';
 import type { Recording, Song } from '@/shared/schemas';
 
 export function DurationPlanner({
@@ -44,7 +44,7 @@ export function DurationPlanner({
       <Heading level={3}>How long it lasts</Heading>
       <Small>
         {beats
-          ? `${Math.round(beats)} ${beatName(song.meter, unit)}s${bars.trim() ? ` (${barCount} bars of ${song.meter})` : measured ? ' measured in the recording' : ''}.`
+          ? `${plural(Math.round(beats), beatName(song.meter, unit))}${bars.trim() ? ` (${plural(barCount, 'bar')} of ${song.meter})` : measured ? ' measured in the recording' : ''}.`
           : 'Give the number of bars, or add a recording: its beats are counted.'}
       </Small>
       {compound ? (
@@ -90,7 +90,7 @@ export function DurationPlanner({
               <Body style={{ fontWeight: '700' }}>
                 To last {formatClock(targetSec)}: {formatBpm(tenth(bpmToFit(beats, targetSec)))} BPM
                 {song.chosenBpm
-                  ? ` (${formatBpm(tenth(barsIn(targetSec, inUnit(song.chosenBpm), perBar)))} bars fit at the chosen tempo)`
+                  ? ` (${barsFit(tenth(barsIn(targetSec, inUnit(song.chosenBpm), perBar)))} at the chosen tempo)`
                   : ''}
               </Body>
             </View>

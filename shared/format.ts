@@ -24,6 +24,9 @@ export function formatClock(sec: number): string {
 /** A count with its noun: "1 repetition", "3 repetitions" (`many` for nouns whose plural is not noun + s). */
 export const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
+/** Bars that fit a time, to a tenth, with the verb agreeing: "1 bar fits", "2.5 bars fit". */
+export const barsFit = (n: number) => (n === 1 ? '1 bar fits' : `${Number.isInteger(n) ? n : n.toFixed(1)} bars fit`);
+
 /** A date in the reader's locale and time zone ("2 Dec 2026", "Dec 2, 2026"): Intl chooses the order and words. */
 export const formatDate = (iso: string | Date, locale?: string) =>
   new Intl.DateTimeFormat(locale, { dateStyle: 'medium' }).format(typeof iso === 'string' ? new Date(iso) : iso);

@@ -525,7 +525,17 @@ export const TempoMarkSchema = z.object({
 export type TempoMark = z.infer<typeof TempoMarkSchema>;
 export const TempoMarkListSchema = z.object({ marks: z.array(TempoMarkSchema) });
 
-export const PreferencesSchema = z.object({ noteDigests: z.boolean() }).strict();
+
+/**
+ * How the player stretches time (README, "Playback and stretch"): the phase vocoder keeps attacks on time and low
+ * notes in tune at every speed; overlap-add keeps drum hits crisper and uses less of the processor.
+ */
+export const StretchMethodSchema = z.enum(['phase-vocoder', 'overlap-add'], {
+  message: 'choose phase-vocoder or overlap-add',
+});
+export type StretchMethod = z.infer<typeof StretchMethodSchema>;
+
+export const PreferencesSchema = z.object({ noteDigests: z.boolean(), stretchMethod: StretchMethodSchema }).strict();
 export type Preferences = z.infer<typeof PreferencesSchema>;
 
 // ── Set lists ───────────────────────────────────────────────────────────────────────────────────────

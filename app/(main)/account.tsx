@@ -1,4 +1,4 @@
-// Account: who is signed in, sign-out, and the admin's user list.
+// Account: who is signed in, sign-out, teachers, how slowed-down playback sounds, e-mail, and the admin's user list.
 import React from 'react';
 import { useRouter } from 'expo-router';
 import { View } from 'react-native';
@@ -6,6 +6,7 @@ import { Body, Button, Card, Heading, Screen, Small } from '@/components/ui';
 import { RoleEditor } from '@/components/RoleEditor';
 import { TeachersCard } from '@/components/TeachersCard';
 import { MailSettings } from '@/components/MailSettings';
+import { PlaybackSettings } from '@/components/PlaybackSettings';
 import { space } from '@/components/theme';
 import { signOut } from '@/client/auth';
 import { clearCache, useMe } from '@/client/hooks';
@@ -38,6 +39,7 @@ export default function Account() {
         </View>
       </Card>
       <TeachersCard />
+      <PlaybackSettings />
       <MailSettings />
       {me.role === 'admin' ? <RoleEditor selfId={me.id} /> : null}
     </Screen>

@@ -11,15 +11,13 @@ export function renderAtTempo(
   sampleRate: number,
   tempo: number,
   passage: Passage | null = null,
+  /** The stretch method's offline render (the player passes the phase vocoder's when it plays with it). */
+  stretch: (audio: StereoBuffer, tempo: number) => StereoBuffer = (part, t) => stretchOffline(part, t, sampleRate),
 ): StereoBuffer {
   const from = passage ? Math.max(0, Math.round(passage.start * sampleRate)) : 0;
   const to = passage ? Math.min(audio.left.length, Math.round(passage.end * sampleRate)) : audio.left.length;
   if (!(to > from)) throw new RangeError('the passage is empty');
-  return stretchOffline(
-    { left: audio.left.subarray(from, to), right: audio.right.subarray(from, to) },
-    tempo,
-    sampleRate,
-  );
+  return stretch({ left: audio.left.subarray(from, to), right: audio.right.subarray(from, to) }, tempo);
 }
 
 /** Float samples (−1…1) to 16-bit integers; out-of-range values are clipped rather than wrapped. */

@@ -5,7 +5,14 @@
 // position the timeline gives for that moment, cross-faded from the old one over a few milliseconds. (SoundTouch
 // keeps up to ~16 k frames of already-stretched audio queued, so changing its tempo in place would be heard a
 // third of a second late.) Loops run on a straight timeline over a looped source (audio/practice/passage.ts).
-import { loopedSource, planarSource, Stretcher, type StereoBuffer } from './stretch';
+import {
+  loopedSource,
+  planarSource,
+  Stretcher,
+  type MakeStretcher,
+  type StereoBuffer,
+  type TimeStretcher,
+} from './stretch';
 import { PlaybackMap, type PlaybackSegment } from './click';
 import { loopPass, type Passage } from '@/audio/practice/passage';
 
@@ -28,7 +35,7 @@ export interface BlockEvents {
 }
 
 export class LivePlayback {
-  private stretcher: Stretcher | null = null;
+  private stretcher: TimeStretcher | null = null;
   private map: PlaybackMap | null = null;
   private loop: Passage | null = null;
   private startsAt = 0;
@@ -41,6 +48,8 @@ export class LivePlayback {
   constructor(
     private readonly audio: StereoBuffer,
     readonly sampleRate: number,
+    /** The stretch method (audio/playback/stretch-method.ts); SoundTouch's overlap-add unless told. */
+    private readonly makeStretcher: MakeStretcher = (source, tempo) => new Stretcher(source, tempo, sampleRate),
   ) {}
 
   get active() {
@@ -105,9 +114,11 @@ export class LivePlayback {
       if (at > this.startsAt + 1 / sr)
         this.stretcher = this.newStretcher(this.map.recordingTime(at), this.stretcher.tempo);
     }
+    const m = n - silent;
     let fadeFrames = 0;
     if (this.pending) {
-      fadeFrames = this.stretcher.extract(this.fade, CROSSFADE);
+      // The cross-fade ends within this block (the next one has no old stretcher to fade from).
+      fadeFrames = this.stretcher.extract(this.fade, Math.min(CROSSFADE, m));
       const { speed, requestedAt } = this.pending;
       this.pending = null;
       const from = this.map.recordingTime(at);
@@ -115,7 +126,6 @@ export class LivePlayback {
       this.map.changeSpeed(at, speed);
       events.segment = { at, from, speed, requestedAt };
     }
-    const m = n - silent;
     if (this.scratch.length < 2 * m) this.scratch = new Float32Array(2 * m);
     const frames = this.scratch;
     const got = this.stretcher.extract(frames, m);
@@ -140,7 +150,7 @@ export class LivePlayback {
     return events;
   }
 
-  private newStretcher(fromSec: number, speed: number): Stretcher {
+  private newStretcher(fromSec: number, speed: number): TimeStretcher {
     const sr = this.sampleRate;
     const source = this.loop
       ? loopedSource(this.audio, {
@@ -148,7 +158,7 @@ export class LivePlayback {
           endFrame: Math.round(this.loop.end * sr),
         })
       : planarSource(this.audio);
-    const s = new Stretcher(source, speed, sr);
+    const s = this.makeStretcher(source, speed);
     s.seek(fromSec * sr);
     return s;
   }

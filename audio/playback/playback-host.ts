@@ -2,14 +2,17 @@
 // LivePlayback block by block, and reports back. The AudioWorklet (audio/playback/worklet/stretch-processor.ts) and the
 // ScriptProcessor fallback (client/player.ts) both run this one class.
 //
-// Messages in: load (right is null for a mono recording), start, speed, stop, reset-stats, unload. Messages out:
-// segment (a tempo change took effect), pass (the loop came round), stats (time spent rendering ÷ audio time
-// rendered, every 64 blocks). Each start is a numbered run, and what the engine reports carries the run's
+// Messages in: load (right is null for a mono recording; the stretch method asked for), start, speed, stop,
+// reset-stats, unload. Messages out: ready (the stretcher is built: the method in use, overlap-add where the
+// phase vocoder could not start), segment (a tempo change took effect), pass (the loop came round), stats (time
+// spent rendering ÷ audio time rendered, every 64 blocks). Each start is a numbered run, and what the engine reports carries the run's
 // number, so a report that crosses a restart in flight is recognised as stale.
 import { LivePlayback, type StartOptions } from './live-playback';
+import { stretcherMaker } from './stretch-method';
+import type { StretchMethod } from '@/shared/schemas';
 
 export type ToEngine =
-  | { type: 'load'; left: Float32Array; right: Float32Array | null }
+  | { type: 'load'; left: Float32Array; right: Float32Array | null; method: StretchMethod }
   | { type: 'start'; options: StartOptions; run: number }
   | { type: 'speed'; speed: number; requestedAt: number }
   | { type: 'stop' }
@@ -25,6 +28,7 @@ export interface RenderStats {
 }
 
 export type FromEngine =
+  | { type: 'ready'; method: StretchMethod }
   | { type: 'segment'; run: number; at: number; from: number; speed: number; requestedAt: number }
   | { type: 'pass'; run: number; pass: number }
   | ({ type: 'stats' } & RenderStats);
@@ -35,6 +39,8 @@ const noStats = (): RenderStats => ({ busyMs: 0, audioMs: 0, blocks: 0, maxBlock
 export class PlaybackHost {
   private playback: LivePlayback | null = null;
   private run = 0;
+  /** Numbers each load, so a stretcher that finishes building after a newer load (or unload) is dropped. */
+  private loads = 0;
   private stats = noStats();
   /** Set by unload: nothing will be played again, and the worklet's processor may end. */
   unloaded = false;
@@ -47,19 +53,31 @@ export class PlaybackHost {
   ) {}
 
   receive(m: ToEngine) {
-    if (m.type === 'load') {
-      this.playback = new LivePlayback({ left: m.left, right: m.right ?? m.left }, this.sampleRate);
-      this.playback.warmUp();
-    } else if (m.type === 'start') {
+    if (m.type === 'load') void this.load(m);
+    else if (m.type === 'start') {
       this.run = m.run;
       this.playback?.start(m.options);
     } else if (m.type === 'speed') this.playback?.requestSpeed(m.speed, m.requestedAt);
     else if (m.type === 'stop') this.playback?.stop();
     else if (m.type === 'reset-stats') this.stats = noStats();
     else if (m.type === 'unload') {
+      this.loads += 1;
       this.playback = null;
       this.unloaded = true;
     }
+  }
+
+  private async load(m: Extract<ToEngine, { type: 'load' }>) {
+    const load = ++this.loads;
+    let method = m.method;
+    const make = await stretcherMaker(method, this.sampleRate).catch(() => {
+      method = 'overlap-add';
+      return stretcherMaker(method, this.sampleRate);
+    });
+    if (load !== this.loads) return;
+    this.playback = new LivePlayback({ left: m.left, right: m.right ?? m.left }, this.sampleRate, make);
+    this.playback.warmUp();
+    this.post({ type: 'ready', method });
   }
 
   /** Fills one block heard from context time `blockAt` (silence when stopped). */

@@ -25,6 +25,18 @@ export function heardOffsetSec(speed: number): number {
   return (34.7 * (1 - 1 / speed) - 12.3) / 1000;
 }
 
+/** What the audio thread asks of a stretcher, whichever method it uses (this file's, or signalsmith.ts's). */
+export interface TimeStretcher {
+  readonly tempo: number;
+  /** Interleaved stereo frames into target; returns how many were written. */
+  extract(target: Float32Array, frames: number): number;
+  /** Jump to a frame of the original (seeking). */
+  seek(sourceFrame: number): void;
+}
+
+/** Makes a stretcher over `source` at `tempo`: LivePlayback makes one per start and per tempo change. */
+export type MakeStretcher = (source: FrameSource & { frames: number }, tempo: number) => TimeStretcher;
+
 /** Frames of silence after the end, enough to flush SoundTouch's internal buffers. */
 const FLUSH_FRAMES = 32_768;
 const BLOCK = 4096;
@@ -101,7 +113,7 @@ class SteadyFilter extends SimpleFilter {
  * A running stretcher at one tempo: a tempo change starts a new one at the same musical position
  * (audio/playback/live-playback.ts), which is heard at once where changing SoundTouch's tempo in place is not.
  */
-export class Stretcher {
+export class Stretcher implements TimeStretcher {
   private readonly pipe = new SoundTouch();
   private readonly filter: SimpleFilter;
 

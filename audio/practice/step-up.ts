@@ -1,6 +1,6 @@
 // Step-up practice on a looped passage: start slow, play the passage a set number of clean times at each
 // tempo, then raise the tempo by a step, until the goal is reached. Pure state; the player feeds it passes.
-import { tenth } from '@/shared/format';
+import { plural, tenth } from '@/shared/format';
 
 export interface StepUpPlan {
   startBpm: number;
@@ -34,7 +34,7 @@ export function validatePlan(p: StepUpPlan): string | null {
     return 'repetitions per step must be a whole number, at least 1';
   if (p.repsPerStep > 100) return 'at most 100 repetitions per step';
   if ((p.goalBpm - p.startBpm) / p.stepBpm > MAX_STEPS)
-    return `that is more than ${MAX_STEPS} steps: take a larger step`;
+    return `that is more than ${plural(MAX_STEPS, 'step')}: take a larger step`;
   return null;
 }
 

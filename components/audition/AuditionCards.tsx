@@ -131,6 +131,7 @@ export function PassagesCard({
           downbeats={s.felt.downbeats}
           goalBpm={song.goalBpm ?? null}
           canEdit={canEdit}
+          canSetTempos={song.permissions.setTempos}
           onLoop={(p) => stepUp.changePassage({ start: p.startSec, end: p.endSec })}
         />
       ) : null}

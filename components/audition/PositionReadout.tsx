@@ -1,4 +1,5 @@
-// Where playback is: bar (or the pickup), beat in the bar, and the time against the recording's length.
+// Where playback is: bar (or the pickup's beats, or before the music's first beat), beat in the bar, and the time
+// against the recording's length.
 import React from 'react';
 import { Text } from 'react-native';
 import { colors, type } from '@/components/theme';
@@ -25,7 +26,7 @@ export function PositionReadout({
   const beat = beatInBar(t, beats, downbeats);
   return (
     <Text style={[type.label, { color: colors.ink }]}>
-      {bar === 0 ? 'Pickup' : 'Bar '}
+      {bar === 0 ? (beats.length > 0 && t >= beats[0]! - 0.02 ? 'Pickup' : 'Before bar 1') : 'Bar '}
       <Text testID="playback-bar">{bar === 0 ? '' : bar}</Text>
       {beat > 0 ? <Text style={{ color: colors.muted }}>{` · beat ${beat}`}</Text> : null}
       <Text style={{ color: colors.muted }}>

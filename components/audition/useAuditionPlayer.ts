@@ -7,6 +7,7 @@ import { AuditionPlayer, MAX_SPEED, MIN_SPEED, type PlayerGrid } from '@/client/
 import { DEFAULT_CLICK_GAIN } from '@/client/click-sound';
 import { skipBar, type Grid, type Passage } from '@/audio/practice/passage';
 import { tenth } from '@/shared/format';
+import { usePreferences } from '@/client/hooks';
 
 export type AuditionPlayerState = ReturnType<typeof useAuditionPlayer>;
 
@@ -24,16 +25,17 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   const [clickOn, setClickOnState] = useState(true);
   const [clickLevel, setClickLevelState] = useState(DEFAULT_CLICK_GAIN);
   const [musicLevel, setMusicLevelState] = useState(1);
+  // The stretch method is the person's preference (Account); the player waits for it rather than load twice.
+  const stretchMethod = usePreferences().preferences?.stretchMethod;
 
   // Web Audio exists only in the browser, and only after the first render (static rendering has no window).
   useEffect(() => {
-    if (Platform.OS !== 'web') return;
-    const p = new AuditionPlayer(audioUrl, {
-      beats: grid.beats,
-      downbeats: grid.downbeats,
-      originalBpm,
-      meter: grid.meter,
-    });
+    if (Platform.OS !== 'web' || !stretchMethod) return;
+    const p = new AuditionPlayer(
+      audioUrl,
+      { beats: grid.beats, downbeats: grid.downbeats, originalBpm, meter: grid.meter },
+      stretchMethod,
+    );
     player.current = p;
     p.load().then(
       () => setReady(true),
@@ -43,10 +45,14 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
     p.onLoopPass = () => onLoopPassRef.current?.();
     // The player benchmark (fixtures/bench-player.ts) reads the player's figures from here.
     (window as unknown as { tactusAudition?: AuditionPlayer }).tactusAudition = p;
-    return () => p.dispose();
+    return () => {
+      p.dispose();
+      // A new player (another stretch method, say) is not ready until it has loaded.
+      setReady(false);
+    };
     // The grid is read when the player is made; a correction reloads it with the new tempo.
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [audioUrl, originalBpm]);
+  }, [audioUrl, originalBpm, stretchMethod]);
 
   const getPosition = useCallback(() => player.current?.position() ?? 0, []);
   const getCountInBeat = useCallback(() => player.current?.countInBeat() ?? null, []);

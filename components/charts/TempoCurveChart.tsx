@@ -5,7 +5,7 @@ import { View } from 'react-native';
 import type { Analysis } from '@/shared/analysis';
 import type { Song } from '@/shared/schemas';
 import { smoothTempo, tempoByBar, type BarTempo } from '@/audio/practice/tempo-by-bar';
-import { formatBpm } from '@/shared/format';
+import { formatBpm, plural } from '@/shared/format';
 import { Small } from '@/components/ui';
 import { colors, space } from '@/components/theme';
 import { LineChart, type ReferenceLine, type Series, type XRange } from './LineChart';
@@ -55,7 +55,7 @@ export function tempoCaption(bars: BarTempo[]): string {
   const round = (bpm: number) => formatBpm(Math.round(bpm));
   if (bars.length === 1) return `Tempo by bar: one bar, at ${round(bars[0]!.bpm)}`;
   const smooth = smoothTempo(bars, CAPTION_WINDOW_BARS);
-  return `Tempo by bar: starts at ${round(smooth[0]!.bpm)}, ends at ${round(smooth[smooth.length - 1]!.bpm)} (${bars.length} bars)`;
+  return `Tempo by bar: starts at ${round(smooth[0]!.bpm)}, ends at ${round(smooth[smooth.length - 1]!.bpm)} (${plural(bars.length, 'bar')})`;
 }
 
 /**

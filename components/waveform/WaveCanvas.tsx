@@ -6,6 +6,7 @@ import { Text, View } from 'react-native';
 import Svg, { Path } from 'react-native-svg';
 import { colors, fonts } from '@/components/theme';
 import { columnsOf, gridMarks, LABEL_OFFSET_PX, type PeakLevel } from './view';
+import { plural } from '@/shared/format';
 
 /** Height of the strip above the waveform that carries the bar numbers. */
 export const LABEL_STRIP = 14;
@@ -53,7 +54,7 @@ export const WaveCanvas = memo(function WaveCanvas({
     <View
       testID={testID}
       style={{ width, height: height + top }}
-      accessibilityLabel={`Waveform, bars numbered every ${marks.labelEvery === 1 ? 'bar' : `${marks.labelEvery} bars`}`}
+      accessibilityLabel={`Waveform, bars numbered every ${marks.labelEvery === 1 ? 'bar' : plural(marks.labelEvery, 'bar')}`}
     >
       <View style={{ position: 'absolute', top, left: 0 }}>
         <Svg width={width} height={height}>

@@ -9,6 +9,7 @@ import { parseFile } from 'music-metadata';
 import { decodedSeconds, NotAudioError } from './decode';
 import { HttpError } from '@/server/http';
 import type { AudioFormat } from '@/server/models/Recording';
+import { plural } from '@/shared/format';
 
 export interface CheckedAudio {
   format: AudioFormat;
@@ -74,7 +75,7 @@ export async function checkAudio(file: string, maxDurationSec: number): Promise<
   }
   if (declared > maxDurationSec) {
     throw refuse(
-      `the recording is ${Math.round(declared / 60)} minutes long; the limit is ${Math.round(maxDurationSec / 60)} minutes`,
+      `the recording is ${plural(Math.round(declared / 60), 'minute')} long; the limit is ${plural(Math.round(maxDurationSec / 60), 'minute')}`,
       413,
     );
   }

@@ -8,6 +8,7 @@ import { config } from '@/server/config';
 import { HttpError, notFound } from '@/server/http';
 import { linkMail, sendMail } from '@/server/mail/mailer';
 import type { Invitation, Me, ReceivedInvitation, Student, Teacher } from '@/shared/schemas';
+import { plural } from '@/shared/format';
 
 /** How long an invitation link works (the teachers issue: 7 days). */
 export const INVITATION_DAYS = 7;
@@ -59,7 +60,7 @@ export async function inviteStudent(teacher: Me, email: string): Promise<Invitat
     email,
     `${teacher.name} invites you to be their student on Tactus`,
     'Hello,',
-    `${teacher.name} (${teacher.email}) would like to teach you on Tactus: they would see your songs, takes and practice log, leave notes on your takes and set working and goal tempos for you. Nothing is shared unless you accept, and you can end it at any time. The link works for ${INVITATION_DAYS} days and only once.`,
+    `${teacher.name} (${teacher.email}) would like to teach you on Tactus: they would see your songs, takes and practice log, leave notes on your takes and set working and goal tempos for you. Nothing is shared unless you accept, and you can end it at any time. The link works for ${plural(INVITATION_DAYS, 'day')} and only once.`,
     'See the invitation',
     url,
   );

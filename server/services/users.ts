@@ -25,10 +25,10 @@ export async function setRole(userId: string, role: Role): Promise<UserSummary> 
   return toUserSummary(user);
 }
 
-/** A person's own settings: for now, whether new notes on their recordings reach them by e-mail. */
+/** A person's own settings: whether new notes on their recordings reach them by e-mail; how the player stretches. */
 export async function getPreferences(me: Me): Promise<Preferences> {
-  const user = await User.findByPk(me.id, { attributes: ['noteDigests'] });
-  return { noteDigests: user?.noteDigests ?? true };
+  const user = await User.findByPk(me.id, { attributes: ['noteDigests', 'stretchMethod'] });
+  return { noteDigests: user?.noteDigests ?? true, stretchMethod: user?.stretchMethod ?? 'phase-vocoder' };
 }
 
 export async function setPreferences(me: Me, patch: Partial<Preferences>): Promise<Preferences> {

@@ -151,5 +151,6 @@ test('the student gets one digest mail for three new notes, with a link to the r
   expect(await digests()).toHaveLength(1);
   expect((await pupil.agent.patch('/api/me/preferences').send({ noteDigests: false }).expect(200)).body).toEqual({
     noteDigests: false,
+    stretchMethod: 'phase-vocoder',
   });
 });

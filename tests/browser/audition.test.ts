@@ -326,3 +326,54 @@ test('click-only mode: the plain metronome in 3/4 at a chosen tempo', async () =
   expect(errors).toEqual([]);
   await context.close();
 });
+
+test('the slowed-down sound chosen in Account is the one the player uses: the phase vocoder unless "Crisp hits"', async () => {
+  const { player, rec } = await songWithClip('audition-stretch', 'Lantern Slip Jig');
+  const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await signInThroughApp(page, player.email, PASSWORD);
+  const methodInUse = async () => {
+    await page.goto(`${baseUrl}/recordings/${rec.id}`);
+    // Play is offered once the engine has built its stretcher and said which.
+    await page
+      .getByTestId('play')
+      .filter({ hasText: /^Play$/ })
+      .waitFor();
+    await page.waitForFunction(() => {
+      const play = document.querySelector('[data-testid="play"]');
+      return play !== null && play.getAttribute('aria-disabled') !== 'true';
+    });
+    return page.evaluate(
+      () =>
+        (window as unknown as { tactusAudition: { stats: { stretchMethod: string } } }).tactusAudition.stats
+          .stretchMethod,
+    );
+  };
+  expect(await methodInUse()).toBe('phase-vocoder');
+
+  await page.goto(`${baseUrl}/account`);
+  await page.getByTestId('playback-settings').waitFor();
+  await page.screenshot({ path: path.join(outputDir, 'account-phone-stretch.png'), fullPage: true });
+  await page.getByTestId('stretch-overlap-add').click();
+  await page
+    .getByTestId('stretch-says')
+    .getByText(/Sharper drum hits/)
+    .waitFor();
+  expect((await player.agent.get('/api/me/preferences').expect(200)).body.stretchMethod).toBe('overlap-add');
+  await page.setViewportSize({ width: 1280, height: 800 });
+  await page.screenshot({ path: path.join(outputDir, 'account-desktop-stretch.png'), fullPage: true });
+  await page.setViewportSize({ width: 390, height: 844 });
+
+  expect(await methodInUse()).toBe('overlap-add');
+  await page.getByTestId('play').click();
+  await page.waitForFunction(
+    () => /^0:0[1-9]/.test(document.querySelector('[data-testid="playback-position"]')?.textContent ?? ''),
+    undefined,
+    { timeout: 15_000 },
+  );
+  await page.getByTestId('play').click();
+  expect(errors).toEqual([]);
+  await context.close();
+});

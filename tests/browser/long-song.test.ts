@@ -200,6 +200,31 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
     .getByText(/working 110/)
     .waitFor();
 
+  // The passage's own tempos, set and cleared in its row: a tempo out of range is refused in plain words and
+  // nothing is saved; an empty field clears that tempo.
+  await page.getByTestId('passage-tempos-bridge').click();
+  const editor = page.getByTestId('passage-tempo-editor-bridge');
+  await editor.getByTestId('passage-working').fill('12');
+  await editor.getByTestId('save-passage-tempos').click();
+  await editor.getByText('Working tempo must be at least 30 BPM').waitFor();
+  await editor.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: path.join(outputDir, 'long-song-phone-passage-tempos.png') });
+  expect((await player.agent.get(`/api/songs/${song.id}/passages`).expect(200)).body.passages[0]).toMatchObject({
+    workingBpm: 110,
+    goalBpm: 120,
+  });
+  await editor.getByTestId('passage-working').fill('104,5');
+  await editor.getByTestId('passage-goal').fill('');
+  await editor.getByTestId('save-passage-tempos').click();
+  await editor.waitFor({ state: 'detached' });
+  await page
+    .getByTestId('passage-bridge')
+    .getByText(/working 104\.5/)
+    .waitFor();
+  const afterEdit = (await player.agent.get(`/api/songs/${song.id}/passages`).expect(200)).body.passages[0];
+  expect(afterEdit).toMatchObject({ workingBpm: 104.5, goalBpm: null });
+  expect(await page.getByTestId('passage-bridge').textContent()).not.toContain('goal');
+
   // Scrolled down to the candidates, the compact transport is still on screen and plays.
   await page.getByTestId('candidates').scrollIntoViewIfNeeded();
   const bar = (await page.getByTestId('compact-transport').boundingBox())!;

@@ -11,6 +11,7 @@ import {
   formatDateTime,
   formatDuration,
   parseClock,
+  barsFit,
   plural,
   tenth,
   whose,
@@ -77,6 +78,21 @@ describe('plural', () => {
   test('an irregular plural is given', () => {
     expect(plural(2, 'child', 'children')).toBe('2 children');
     expect(plural(1, 'child', 'children')).toBe('1 child');
+  });
+  test('the counts the screens and messages show read right at one', () => {
+    expect(plural(1, 'dotted quarter')).toBe('1 dotted quarter');
+    expect(plural(1, 'bar')).toBe('1 bar');
+    expect(plural(1, 'minute')).toBe('1 minute');
+    expect(plural(7, 'day')).toBe('7 days');
+  });
+});
+
+describe('barsFit', () => {
+  test('the verb agrees with the count, to a tenth', () => {
+    expect(barsFit(1)).toBe('1 bar fits');
+    expect(barsFit(2)).toBe('2 bars fit');
+    expect(barsFit(2.5)).toBe('2.5 bars fit');
+    expect(barsFit(0.5)).toBe('0.5 bars fit');
   });
 });
 
