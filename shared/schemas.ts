@@ -525,7 +525,6 @@ export const TempoMarkSchema = z.object({
 export type TempoMark = z.infer<typeof TempoMarkSchema>;
 export const TempoMarkListSchema = z.object({ marks: z.array(TempoMarkSchema) });
 
-
 /**
  * How the player stretches time (README, "Playback and stretch"): the phase vocoder keeps attacks on time and low
  * notes in tune at every speed; overlap-add keeps drum hits crisper and uses less of the processor.
