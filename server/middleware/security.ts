@@ -9,7 +9,7 @@ const https = config.publicUrl.startsWith('https:');
 
 /**
  * The exported web app is one script file (no inline script: `dist/index.html` loads the bundle with a src),
- * the audio worklet is a file of ours, and audio, fonts and images come from this origin; a rendered export
+ * the audio worklet is a file of ours (the stretcher inside it compiles WebAssembly), and audio, fonts and images come from this origin; a rendered export
  * is a `blob:` download. Styles need 'unsafe-inline': react-native-web and expo-font write their rules into
  * <style> elements at run time, which no hash can name. The API docs page (development) fits the same rules.
  */
@@ -18,7 +18,8 @@ export const securityHeaders = helmet({
     useDefaults: false,
     directives: {
       defaultSrc: ["'self'"],
-      scriptSrc: ["'self'"],
+      // 'wasm-unsafe-eval' lets the stretcher compile its WebAssembly (signalsmith-stretch) and nothing else: no JS eval.
+      scriptSrc: ["'self'", "'wasm-unsafe-eval'"],
       scriptSrcAttr: ["'none'"],
       styleSrc: ["'self'", "'unsafe-inline'"],
       imgSrc: ["'self'", 'data:', 'blob:'],
