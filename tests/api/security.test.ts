@@ -122,7 +122,9 @@ describe('security headers', () => {
         .map((d) => d.trim().split(/\s+/))
         .find(([n]) => n === name)
         ?.slice(1);
-    expect(directive('script-src')).toEqual(["'self'"]); // no inline script, no eval
+    // No inline script and no JS eval; 'wasm-unsafe-eval' allows compiling WebAssembly only (CSP Level 3), which
+    // the player's stretcher needs.
+    expect(directive('script-src')).toEqual(["'self'", "'wasm-unsafe-eval'"]);
     expect(directive('frame-ancestors')).toEqual(["'none'"]);
     expect(directive('object-src')).toEqual(["'none'"]);
     // The page the export wrote loads its scripts from this origin only, none inline (what script-src allows).
