@@ -22,6 +22,12 @@ import { DEFAULT_CLICK_GAIN } from './click-sound';
 import { addWorkletModule, audioContext, resumeAudio } from './audio-context';
 import { ClickScheduler } from './click-scheduler';
 
+/**
+ * How long the player waits for the worklet's stretcher before asking for overlap-add instead: far longer than
+ * one WebAssembly compile and set-up should take (our choice, not a measured bound), so it only catches a
+ * set-up that will never finish; the play button says "Loading…" meanwhile.
+ */
+const READY_WAIT_MS = 10_000;
 /** Frames per block of the ScriptProcessor fallback (the worklet renders 128 at a time). */
 const FALLBACK_BLOCK = 1024;
 /** Time between pressing Play and the first sound, so the first block is never late. */
@@ -74,6 +80,7 @@ export class AuditionPlayer {
   /** Numbers each start, so reports from an earlier run that arrive late are ignored. */
   private run = 0;
   private disposed = false;
+  private readyTimer: ReturnType<typeof setTimeout> | null = null;
   clickOn = true;
   countInOn = false;
   playing = false;
@@ -272,6 +279,7 @@ export class AuditionPlayer {
   /** The context is the page's and stays; this player's nodes leave it, and the engine lets its samples go. */
   dispose() {
     this.disposed = true;
+    if (this.readyTimer) clearTimeout(this.readyTimer);
     this.pause();
     this.engine?.send({ type: 'unload' });
     this.engine?.node.disconnect();
@@ -283,6 +291,8 @@ export class AuditionPlayer {
   /** What the audio thread reports. */
   private receive(m: FromEngine) {
     if (m.type === 'ready') {
+      if (this.readyTimer) clearTimeout(this.readyTimer);
+      this.readyTimer = null;
       this.stats.stretchMethod = m.method;
       this.onReady?.();
       return;
@@ -324,6 +334,9 @@ export class AuditionPlayer {
       right ? [left.buffer, right.buffer] : [left.buffer],
     );
     this.stats.engine = 'audio-worklet';
+    // A phase vocoder whose WebAssembly cannot start may hang instead of failing: past this wait the worklet
+    // builds overlap-add from the same samples.
+    this.readyTimer = setTimeout(() => node.port.postMessage({ type: 'fallback' } satisfies ToEngine), READY_WAIT_MS);
     return { node, send: (m) => node.port.postMessage(m) };
   }
 

@@ -2,10 +2,12 @@
 // LivePlayback block by block, and reports back. The AudioWorklet (audio/playback/worklet/stretch-processor.ts) and the
 // ScriptProcessor fallback (client/player.ts) both run this one class.
 //
-// Messages in: load (right is null for a mono recording; the stretch method asked for), start, speed, stop,
-// reset-stats, unload. Messages out: ready (the stretcher is built: the method in use, overlap-add where the
-// phase vocoder could not start), segment (a tempo change took effect), pass (the loop came round), stats (time
-// spent rendering ÷ audio time rendered, every 64 blocks). Each start is a numbered run, and what the engine reports carries the run's
+// Messages in: load (right is null for a mono recording; the stretch method asked for), fallback (the main
+// thread waited too long for ready: build overlap-add from the same samples), start, speed, stop, reset-stats,
+// unload. Messages out: ready (the stretcher is built: the method in use, overlap-add where the phase vocoder
+// could not start), segment (a tempo change took effect), pass (the loop came round), stats (time spent
+// rendering ÷ audio time rendered, every 64 blocks). Each start is a numbered run, and what the engine reports
+// carries the run's
 // number, so a report that crosses a restart in flight is recognised as stale.
 import { LivePlayback, type StartOptions } from './live-playback';
 import { stretcherMaker } from './stretch-method';
@@ -13,6 +15,8 @@ import type { StretchMethod } from '@/shared/schemas';
 
 export type ToEngine =
   | { type: 'load'; left: Float32Array; right: Float32Array | null; method: StretchMethod }
+  /** The phase vocoder's set-up has not finished in time (it can hang rather than fail): use overlap-add. */
+  | { type: 'fallback' }
   | { type: 'start'; options: StartOptions; run: number }
   | { type: 'speed'; speed: number; requestedAt: number }
   | { type: 'stop' }
@@ -42,6 +46,8 @@ export class PlaybackHost {
   /** Numbers each load, so a stretcher that finishes building after a newer load (or unload) is dropped. */
   private loads = 0;
   private stats = noStats();
+  /** The load waiting for its stretcher: the samples a fallback rebuilds from (they were handed over, not copied). */
+  private pending: Extract<ToEngine, { type: 'load' }> | null = null;
   /** Set by unload: nothing will be played again, and the worklet's processor may end. */
   unloaded = false;
 
@@ -53,8 +59,13 @@ export class PlaybackHost {
   ) {}
 
   receive(m: ToEngine) {
-    if (m.type === 'load') void this.load(m);
-    else if (m.type === 'start') {
+    if (m.type === 'load') {
+      this.pending = m;
+      void this.load(m);
+    } else if (m.type === 'fallback') {
+      if (this.pending && this.pending.method !== 'overlap-add')
+        void this.load({ ...this.pending, method: 'overlap-add' });
+    } else if (m.type === 'start') {
       this.run = m.run;
       this.playback?.start(m.options);
     } else if (m.type === 'speed') this.playback?.requestSpeed(m.speed, m.requestedAt);
@@ -63,6 +74,7 @@ export class PlaybackHost {
     else if (m.type === 'unload') {
       this.loads += 1;
       this.playback = null;
+      this.pending = null;
       this.unloaded = true;
     }
   }
@@ -75,6 +87,7 @@ export class PlaybackHost {
       return stretcherMaker(method, this.sampleRate);
     });
     if (load !== this.loads) return;
+    this.pending = null;
     this.playback = new LivePlayback({ left: m.left, right: m.right ?? m.left }, this.sampleRate, make);
     this.playback.warmUp();
     this.post({ type: 'ready', method });
