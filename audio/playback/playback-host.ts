@@ -7,8 +7,7 @@
 // unload. Messages out: ready (the stretcher is built: the method in use, overlap-add where the phase vocoder
 // could not start), segment (a tempo change took effect), pass (the loop came round), stats (time spent
 // rendering ÷ audio time rendered, every 64 blocks). Each start is a numbered run, and what the engine reports
-// carries the run's
-// number, so a report that crosses a restart in flight is recognised as stale.
+// carries the run's number, so a report that crosses a restart in flight is recognised as stale.
 import { LivePlayback, type StartOptions } from './live-playback';
 import { stretcherMaker } from './stretch-method';
 import type { StretchMethod } from '@/shared/schemas';
