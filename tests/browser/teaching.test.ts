@@ -111,7 +111,7 @@ test('invite, sign up through the link, upload a take, notes at a moment and on 
   await t.page.getByTestId('note-to-bar').fill('12');
   await t.page.getByTestId('note-text').fill('Bars 9–12 at 100 first, then step up.');
   await t.page.getByTestId('note-add').click();
-  await t.page.getByText('bars 9–12').waitFor();
+  await t.page.getByText('bars 9–12', { exact: true }).waitFor();
   // The teacher is not offered the student's tempo corrections.
   expect(await t.page.getByText('Correct the tempo').count()).toBe(0);
   await shot(t.page, 'teaching-teacher-notes-desktop');
