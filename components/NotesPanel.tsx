@@ -62,9 +62,8 @@ function NoteThread({
   onSeek,
   onLoop,
 }: { note: Note; recordingId: string } & Pick<Props, 'onSeek' | 'onLoop'>) {
-  const [reply, setReply] = useState('');
   const [replying, setReplying] = useState(false);
-  const [editing, setEditing] = useState<string | null>(null);
+  const [editing, setEditing] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
   const act = (f: () => Promise<void>) => f().catch((e: Error) => setProblem(e.message));
   const go = () =>
@@ -97,27 +96,22 @@ function NoteThread({
           {n.resolved ? ' · resolved' : ''}
         </Small>
       </Row>
-      {editing === null ? (
+      {!editing ? (
         <Body>{n.text}</Body>
       ) : (
-        <View style={{ gap: space.sm }}>
-          <Field label="Your note" value={editing} onChangeText={setEditing} multiline testID="note-edit-text" />
-          <Row>
-            <Button
-              label="Save"
-              kind="secondary"
-              disabled={!editing.trim()}
-              onPress={() =>
-                act(async () => {
-                  await changeNote(recordingId, n.id, { text: editing.trim() });
-                  setEditing(null);
-                })
-              }
-              testID="note-edit-save"
-            />
-            <Button label="Cancel" kind="quiet" onPress={() => setEditing(null)} />
-          </Row>
-        </View>
+        <NoteTextForm
+          label="Your note"
+          initial={n.text}
+          sendLabel="Save"
+          testID="note-edit"
+          onSend={(text) =>
+            act(async () => {
+              await changeNote(recordingId, n.id, { text });
+              setEditing(false);
+            })
+          }
+          onCancel={() => setEditing(false)}
+        />
       )}
       {n.replies.map((rep) => (
         <View key={rep.id} style={{ marginLeft: space.lg, gap: 2 }} testID="note-reply">
@@ -128,25 +122,19 @@ function NoteThread({
         </View>
       ))}
       {replying ? (
-        <View style={{ gap: space.sm }}>
-          <Field label="Your reply" value={reply} onChangeText={setReply} multiline testID="note-reply-text" />
-          <Row>
-            <Button
-              label="Send the reply"
-              kind="secondary"
-              disabled={!reply.trim()}
-              onPress={() =>
-                act(async () => {
-                  await replyToNote(recordingId, n.id, reply.trim());
-                  setReply('');
-                  setReplying(false);
-                })
-              }
-              testID="note-reply-send"
-            />
-            <Button label="Cancel" kind="quiet" onPress={() => setReplying(false)} />
-          </Row>
-        </View>
+        <NoteTextForm
+          label="Your reply"
+          initial=""
+          sendLabel="Send the reply"
+          testID="note-reply"
+          onSend={(text) =>
+            act(async () => {
+              await replyToNote(recordingId, n.id, text);
+              setReplying(false);
+            })
+          }
+          onCancel={() => setReplying(false)}
+        />
       ) : null}
       <Row>
         {!replying ? (
@@ -157,14 +145,48 @@ function NoteThread({
           kind="quiet"
           onPress={() => act(() => changeNote(recordingId, n.id, { resolved: !n.resolved }))}
         />
-        {n.mine && editing === null ? (
-          <Button label="Edit" kind="quiet" onPress={() => setEditing(n.text)} testID="note-edit" />
+        {n.mine && !editing ? (
+          <Button label="Edit" kind="quiet" onPress={() => setEditing(true)} testID="note-edit" />
         ) : null}
         {n.mine ? (
           <Button label="Delete" kind="quiet" onPress={() => act(() => deleteNote(recordingId, n.id))} />
         ) : null}
       </Row>
       {problem ? <Notice tone="error">{problem}</Notice> : null}
+    </View>
+  );
+}
+
+/** A text box with send and cancel, for editing a note or replying to it; sends the text trimmed. */
+function NoteTextForm({
+  label,
+  initial,
+  sendLabel,
+  testID,
+  onSend,
+  onCancel,
+}: {
+  label: string;
+  initial: string;
+  sendLabel: string;
+  testID: string;
+  onSend: (text: string) => void;
+  onCancel: () => void;
+}) {
+  const [text, setText] = useState(initial);
+  return (
+    <View style={{ gap: space.sm }}>
+      <Field label={label} value={text} onChangeText={setText} multiline testID={`${testID}-text`} />
+      <Row>
+        <Button
+          label={sendLabel}
+          kind="secondary"
+          disabled={!text.trim()}
+          onPress={() => onSend(text.trim())}
+          testID={`${testID}-send`}
+        />
+        <Button label="Cancel" kind="quiet" onPress={onCancel} />
+      </Row>
     </View>
   );
 }

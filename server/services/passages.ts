@@ -1,8 +1,9 @@
 // Passages: named regions of a song's recordings, each with its own working and goal tempo.
-import { Passage, Recording, Song } from '@/server/models';
+import { Passage, Song } from '@/server/models';
 import { HttpError } from '@/server/http';
 import type { Me, Passage as PassageDto, PassageInput, PassagePatch, SongTempos } from '@/shared/schemas';
 import { assertMay, missing, type Action } from './access';
+import { recordingOfSong } from './recordings';
 import { songFor } from './songs';
 import { namesOf, setByColumns, setByView, tempoColumns } from './users';
 
@@ -34,9 +35,7 @@ async function checkRegion(
   recordingId: string,
   region: { startSec: number; endSec: number; startBar?: number | null; endBar?: number | null },
 ) {
-  const recording = await Recording.findByPk(recordingId, { attributes: ['id', 'songId', 'durationSec'] });
-  if (!recording || recording.songId !== songId)
-    throw new HttpError(400, 'invalid_body', 'recordingId: choose a recording of this song', 'recordingId');
+  const recording = await recordingOfSong(songId, recordingId);
   if (region.endSec <= region.startSec)
     throw new HttpError(400, 'invalid_body', 'endSec: the passage must end after it starts', 'endSec');
   // A little past the decoded length is allowed: the last bar line can fall a few milliseconds after it.

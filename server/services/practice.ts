@@ -3,11 +3,12 @@
 // the app offers the raise (audio/practice/progress.ts) and the player applies it through the tempos routes.
 import { Op } from 'sequelize';
 import { stringify } from 'csv-stringify/sync';
-import { PracticeEntry, Recording, Song } from '@/server/models';
+import { PracticeEntry, Song } from '@/server/models';
 import { HttpError } from '@/server/http';
 import type { Me, PracticeEntryDto, PracticeInput, PracticeLogEntry } from '@/shared/schemas';
 import { assertMay } from './access';
 import { passageFor } from './passages';
+import { recordingOfSong } from './recordings';
 import { songFor } from './songs';
 
 export const toPracticeDto = (p: PracticeEntry): PracticeEntryDto => ({
@@ -53,9 +54,7 @@ async function whereItWasPlayed(user: Me, songId: string, input: PracticeInput) 
   }
   const none = { passageId: null, recordingId: null, startSec: null, endSec: null, startBar: null, endBar: null };
   if (!input.recordingId) return { passage: null, label: input.passage ?? null, region: none };
-  const recording = await Recording.findByPk(input.recordingId, { attributes: ['songId'] });
-  if (!recording || recording.songId !== songId)
-    throw new HttpError(400, 'invalid_body', 'recordingId: choose a recording of this song', 'recordingId');
+  await recordingOfSong(songId, input.recordingId);
   if (
     (input.startSec == null) !== (input.endSec == null) ||
     (input.startSec != null && input.endSec! <= input.startSec)

@@ -143,6 +143,18 @@ export async function recordingFor(user: Me, action: Action, id: string): Promis
 }
 
 /**
+ * A recording named in a request about a song (a passage's region, a practice entry's loop) must be one of
+ * that song's: anything else is the caller's mistake (400), not a missing resource. The song's own access
+ * check has already run, so this reveals nothing another person could not see.
+ */
+export async function recordingOfSong(songId: string, recordingId: string): Promise<Recording> {
+  const recording = await Recording.findByPk(recordingId, { attributes: ['id', 'songId', 'durationSec'] });
+  if (!recording || recording.songId !== songId)
+    throw new HttpError(400, 'invalid_body', 'recordingId: choose a recording of this song', 'recordingId');
+  return recording;
+}
+
+/**
  * A stored analysis, checked against the one schema as it is read. A result that no longer fits (written by
  * an engine whose output differed) is shown as no analysis rather than passed on half-understood; the
  * re-analysis of outdated results replaces it.
