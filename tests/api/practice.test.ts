@@ -13,13 +13,14 @@ const clip = fs.readFileSync(path.join(root, 'fixtures/clips/drums-bass-124.mp3'
 let owner: Awaited<ReturnType<typeof signedInUser>>;
 let songId: string;
 let passageId: string;
+let recordingId: string;
 
 beforeAll(async () => {
   owner = await signedInUser('practice-log');
   songId = (
     await owner.agent.post('/api/songs').send({ title: 'Saltmarsh Hornpipe', goalBpm: 112, workingBpm: 90 }).expect(201)
   ).body.id;
-  const recordingId = (
+  recordingId = (
     await owner.agent
       .post(`/api/songs/${songId}/recordings`)
       .field('kind', 'reference')
@@ -89,13 +90,30 @@ test('refused input is told in plain words, naming the field, and nothing is wri
   expect(await countEntries()).toBe(before);
 });
 
-test('a passage must belong to the song; another player gets 404 and anonymous 401', async () => {
+test('a passage or a looped recording must belong to the song; another player gets 404 and anonymous 401', async () => {
   const other = (await owner.agent.post('/api/songs').send({ title: 'Other tune' }).expect(201)).body.id;
   const res = await owner.agent
     .post(`/api/songs/${other}/practice`)
     .send({ passageId, startBpm: 80, reachedBpm: 80, repetitions: 1, minutes: 1, clean: false })
     .expect(400);
   expect(res.body.error).toMatchObject({ field: 'passageId', message: expect.stringMatching(/passage of this song/) });
+  const loopElsewhere = await owner.agent
+    .post(`/api/songs/${other}/practice`)
+    .send({
+      recordingId,
+      startSec: 1,
+      endSec: 3,
+      startBpm: 80,
+      reachedBpm: 80,
+      repetitions: 1,
+      minutes: 1,
+      clean: false,
+    })
+    .expect(400);
+  expect(loopElsewhere.body.error).toMatchObject({
+    field: 'recordingId',
+    message: expect.stringMatching(/recording of this song/),
+  });
 
   const stranger = await signedInUser('practice-stranger');
   const entry = { startBpm: 90, reachedBpm: 94, repetitions: 4, minutes: 5, clean: true };
