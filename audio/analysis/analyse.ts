@@ -14,7 +14,7 @@ import {
 } from './periodicity';
 import { estimateTempo, relationTo, type TempoEstimate } from './tempo';
 import { round } from './numbers';
-import { beatsWithOffBeatBass, offBeatBassRatio, trackBeats } from './beats';
+import { beatsWithOffBeatBass, trackBeats } from './beats';
 import { estimateMeter } from './meter';
 import { regressionBpm, summarise, tempoCurve, interBeatTempi, median } from './curve';
 import { ANALYSIS_RATE, resample } from './resample';
@@ -73,10 +73,7 @@ export function analyse(samples: Float32Array, sampleRate: number, options: Anal
 
   const tracked = trackGrid(env, modelBpm);
   // The bass between the beats may say the beat is twice as fast (beats.ts), within the range of a beat.
-  const withOffBeats =
-    2 * modelBpm <= LEVEL_MAX_BPM
-      ? beatsWithOffBeatBass(tracked, env.strength, env.low, levelModel.offBeatBassDoubles)
-      : null;
+  const withOffBeats = 2 * modelBpm <= LEVEL_MAX_BPM ? beatsWithOffBeatBass(tracked, env.strength, env.low) : null;
   const beatFrames = withOffBeats ?? tracked;
   const globalBpm = withOffBeats ? 2 * modelBpm : modelBpm;
   const toSec = (f: number) => f / fr + env.offsetSec - ONSET_LATENCY_SEC;
@@ -166,15 +163,6 @@ export function levelCandidatesOf(samples: Float32Array, sampleRate: number): Le
   if (env.strength.length < bpmToLag(MIN_BPM, env.frameRate) * 2) return [];
   const { periodicity, tempo } = ruleBasedTempo(env);
   return tempo ? levelCandidates(periodicity, env, tempo.bpm) : [];
-}
-
-/**
- * The bass band's accents between the beats over those on them (beats.ts) for the grid tracked at `bpm`, for
- * fitting the bound above which the grid is doubled; null where the grid is too short to say.
- */
-export function offBeatBassRatioOf(samples: Float32Array, sampleRate: number, bpm: number): number | null {
-  const env = envelopeOf(samples, sampleRate);
-  return offBeatBassRatio(trackGrid(env, bpm), env.low);
 }
 
 /** The doubled grid's tempo first (with the model's probability for it, 0 when it was no candidate), then the model's choice. */

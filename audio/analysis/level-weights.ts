@@ -3,12 +3,10 @@
 // GTZAN-Rhythm annotations, Marchand & Peeters 2015), all of them. Cross-validated figures (leave one style
 // out): `npm run eval:tempo -- --real`. Features, in order:
 // logTempo, logTempoSquared, comb, pulse, bassPulse, subdivision, beatsPerOnset, beatsPerOnsetSquared, backbeat.
-// offBeatBassDoubles: the off-beat bass bound (beats.ts), fitted on the grids these weights choose.
 import type { LevelModel } from './level';
 
 export const LEVEL_MODEL: LevelModel = {
   weights: [0.1469, -1.1692, 0.9612, 0.8079, 0.1336, 0.4896, 0.1378, -0.3236, 0.7386],
   mean: [-0.3966, 0.7175, 0.7536, 0.7363, 0.7856, 0.7729, -2.091, 5.0087, 0.7773],
   scale: [0.7485, 0.7257, 0.1841, 0.2347, 0.2049, 0.3301, 0.7977, 3.3138, 0.2037],
-  offBeatBassDoubles: 1.1,
 };

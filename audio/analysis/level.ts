@@ -61,11 +61,6 @@ export interface LevelModel {
   /** Standardisation fitted with the weights: feature means and standard deviations. */
   mean: number[];
   scale: number[];
-  /**
-   * The chosen level's grid is doubled when the bass band's accents between its beats outweigh those on them
-   * by more than this (beats.ts, offBeatBassRatio); fitted after the weights, on the grids they choose.
-   */
-  offBeatBassDoubles: number;
 }
 
 export interface LevelCandidate {

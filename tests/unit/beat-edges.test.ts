@@ -1,6 +1,5 @@
 // Beat-grid edges and off-beat bass, on signals and envelopes whose truth is exact by construction.
-import { beatsWithOffBeatBass, offBeatBassRatio, trackBeats } from '@/audio/analysis/beats';
-import { LEVEL_MODEL } from '@/audio/analysis/level-weights';
+import { beatsWithOffBeatBass, offBeatBassRatio, OFF_BEAT_BASS_DOUBLES, trackBeats } from '@/audio/analysis/beats';
 
 test('a clip cut in mid-sound (its first onset 40× any other) keeps its beats to the end', () => {
   // An onset envelope with a pulse every 100 frames, the first one far louder, as a cut in mid-chord gives.
@@ -18,8 +17,8 @@ describe('bass between the beats', () => {
     return x;
   };
   const onset = envelope([...frames, ...frames.map((f) => f + 50)]);
-  // The shipped bound (fitted by npm run train:level; at least 1 by construction of its search).
-  const bound = LEVEL_MODEL.offBeatBassDoubles;
+  // The shipped bound: 1, more bass between the beats than on them.
+  const bound = OFF_BEAT_BASS_DOUBLES;
 
   test('bass on the midpoints only: the midpoints become beats, on their onset peaks', () => {
     const doubled = beatsWithOffBeatBass(frames, onset, envelope(frames.map((f) => f + 50)), bound);
