@@ -121,12 +121,18 @@ export function analyse(samples: Float32Array, sampleRate: number, options: Anal
   });
 }
 
-/** The rule-based tempo (tempo.ts) of an onset envelope, with the periodicity it was read from. */
+/**
+ * The rule-based tempo (tempo.ts) of an onset envelope, with the periodicity it was read from. Both are read
+ * from attacks and harmonic changes together (onset.ts `tempoNovelty`), so music that marks its beats by
+ * chord changes has its tempo among the candidates. The metrical-level features stay on the attacks, where
+ * the bass, the backbeat and the weaker off-beats are heard (a chord change is as loud on a soft off-beat
+ * click as on a strong one, which would hide that the off-beats are weaker).
+ */
 function ruleBasedTempo(env: OnsetEnvelope): { periodicity: PeriodicityCurve; tempo: TempoEstimate | null } {
   const fr = env.frameRate;
-  const periodicity = globalPeriodicity(env.strength, fr);
+  const periodicity = globalPeriodicity(env.tempoNovelty, fr);
   const pulseIn = (x: Float32Array) => (b: number) => localPulse(x, fr, b);
-  return { periodicity, tempo: estimateTempo(periodicity, pulseIn(env.strength), pulseIn(env.low)) };
+  return { periodicity, tempo: estimateTempo(periodicity, pulseIn(env.tempoNovelty), pulseIn(env.low)) };
 }
 
 /**

@@ -1,5 +1,8 @@
 // Stage 1 — onset strength envelope: log-compressed spectral flux (after Böck, Krebs & Schedl 2012 and
 // Ellis 2007), half-wave rectified, with its slow trend removed so that periodicity measures see the attacks.
+// Beside it a harmonic-change novelty (the rise of a chroma vector from frame to frame, after Harte, Sandler
+// & Gasser 2006): music without percussion (a string quartet, a piano played legato) marks its beats by
+// changes of harmony more than by attacks.
 import { forEachSpectrum } from './spectrum';
 
 export interface OnsetEnvelope {
@@ -9,6 +12,12 @@ export interface OnsetEnvelope {
   low: Float32Array;
   /** Onset strength above the lowest band (snare, hands, hi-hat, chords): against `low`, the backbeat. */
   upper: Float32Array;
+  /**
+   * Attacks and harmonic changes, each scaled to unit standard deviation and summed with equal weight: the
+   * envelope whose periodicity gives the tempo candidates (analyse.ts ruleBasedTempo). Beats are placed on
+   * `strength` alone, whose peaks are sharper (a chord change is blurred over the 186 ms chroma frame).
+   */
+  tempoNovelty: Float32Array;
   /** Frames per second. */
   frameRate: number;
   /** Seconds of the first frame's centre (negative: the first frames hang over the start). */
@@ -19,6 +28,15 @@ export const FRAME_SIZE = 512;
 export const HOP = 128;
 const COMPRESSION = 1000; // γ in log(1 + γ|X|)
 const LOW_BAND_HZ = 150; // kick drum and bass fundamentals; a snare's body sits above
+/** 2048 samples (186 ms at 11 025 Hz): bins of 5.4 Hz, a semitone apart from about 90 Hz up. */
+const CHROMA_FRAME = 2048;
+/** A quarter of the chroma frame (46 ms), the usual 75 % overlap; interpolated to the flux's frame rate. */
+const CHROMA_HOP = 512;
+/** Bass notes, chord tones and a melody's lower partials; above 2 kHz partials crowd and cymbals hiss. */
+const CHROMA_LOW_HZ = 60;
+const CHROMA_HIGH_HZ = 2000;
+/** γ in log(1 + γ·chroma), as for the flux; not tuned (each novelty is scaled to unit deviation anyway). */
+const CHROMA_COMPRESSION = 100;
 
 export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetEnvelope {
   const bins = FRAME_SIZE / 2 + 1;
@@ -56,8 +74,13 @@ export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetE
     FRAME_SIZE,
   );
   const frameRate = sampleRate / HOP;
+  const attacks = removeTrend(strength, Math.round(frameRate * 0.4));
+  const harmony = removeTrend(harmonicChange(samples, sampleRate, frames), Math.round(frameRate * 0.4));
+  const toAttackScale = standardDeviation(attacks) / (standardDeviation(harmony) || 1);
+  const tempoNovelty = attacks.map((a, i) => a + toAttackScale * harmony[i]!);
   return {
-    strength: removeTrend(strength, Math.round(frameRate * 0.4)),
+    strength: attacks,
+    tempoNovelty,
     low: removeTrend(low, Math.round(frameRate * 0.4)),
     upper: removeTrend(upper, Math.round(frameRate * 0.4)),
     frameRate,
@@ -78,6 +101,61 @@ function removeTrend(x: Float32Array, halfWidth: number): Float32Array {
     const mean = (prefix[b]! - prefix[a]!) / (b - a);
     const v = x[i]! - mean;
     out[i] = v > 0 ? v : 0;
+  }
+  return out;
+}
+
+function standardDeviation(x: Float32Array): number {
+  let mean = 0;
+  for (let i = 0; i < x.length; i++) mean += x[i]!;
+  mean /= x.length || 1;
+  let v = 0;
+  for (let i = 0; i < x.length; i++) v += (x[i]! - mean) ** 2;
+  return Math.sqrt(v / (x.length || 1));
+}
+
+/**
+ * The rise of the log-compressed chroma (12 pitch classes) from one chroma frame to the next, half-wave
+ * rectified and summed, at the flux's `frames` (frame f centred where the flux's frame f is).
+ */
+function harmonicChange(samples: Float32Array, sampleRate: number, frames: number): Float32Array {
+  const bins = CHROMA_FRAME / 2 + 1;
+  const pitchClass = new Int8Array(bins).fill(-1);
+  for (let k = 1; k < bins; k++) {
+    const hz = (k * sampleRate) / CHROMA_FRAME;
+    if (hz >= CHROMA_LOW_HZ && hz <= CHROMA_HIGH_HZ)
+      pitchClass[k] = ((Math.round(12 * Math.log2(hz / 440)) % 12) + 12) % 12;
+  }
+  const step = CHROMA_HOP / HOP;
+  const coarse = new Float32Array(Math.ceil(frames / step) + 1);
+  let prev = new Float32Array(12);
+  let cur = new Float32Array(12);
+  forEachSpectrum(
+    samples,
+    CHROMA_FRAME,
+    CHROMA_HOP,
+    (f, mags) => {
+      if (f >= coarse.length) return;
+      cur.fill(0);
+      for (let k = 1; k < bins; k++) if (pitchClass[k]! >= 0) cur[pitchClass[k]!]! += mags[k]! * mags[k]!;
+      for (let j = 0; j < 12; j++) cur[j] = Math.log1p(CHROMA_COMPRESSION * Math.sqrt(cur[j]!));
+      if (f > 0) {
+        let rise = 0;
+        for (let j = 0; j < 12; j++) rise += Math.max(0, cur[j]! - prev[j]!);
+        coarse[f] = rise;
+      }
+      const t = prev;
+      prev = cur;
+      cur = t;
+    },
+    // Centre chroma frame f where flux frame f·step is centred (f·HOP·step − FRAME_SIZE/2).
+    CHROMA_FRAME / 2 + FRAME_SIZE / 2,
+  );
+  const out = new Float32Array(frames);
+  for (let i = 0; i < frames; i++) {
+    const a = Math.floor(i / step);
+    const w = i / step - a;
+    out[i] = coarse[a]! * (1 - w) + (coarse[a + 1] ?? 0) * w;
   }
   return out;
 }
