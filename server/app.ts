@@ -2,13 +2,11 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import express from 'express';
-import { toNodeHandler } from 'better-auth/node';
-import { auth } from './auth';
 import { config } from './config';
 import { databaseState } from './db';
 import { errorHandler, HttpError } from './http';
 import { requestLogger } from './log';
-import { authGuards } from './middleware/auth-guards';
+import { authGuards, authHandler } from './middleware/auth-guards';
 import { sameOriginOnly, securityHeaders } from './middleware/security';
 import { buildOpenApiDocument, openApiRouter } from './openapi';
 import { forgetSession, loadUser } from '@/server/middleware/session';
@@ -41,7 +39,7 @@ export function createApp(opts: { serveWeb?: boolean } = {}) {
   // better-auth behind our guards: bounded bodies, checked names, rate limits (server/middleware/auth-guards.ts).
   // It reads the raw body itself, so it is mounted before the JSON parser.
   app.use('/api/auth', ...authGuards);
-  app.all('/api/auth/{*splat}', forgetSession, toNodeHandler(auth));
+  app.all('/api/auth/{*splat}', forgetSession, authHandler);
 
   app.use(express.json({ limit: config.maxJsonBytes }));
 

@@ -33,6 +33,8 @@ export const config = {
   log: {
     level: process.env.TACTUS_LOG_LEVEL ?? 'info',
     file: process.env.TACTUS_LOG_FILE,
+    /** Every this many ms, a line with the process's memory and event-loop delay (0: none; the benchmarks set it). */
+    processStatsMs: num('TACTUS_PROCESS_STATS_MS', 0),
   },
   /** The largest JSON body any route reads, sign-in routes included (the server says 413 past it). */
   maxJsonBytes: num('TACTUS_MAX_JSON_BYTES', 1024 * 1024),

@@ -9,6 +9,7 @@ import { ENGINE_VERSION } from '@/audio/analysis/version';
 import { cleanSpool } from '@/server/middleware/upload';
 import { checkPool } from '@/server/analysis/check-pool';
 import { startDigests, stopDigests } from '@/server/services/digests';
+import { startProcessStats } from './log';
 
 /** Settings production cannot do without; the server says which and does not start. */
 function productionProblems(): string[] {
@@ -36,6 +37,7 @@ async function main() {
   const runner = startAnalysisRunner();
   checkPool().warm();
   startDigests();
+  const stopStats = startProcessStats(config.log.processStatsMs);
   const serveWeb = config.production || process.env.TACTUS_SERVE_WEB === '1';
   const app = createApp({ serveWeb });
   const server = app.listen(config.port, '127.0.0.1', () => {
@@ -49,6 +51,7 @@ async function main() {
   });
   const stop = () => {
     stopDigests();
+    stopStats();
     server.close(
       () =>
         void runner

@@ -1,6 +1,7 @@
 // The server's one logger (pino) and its request logging (pino-http): JSON lines to the log file or stdout.
 import { randomUUID } from 'node:crypto';
 import type { IncomingMessage, ServerResponse } from 'node:http';
+import { monitorEventLoopDelay } from 'node:perf_hooks';
 import pino from 'pino';
 import { pinoHttp } from 'pino-http';
 import { config } from './config';
@@ -42,3 +43,40 @@ export const requestLogger = pinoHttp({
     res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
   },
 });
+
+const mb = (bytes: number) => Math.round((bytes / (1024 * 1024)) * 10) / 10;
+
+/**
+ * Every `everyMs`, one `process stats` line: memory split as Node sees it (rss is everything, the worker
+ * threads' heaps included; heapUsed/heapTotal are the main thread's JavaScript; external and arrayBuffers are
+ * Buffers and other memory outside that heap) and how late the event loop ran in that interval (p99 and max:
+ * what held every request up). For the benchmarks, and for a look at a live server.
+ */
+export function startProcessStats(everyMs: number) {
+  if (everyMs <= 0) return () => undefined;
+  const delay = monitorEventLoopDelay({ resolution: 10 });
+  delay.enable();
+  const timer = setInterval(() => {
+    const m = process.memoryUsage();
+    log.info(
+      {
+        stats: {
+          rssMb: mb(m.rss),
+          heapUsedMb: mb(m.heapUsed),
+          heapTotalMb: mb(m.heapTotal),
+          externalMb: mb(m.external),
+          arrayBuffersMb: mb(m.arrayBuffers),
+          loopDelayP99Ms: Math.round(delay.percentile(99) / 1e5) / 10,
+          loopDelayMaxMs: Math.round(delay.max / 1e5) / 10,
+        },
+      },
+      'process stats',
+    );
+    delay.reset();
+  }, everyMs);
+  timer.unref();
+  return () => {
+    clearInterval(timer);
+    delay.disable();
+  };
+}

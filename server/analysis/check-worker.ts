@@ -3,6 +3,7 @@
 import { parentPort } from 'node:worker_threads';
 import { HttpError } from '@/server/http';
 import { checkAudio, type CheckedAudio } from './audio-check';
+import { runInBackground } from './thread-priority';
 
 export interface CheckRequest {
   id: number;
@@ -18,6 +19,8 @@ export type CheckReply =
       refused?: { status: number; code: string; message: string; field?: string };
       failure: string;
     };
+
+runInBackground();
 
 parentPort!.on('message', async ({ id, file, maxDurationSec }: CheckRequest) => {
   let reply: CheckReply;

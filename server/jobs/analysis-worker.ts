@@ -9,6 +9,7 @@ import { analyse } from '@/audio/analysis/analyse';
 import { waveformPeaks } from '@/audio/analysis/peaks';
 import { ENGINE_VERSION } from '@/audio/analysis/version';
 import { decodeFile } from '@/server/analysis/decode';
+import { runInBackground } from '@/server/analysis/thread-priority';
 import { objectStore } from '@/server/storage';
 import { config } from '@/server/config';
 
@@ -29,6 +30,8 @@ export type WorkMessage =
 const post = (m: WorkMessage) => parentPort!.postMessage(m);
 /** Test knob only (the interruption tests need a job that is still running when they kill the process). */
 const testDelayMs = Number(process.env.TACTUS_ANALYSIS_TEST_DELAY_MS ?? 0);
+
+runInBackground();
 
 parentPort!.on('message', async ({ storageKey }: WorkRequest) => {
   const temp = path.join(config.storage.spoolDir, `.analysis-${crypto.randomBytes(8).toString('hex')}`);

@@ -1,6 +1,9 @@
 // What stands in front of better-auth (/api/auth/*): bounded bodies, our checks of the fields it stores
-// unchecked, and the rate limits on sign-in, sign-up and the mails it sends.
+// unchecked, and the rate limits on sign-in, sign-up and the mails it sends; and its handler, whose refusals
+// carry the request id as ours do.
 import express, { type Request, type RequestHandler, type Response } from 'express';
+import { toNodeHandler } from 'better-auth/node';
+import { auth } from '@/server/auth';
 import { config } from '@/server/config';
 import { HttpError, parseBody } from '@/server/http';
 import { consume, digest, forget } from '@/server/rate-limit';
@@ -74,3 +77,38 @@ export const authGuards: RequestHandler[] = [
       .then(() => next(), next);
   },
 ];
+
+/**
+ * A refusal of better-auth's (4xx/5xx) with the request id in its body, as every error of ours has: its own
+ * JSON ({ code, message }, which its client reads) gains `requestId`; an answer without a JSON object (an
+ * empty 404 for a path it does not know) becomes { code, message, requestId }.
+ */
+export async function withRequestId(answer: globalThis.Response, requestId: string): Promise<globalThis.Response> {
+  if (answer.status < 400) return answer;
+  const text = await answer.text();
+  let body: unknown = null;
+  try {
+    body = text ? JSON.parse(text) : null;
+  } catch {
+    body = null;
+  }
+  const refusal =
+    body && typeof body === 'object' && !Array.isArray(body)
+      ? { ...(body as Record<string, unknown>), requestId }
+      : {
+          code: answer.status === 404 ? 'NOT_FOUND' : 'REQUEST_FAILED',
+          message: answer.status === 404 ? 'no such sign-in or account address' : `request failed (${answer.status})`,
+          requestId,
+        };
+  const headers = new Headers(answer.headers);
+  headers.set('content-type', 'application/json');
+  headers.delete('content-length');
+  return new Response(JSON.stringify(refusal), { status: answer.status, statusText: answer.statusText, headers });
+}
+
+/** better-auth's own handler, its error answers given the request's id (`withRequestId`). */
+export const authHandler: RequestHandler = (req, res) =>
+  toNodeHandler(async (request: globalThis.Request) => withRequestId(await auth.handler(request), String(req.id)))(
+    req,
+    res,
+  );

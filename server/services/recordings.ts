@@ -49,13 +49,16 @@ export async function storeRecording(opts: {
   label: string | null;
   originalName: string | null;
   spoolFile: string;
+  /** The spool file is the upload's own and may be moved into the store (not the seed's demo files). */
+  moveSpoolFile?: boolean;
   sizeBytes: number;
   audio: CheckedAudio;
 }): Promise<Recording> {
   // The stored name is a generated id, never the uploaded name. File first, rows second: if the rows cannot
   // be written the file is removed again, so neither is ever left without the other.
   const storageKey = crypto.randomUUID();
-  await objectStore().put(storageKey, fs.createReadStream(opts.spoolFile), opts.audio.mimeType);
+  if (opts.moveSpoolFile) await objectStore().adopt(storageKey, opts.spoolFile, opts.audio.mimeType);
+  else await objectStore().put(storageKey, fs.createReadStream(opts.spoolFile), opts.audio.mimeType);
   try {
     return await sequelize.transaction(async (t) => {
       const recording = await Recording.create(
@@ -127,6 +130,7 @@ export async function addRecording(
     label: upload.label,
     originalName,
     spoolFile: upload.spoolFile,
+    moveSpoolFile: true,
     sizeBytes: upload.sizeBytes,
     audio,
   });

@@ -20,6 +20,11 @@ export interface StoredObject {
 export interface ObjectStore {
   /** Streams `source` in under `key`; a failure part-way leaves nothing under that key. */
   put(key: string, source: Readable, contentType: string): Promise<void>;
+  /**
+   * Takes the file at `file` (a spool file, the caller's to give away) in under `key`, with the same promise
+   * as `put`. The disk store renames it where it can instead of copying it; the file may be gone afterwards.
+   */
+  adopt(key: string, file: string, contentType: string): Promise<void>;
   read(key: string, range?: ByteRange): Promise<Readable>;
   remove(key: string): Promise<void>;
   exists(key: string): Promise<boolean>;

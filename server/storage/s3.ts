@@ -1,5 +1,6 @@
 // S3-compatible object storage through @aws-sdk/client-s3. A multipart upload either completes into the
 // object or is aborted, so a failed upload leaves no object under the key.
+import fs from 'node:fs';
 import { Readable } from 'node:stream';
 import {
   DeleteObjectCommand,
@@ -53,6 +54,11 @@ export class S3Store implements ObjectStore {
       leavePartsOnError: false,
     });
     await upload.done();
+  }
+
+  /** Object storage has no rename from local disk: the file is sent like any stream. */
+  adopt(key: string, file: string, contentType: string): Promise<void> {
+    return this.put(key, fs.createReadStream(file), contentType);
   }
 
   async read(key: string, range?: ByteRange): Promise<Readable> {

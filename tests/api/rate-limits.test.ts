@@ -39,6 +39,7 @@ const expectTooMany = (res: request.Response, words: RegExp) => {
   expect(res.body.error.message).toMatch(words);
   expect(res.body.error.message).toMatch(/Try again in \d+ (second|minute)s?[.,]/);
   expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
+  expect(res.body.error.requestId).toBe(res.headers['x-request-id']);
 };
 
 test('ten wrong passwords for one account from one address, on either server, lock that pair out for 15 minutes', async () => {
@@ -50,6 +51,7 @@ test('ten wrong passwords for one account from one address, on either server, lo
   for (let i = 0; i < 10; i++) {
     const res = await signIn(i % 2 ? second.url : baseUrl, `wrong-guess-${i}`);
     expect(res.status).toBe(401);
+    expect(res.body.requestId).toBe(res.headers['x-request-id']); // better-auth's own refusal, with our id
   }
   // The right password straight after is refused too, by either server: the count is shared.
   for (const url of [baseUrl, second.url]) {

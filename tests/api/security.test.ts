@@ -231,6 +231,35 @@ describe('request ids', () => {
     }
   });
 
+  test("better-auth's own refusals carry the request id in their body too, in their own shape", async () => {
+    const { email } = player;
+    const id = `auth-probe-${Date.now()}`;
+    const answers = [
+      // A wrong password: better-auth's 401 { code, message }.
+      await request(baseUrl)
+        .post('/api/auth/sign-in/email')
+        .set('X-Request-Id', id)
+        .send({ email, password: 'not-the-password' }),
+      // A body its own validation refuses (no password).
+      await request(baseUrl).post('/api/auth/sign-in/email').send({ email }),
+      // A path it does not know (its answer has no body of its own).
+      await request(baseUrl).get('/api/auth/no-such-endpoint'),
+    ];
+    expect(answers.map((r) => r.status)).toEqual([401, 400, 404]);
+    expect(answers[0]!.body.requestId).toBe(id);
+    expect(answers[0]!.body.code).toBe('INVALID_EMAIL_OR_PASSWORD');
+    for (const res of answers) {
+      expect(res.headers['content-type']).toMatch(/^application\/json/);
+      expect(res.body.requestId).toBe(res.headers['x-request-id']);
+      expect(typeof res.body.message).toBe('string');
+      expect(res.text).not.toMatch(/\bat .*\.(ts|js):\d+/);
+    }
+    // A success is left as better-auth sent it.
+    const ok = await player.agent.get('/api/auth/get-session').expect(200);
+    expect(ok.body.user.email).toBe(email);
+    expect(ok.body.requestId).toBeUndefined();
+  });
+
   test('tokens in paths and queries are not written to the log', async () => {
     const token = `secret${Date.now()}`;
     await request(baseUrl).get(`/api/invitations/token/${token}`);
