@@ -169,7 +169,9 @@ export class ReferenceGrid<Label = unknown> implements TargetGrid {
       const half = t.length > 1 ? (t[1]! - t[0]!) / 2 : 0;
       return t[0]! - time <= half ? { beat: 0, time: t[0]! } : null;
     }
-    return time - t[before]! <= t[after]! - time ? { beat: before, time: t[before]! } : { beat: after, time: t[after]! };
+    return time - t[before]! <= t[after]! - time
+      ? { beat: before, time: t[before]! }
+      : { beat: after, time: t[after]! };
   }
 }
 

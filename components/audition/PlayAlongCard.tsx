@@ -1,0 +1,58 @@
+// Play along with the reference: the reference plays at the tempo set on the player while the microphone
+// listens, and each beat played is shown against the reference's beat (the same live view as recording a take).
+// Feedback only: nothing is recorded or sent. The work is in usePlayAlong; this is layout.
+import React from 'react';
+import { View } from 'react-native';
+import { Button, Card, Heading, Notice, Row, Small } from '@/components/ui';
+import { ProgressBar } from '@/components/ProgressBar';
+import { LiveBeatView } from '@/components/LiveBeatView';
+import { space } from '@/components/theme';
+import { formatBpm } from '@/shared/format';
+import type { AuditionSession } from './useAuditionSession';
+import { usePlayAlong } from './usePlayAlong';
+
+export function PlayAlongCard({ s }: { s: AuditionSession }) {
+  const { audition } = s;
+  const along = usePlayAlong(audition);
+  const running = along.phase === 'running';
+  return (
+    <Card testID="play-along">
+      <Heading level={3}>Play along</Heading>
+      <Small>
+        The recording plays at {formatBpm(audition.bpm)} BPM (set above) while the microphone listens: each beat you
+        play is placed against the recording&apos;s beat, with your tempo over the last beats. Feedback only — nothing
+        is recorded and nothing leaves this browser. To keep a take, record one on the song page.
+      </Small>
+      <Notice tone="caution">
+        Use headphones: through speakers the recording and the click reach the microphone and are heard as your playing.
+        Keep the level moderate, as long listening at high levels in headphones harms hearing (WHO–ITU H.870, safe
+        listening), and take a break from long repetitive practice if your hands or ears tire.
+      </Notice>
+      <Small>
+        {along.latencyMs !== null
+          ? `Latency ${Math.round(along.latencyMs)} ms on this browser: your beats are shifted by it.`
+          : 'Latency not measured on this browser yet (Measure latency on the song page): your beats may read a little late.'}
+      </Small>
+      <Row>
+        {along.phase === 'idle' ? (
+          <Button
+            label="Start playing along"
+            onPress={() => void along.start()}
+            disabled={!audition.ready}
+            testID="play-along-start"
+          />
+        ) : (
+          <Button label="Stop" onPress={along.stop} busy={along.phase === 'starting'} testID="play-along-stop" />
+        )}
+      </Row>
+      {along.phase !== 'idle' ? (
+        <View style={{ gap: space.xs }}>
+          <ProgressBar value={Math.sqrt(along.level)} label="Input level" testID="play-along-level" />
+          <Small>{along.level > 0.9 ? 'Input level: too loud, move back from the microphone' : 'Input level'}</Small>
+        </View>
+      ) : null}
+      {running ? <LiveBeatView marks={along.marks} placeOf={along.placeOf} beatWord="beat" /> : null}
+      {along.error ? <Notice tone="error">{along.error}</Notice> : null}
+    </Card>
+  );
+}
