@@ -49,12 +49,13 @@ export function AuditionPanel({
       <View style={{ flexDirection: 'row', gap: space.lg }}>
         <View style={{ flex: 3, gap: space.lg }}>
           {player}
-          {playAlong}
           <NotesCard s={s} recording={recording} />
           {steadiness}
           {beatFeel}
         </View>
         <View style={{ flex: 2, gap: space.lg }}>
+          {/* Beside the player that stays in view, not under it: the live state is read while playing. */}
+          {playAlong}
           {passages}
           {candidates}
           <LevelsAndExport s={s} />

@@ -9,12 +9,33 @@ import { LiveBeatView } from '@/components/LiveBeatView';
 import { space } from '@/components/theme';
 import { formatBpm } from '@/shared/format';
 import type { AuditionSession } from './useAuditionSession';
-import { usePlayAlong } from './usePlayAlong';
 
 export function PlayAlongCard({ s }: { s: AuditionSession }) {
-  const { audition } = s;
-  const along = usePlayAlong(audition);
+  const { audition, playAlong: along } = s;
   const running = along.phase === 'running';
+  // While playing, the state and the marks come first (read from the music stand); the explanation and the
+  // cautions are read before starting.
+  if (along.phase !== 'idle')
+    return (
+      <Card testID="play-along">
+        <Row>
+          <Heading level={3}>Play along</Heading>
+          <Button label="Stop" onPress={along.stop} busy={along.phase === 'starting'} testID="play-along-stop" />
+        </Row>
+        {running ? (
+          <LiveBeatView marks={along.marks} placeOf={along.placeOf} beatWord="beat" />
+        ) : (
+          <Small>Opening the microphone…</Small>
+        )}
+        <View style={{ gap: space.xs }}>
+          <ProgressBar value={Math.sqrt(along.level)} label="Input level" testID="play-along-level" />
+          <Small>{along.level > 0.9 ? 'Input level: too loud, move back from the microphone' : 'Input level'}</Small>
+        </View>
+        <Small>
+          At {formatBpm(audition.bpm)} BPM. Feedback only: nothing is recorded and nothing leaves this browser.
+        </Small>
+      </Card>
+    );
   return (
     <Card testID="play-along">
       <Heading level={3}>Play along</Heading>
@@ -34,24 +55,13 @@ export function PlayAlongCard({ s }: { s: AuditionSession }) {
           : 'Latency not measured on this browser yet (Measure latency on the song page): your beats may read a little late.'}
       </Small>
       <Row>
-        {along.phase === 'idle' ? (
-          <Button
-            label="Start playing along"
-            onPress={() => void along.start()}
-            disabled={!audition.ready}
-            testID="play-along-start"
-          />
-        ) : (
-          <Button label="Stop" onPress={along.stop} busy={along.phase === 'starting'} testID="play-along-stop" />
-        )}
+        <Button
+          label="Start playing along"
+          onPress={() => void along.start()}
+          disabled={!audition.ready}
+          testID="play-along-start"
+        />
       </Row>
-      {along.phase !== 'idle' ? (
-        <View style={{ gap: space.xs }}>
-          <ProgressBar value={Math.sqrt(along.level)} label="Input level" testID="play-along-level" />
-          <Small>{along.level > 0.9 ? 'Input level: too loud, move back from the microphone' : 'Input level'}</Small>
-        </View>
-      ) : null}
-      {running ? <LiveBeatView marks={along.marks} placeOf={along.placeOf} beatWord="beat" /> : null}
       {along.error ? <Notice tone="error">{along.error}</Notice> : null}
     </Card>
   );
