@@ -3,8 +3,8 @@
 // click, so onsets, recorded samples and clicks share one clock. A run is a one-bar count-in then clicks at the
 // chosen tempo; onsets become beat marks (audio/live/feedback.ts) as they are played. A calibration run plays a
 // few clicks and measures the round trip (audio/live/calibration.ts). A play-along run (`startAlong`) opens the
-// microphone only: the caller plays the reference and keeps the grid of its beats; nothing is recorded. Nothing
-// leaves the browser here: a kept take is uploaded by the caller.
+// microphone only: the caller plays the reference and keeps the grid of its beats. Nothing leaves the browser
+// here: a kept take is uploaded by the caller.
 import { MetronomeTimeline } from '@/audio/playback/click';
 import { LiveFeedback, type BeatMark, type TargetGrid } from '@/audio/live/feedback';
 import { calibrate, CALIBRATION_CLICKS, type CalibrationResult } from '@/audio/live/calibration';
@@ -18,7 +18,14 @@ const WORKLET_URL = `${process.env.EXPO_BASE_URL ?? ''}/capture-processor.js`;
  * The count-in starts this long after the microphone's first sound reaches the worklet: time for the message
  * to reach the page and the first click to be scheduled, so nothing of the count-in is missed.
  */
-export const START_MARGIN_SEC = 0.25;
+const START_MARGIN_SEC = 0.25;
+/**
+ * Play-along's music starts this long after the microphone's first sound: besides the message to the page, the
+ * player's start must be scheduled, and it cannot start earlier than asked; asked in time, the music's beats sit
+ * where the caller said (a page busy for half a second would start it late; the feedback still follows the real
+ * start, as the beats come from the player).
+ */
+export const ALONG_MARGIN_SEC = 0.5;
 /** The take begins this fraction of a beat before the first beat after the count-in: an early first note is kept. */
 const LEAD_BEATS = 0.5;
 
@@ -143,8 +150,8 @@ export class LiveSession {
   }
 
   /**
-   * Play-along with a reference: the microphone only, judged against `grid` — the reference's beats as the
-   * player hears them, kept up to date by the caller. Nothing is recorded. Resolves with the context time of
+   * Play-along with a reference: the microphone only (recorded, for the player to keep or discard at stop),
+   * judged against `grid` — the reference's beats as the player hears them, kept up to date by the caller. Resolves with the context time of
    * the microphone's first sound (the caller starts the music a fixed margin after it), or null when the card
    * left the screen meanwhile; rejects with a MicrophoneError.
    */
@@ -154,7 +161,11 @@ export class LiveSession {
     if (!opened) return null;
     this.latencySec = latencySec;
     this.feedback = new LiveFeedback(grid);
-    return (await opened.firstInput) + START_MARGIN_SEC;
+    const first = await opened.firstInput;
+    // The take runs from the microphone's first sound, the margin before the music: an early first note is kept.
+    this.takeFrom = first;
+    this.post({ type: 'record', from: first });
+    return first + ALONG_MARGIN_SEC;
   }
 
   /** The capture worklet with the microphone in it; null when disposed while the browser asked. */
@@ -218,9 +229,7 @@ export class LiveSession {
   async stop(): Promise<RecordedTake | null> {
     if (!this.running || !this.ctx) return null;
     const to = this.ctx.currentTime;
-    const recorded = this.takeFrom > 0;
     await this.finish();
-    if (!recorded) return null;
     const sampleRate = this.ctx.sampleRate;
     if (to <= this.takeFrom) return null;
     const samples = assembleTake(this.chunks, this.takeFrom, to, this.latencySec, sampleRate);

@@ -41,7 +41,7 @@ export function AuditionPanel({
   const passages = <PassagesCard s={s} song={song} recording={recording} canEdit={canEdit} />;
   const candidates = <CandidatesCard s={s} song={song} canEdit={canEdit} wide={wide} />;
   const steadiness = <SteadinessCard s={s} recording={recording} song={song} canEdit={canEdit} />;
-  const playAlong = <PlayAlongCard s={s} />;
+  const playAlong = <PlayAlongCard s={s} song={song} />;
 
   if (wide) {
     // The player column keeps the waveform and transport at the top of the view; the side column scrolls past.

@@ -4,25 +4,23 @@
 // lives here too, kept per browser. The audio work is in client/live-session.ts; this is layout and state.
 import React, { useEffect, useRef, useState } from 'react';
 import { Platform, Text, View } from 'react-native';
-import { mutate } from 'swr';
-import { Button, Card, Chip, Field, Heading, Notice, Row, Small } from './ui';
+import { Button, Card, Chip, Heading, Notice, Row, Small } from './ui';
 import { ProgressBar } from './ProgressBar';
 import { colors, space, type } from './theme';
 import { Level } from '@/components/audition/SoundLevels';
 import { beatsPerBar } from '@/audio/playback/click';
 import type { BeatMark } from '@/audio/live/feedback';
 import { LiveBeatView } from './LiveBeatView';
+import { TakeReview } from './TakeReview';
 import { CALIBRATION_CLICKS } from '@/audio/live/calibration';
-import { takeWav } from '@/audio/live/take';
-import { listenBack, LiveSession, type RecordedTake } from '@/client/live-session';
+import { LiveSession, type RecordedTake } from '@/client/live-session';
 import { keepCalibration, readCalibration, type StoredCalibration } from '@/client/latency';
 import { DEFAULT_CLICK_GAIN } from '@/client/click-sound';
 import { audioContext } from '@/client/audio-context';
-import { uploadRecording } from '@/client/upload';
-import { formatBpm, formatDate, formatDuration, tenth } from '@/shared/format';
+import { formatBpm, formatDate, tenth } from '@/shared/format';
 import type { Recording, Song } from '@/shared/schemas';
 
-type Phase = 'idle' | 'calibrating' | 'recording' | 'review' | 'uploading';
+type Phase = 'idle' | 'calibrating' | 'recording' | 'review';
 
 /** Bar and beat after the count-in (bar 1, beat 1 is the first beat played), from the grid's beat number. */
 function barBeat(beat: number, perBar: number) {
@@ -50,9 +48,6 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
   const [marks, setMarks] = useState<(BeatMark & { receivedAt: number; onset: number })[]>([]);
   const [calibration, setCalibration] = useState<StoredCalibration | null>(readCalibration);
   const [take, setTake] = useState<RecordedTake | null>(null);
-  const [listening, setListening] = useState<(() => void) | null>(null);
-  const [label, setLabel] = useState('');
-  const [progress, setProgress] = useState(0);
   const session = useRef<LiveSession | null>(null);
 
   useEffect(() => {
@@ -119,44 +114,16 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
     }
   };
 
-  const stopListening = () => {
-    listening?.();
-    setListening(null);
-  };
-
-  const discard = () => {
-    stopListening();
+  const discarded = () => {
     setTake(null);
     setPhase('idle');
     setNote('The take was discarded; nothing was sent.');
   };
 
-  const keep = async () => {
-    if (!take) return;
-    stopListening();
-    setPhase('uploading');
-    setError(null);
-    try {
-      const bytes = takeWav(take.samples, take.sampleRate);
-      const file = new File([bytes as Uint8Array<ArrayBuffer>], `Take at ${formatBpm(bpm)} BPM.wav`, {
-        type: 'audio/wav',
-      });
-      const r = await uploadRecording(
-        song.id,
-        file,
-        { kind: 'take', label: label.trim() || `Recorded at ${formatBpm(bpm)} BPM` },
-        setProgress,
-      );
-      await mutate(`/api/songs/${song.id}/recordings`);
-      setTake(null);
-      setLabel('');
-      setPhase('idle');
-      onKept(r);
-    } catch (e) {
-      // The take stays in the browser so it can be sent again.
-      setPhase('review');
-      setError((e as Error).message);
-    }
+  const kept = (r: Recording) => {
+    setTake(null);
+    setPhase('idle');
+    onKept(r);
   };
 
   const busy = phase === 'calibrating' || phase === 'recording';
@@ -202,7 +169,7 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
           <Button
             label="Start recording"
             onPress={() => void begin(false)}
-            disabled={busy || phase === 'uploading' || phase === 'review'}
+            disabled={busy || phase === 'review'}
             testID="record-start"
           />
         )}
@@ -210,7 +177,7 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
           label={phase === 'calibrating' ? 'Measuring…' : 'Measure latency'}
           kind="secondary"
           onPress={() => void begin(true)}
-          disabled={busy || phase === 'uploading' || phase === 'review'}
+          disabled={busy || phase === 'review'}
           testID="calibrate"
         />
       </Row>
@@ -224,39 +191,15 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
 
       {phase === 'recording' ? <LiveBeatView marks={marks} placeOf={(m) => barBeat(m.beat, perBar)} /> : null}
 
-      {take && (phase === 'review' || phase === 'uploading') ? (
-        <View style={{ gap: space.sm }} testID="take-review">
-          <Text style={[type.label, { color: colors.ink }]}>Take: {formatDuration(take.seconds)}</Text>
-          <Row>
-            <Button
-              label={listening ? 'Stop listening' : 'Listen back'}
-              kind="secondary"
-              onPress={() => {
-                if (listening) return stopListening();
-                void listenBack(take, () => setListening(null)).then((stopIt) => setListening(() => stopIt));
-              }}
-              testID="listen-back"
-            />
-          </Row>
-          <Field label="Label (optional)" value={label} onChangeText={setLabel} testID="take-label" />
-          {phase === 'uploading' ? <ProgressBar value={progress} label="Upload progress" /> : null}
-          <Row>
-            <Button
-              label="Keep and analyse"
-              onPress={() => void keep()}
-              busy={phase === 'uploading'}
-              testID="keep-take"
-            />
-            <Button
-              label="Discard"
-              kind="danger"
-              onPress={discard}
-              disabled={phase === 'uploading'}
-              testID="discard-take"
-            />
-          </Row>
-          <Small>Only a kept take leaves this browser.</Small>
-        </View>
+      {take && phase === 'review' ? (
+        <TakeReview
+          take={take}
+          songId={song.id}
+          defaultLabel={`Recorded at ${formatBpm(bpm)} BPM`}
+          fileName={`Take at ${formatBpm(bpm)} BPM.wav`}
+          onKept={kept}
+          onDiscarded={discarded}
+        />
       ) : null}
 
       {note ? <Notice tone="info">{note}</Notice> : null}

@@ -2,13 +2,13 @@
 // the capture worklet on the page's one AudioContext (client/live-session.ts) while the reference plays, and each
 // onset is placed against the reference's beats as the player hears them — a grid learnt a little ahead from
 // the player (`beatTimes`), forgotten and learnt anew whenever the timeline changes (a tempo change heard, a
-// pause, a corrected grid), so loops and tempo changes are followed. Nothing is recorded and nothing leaves the
-// browser.
+// pause, a corrected grid), so loops and tempo changes are followed. What was played is recorded in the
+// browser and offered at the end to keep (a take of the song) or discard; only a kept take leaves the browser.
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { AuditionPlayer } from '@/client/player';
 import { ReferenceGrid, type BeatMark } from '@/audio/live/feedback';
 import { barAt, beatInBar } from '@/audio/practice/passage';
-import { LiveSession } from '@/client/live-session';
+import { LiveSession, type RecordedTake } from '@/client/live-session';
 import { readCalibration } from '@/client/latency';
 import { audioContext } from '@/client/audio-context';
 import type { BeatPlace } from '@/components/LiveBeatView';
@@ -20,13 +20,15 @@ const LOOKAHEAD_SEC = 1.5;
 /** How often the grid is extended: a fraction of the lookahead, so it never runs dry. */
 const REFRESH_MS = 100;
 
-export type PlayAlongPhase = 'idle' | 'starting' | 'running';
+export type PlayAlongPhase = 'idle' | 'starting' | 'running' | 'review';
 
 export function usePlayAlong(audition: AuditionPlayerState) {
   const [phase, setPhase] = useState<PlayAlongPhase>('idle');
   const [error, setError] = useState<string | null>(null);
   const [level, setLevel] = useState(0);
   const [marks, setMarks] = useState<BeatMark[]>([]);
+  const [take, setTake] = useState<RecordedTake | null>(null);
+  const [note, setNote] = useState<string | null>(null);
   const session = useRef<LiveSession | null>(null);
   const grid = useRef(new ReferenceGrid<BeatPlace>());
   const timer = useRef<ReturnType<typeof setInterval> | null>(null);
@@ -45,16 +47,42 @@ export function usePlayAlong(audition: AuditionPlayerState) {
     setLevel(0);
   }, []);
 
-  const stop = useCallback(() => {
+  /** The run ends (Stop, Pause, the recording's end): the take played is offered to keep or discard. */
+  const finish = useCallback(async () => {
+    const s = session.current;
+    // Stop and the music ending may both ask: the first one finishes the run.
+    if (!s) return;
+    session.current = null;
+    const t = await s.stop();
     release();
+    if (t && t.seconds > 1) {
+      setTake(t);
+      setPhase('review');
+    } else {
+      setPhase('idle');
+      setNote('That was too short to keep: nothing was recorded.');
+    }
+  }, [release]);
+
+  const stop = useCallback(() => {
+    if (timer.current) clearInterval(timer.current);
+    timer.current = null;
     audition.pause();
+    void finish();
+  }, [audition, finish]);
+
+  /** Kept or discarded: the card is ready for another run. */
+  const done = useCallback((words: string | null) => {
+    setTake(null);
     setPhase('idle');
-  }, [release, audition]);
+    setNote(words);
+  }, []);
 
   const start = async () => {
     const p = audition.player.current;
     if (!p || !audition.ready || phase !== 'idle') return;
     setError(null);
+    setNote(null);
     setMarks([]);
     audition.pause();
     const g = new ReferenceGrid<BeatPlace>();
@@ -87,8 +115,9 @@ export function usePlayAlong(audition: AuditionPlayerState) {
       timer.current = setInterval(() => {
         // The music stopped (Pause, the recording's end): the run ends with it and the microphone is released.
         if (!p.playing) {
-          release();
-          setPhase('idle');
+          if (timer.current) clearInterval(timer.current);
+          timer.current = null;
+          void finish();
         } else learn();
       }, REFRESH_MS);
       setPhase('running');
@@ -103,7 +132,7 @@ export function usePlayAlong(audition: AuditionPlayerState) {
 
   const placeOf = useCallback((m: BeatMark): BeatPlace => grid.current.labelOf(m.beat) ?? { bar: 0, beat: 0 }, []);
 
-  return { phase, error, level, marks, start, stop, placeOf, latencyMs };
+  return { phase, error, note, level, marks, take, start, stop, done, placeOf, latencyMs };
 }
 
 export type PlayAlong = ReturnType<typeof usePlayAlong>;

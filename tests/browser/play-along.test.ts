@@ -1,11 +1,12 @@
 // Playing along with a reference at 80 % of its tempo, in Chromium with a fake microphone fed from a generated
 // file whose onsets are known relative to the reference's beats by construction (fixtures/live-takes.ts).
 // The reference is the drums-and-bass clip (fixtures/clips, 124 BPM by its tempo map); its analysed beats are the
-// grid the player hears. Play-along starts the music a fixed margin (START_MARGIN_SEC) after the microphone's
+// grid the player hears. Play-along starts the music a fixed margin (ALONG_MARGIN_SEC) after the microphone's
 // first sound; Chromium restarts the fake file each time the microphone opens and the file opens with digital
 // silence, so the file's first sound is that moment and each hit's place against the heard beats is known:
-// beat j is heard START_MARGIN_SEC + beats[j] / speed (+ the stretch method's heard offset) after it. Both sides
+// beat j is heard ALONG_MARGIN_SEC + beats[j] / speed (+ the stretch method's heard offset) after it. Both sides
 // are context times of the same AudioContext, so no latency is measured (none is stored in a fresh browser).
+// Nothing is sent until the take is kept; kept, it is a take of the song, analysed like any upload.
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -13,7 +14,7 @@ import type { Browser, Page } from 'playwright-core';
 import { launchChromium, outputDir, signInThroughApp } from './chromium';
 import { baseUrl, PASSWORD, signedInUser, waitForAnalysis } from '@/tests/api/helpers';
 import { hitTrainWav } from '@/fixtures/live-takes';
-import { START_MARGIN_SEC } from '@/client/live-session';
+import { ALONG_MARGIN_SEC } from '@/client/live-session';
 import { DEFAULT_STRETCH_METHOD, heardOffsetFor } from '@/audio/playback/stretch-method';
 import { barAt, beatInBar } from '@/audio/practice/passage';
 import { tenth } from '@/shared/format';
@@ -51,7 +52,7 @@ async function watchMarks(page: Page) {
 
 const seen = (page: Page) => page.evaluate(() => (window as unknown as { seenMarks: string[] }).seenMarks);
 
-test('play along with a reference at 80 %: each beat marked against the reference within ±10 ms, rushing at once', async () => {
+test('play along with a reference at 80 %: each beat marked against the reference within ±10 ms, rushing at once, the take kept', async () => {
   const player = await signedInUser('play-along');
   const song = (await player.agent.post('/api/songs').send({ title: 'Copper Kettle Reel', meter: '4/4' }).expect(201))
     .body;
@@ -74,7 +75,7 @@ test('play along with a reference at 80 %: each beat marked against the referenc
   const heard = heardOffsetFor(DEFAULT_STRETCH_METHOD, speed);
   // The player's hits: on the heard beats, then each RUSH_MS earlier than the last.
   const offsetsMs = Array.from({ length: STEADY + RUSHING }, (_, j) => (j < STEADY ? 0 : -(j - STEADY + 1) * RUSH_MS));
-  const hits = offsetsMs.map((off, j) => SILENT + START_MARGIN_SEC + beats[j]! / speed + heard + off / 1000);
+  const hits = offsetsMs.map((off, j) => SILENT + ALONG_MARGIN_SEC + beats[j]! / speed + heard + off / 1000);
   const mic = path.join(dir, 'along.wav');
   // Two seconds past the last hit: the run is stopped before Chromium loops the file.
   fs.writeFileSync(mic, hitTrainWav(hits, 48000, hits[hits.length - 1]! + 2, SILENT));
@@ -132,7 +133,7 @@ test('play along with a reference at 80 %: each beat marked against the referenc
   await page.getByTestId('play-along').evaluate((e) => e.scrollIntoView({ block: 'nearest' }));
   await page.screenshot({ path: path.join(outputDir, 'play-along-desktop.png') });
   await page.getByTestId('play-along-stop').click();
-  await page.getByTestId('play-along-start').waitFor();
+  await page.getByTestId('play-along').getByTestId('take-review').waitFor();
   await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
 
   const labels = (await seen(page)).slice(0, STEADY + RUSHING);
@@ -158,8 +159,20 @@ test('play along with a reference at 80 %: each beat marked against the referenc
   expect(marks.slice(0, STEADY).every((m) => m.state === 'steady')).toBe(true);
   // The first rushed beat is 30 ms early, beyond the 25 ms tolerance: rushing on that very beat.
   expect(marks[STEADY]!.state).toBe('rushing');
-  // Nothing was sent while playing along (sign-in and the tempo setting are the only POSTs).
+  // Nothing was sent while playing along, nor at stop: the take waits in the browser.
   expect(uploads.filter((u) => u.includes('/recordings'))).toEqual([]);
+
+  // Kept: a take of the song, uploaded and analysed like any other; it plays at the tempo played along with.
+  await page.getByTestId('keep-take').click();
+  await page.getByText('The take was kept', { exact: false }).waitFor({ timeout: 30_000 });
+  expect(uploads.filter((u) => u.includes('/recordings'))).toHaveLength(1);
+  const all = (await player.agent.get(`/api/songs/${song.id}/recordings`).expect(200)).body.recordings;
+  const kept = all.find((r: { kind: string }) => r.kind === 'take');
+  expect(kept).toMatchObject({ label: `Played along at ${bpm} BPM` });
+  const analysed = await waitForAnalysis(player.agent, kept.id, 60_000);
+  expect(analysed.status).toBe('done');
+  // Steady on the reference's beats at 80 % for its first twelve beats (the clip is steady: the BPM set).
+  expect(Math.abs(analysed.analysis.startBpm - bpm)).toBeLessThan(2);
   expect(errors).toEqual([]);
   await context.close();
 }, 180_000);
