@@ -134,6 +134,8 @@ test('play along with a reference at 80 %: each beat marked against the referenc
   await page.screenshot({ path: path.join(outputDir, 'play-along-desktop.png') });
   await page.getByTestId('play-along-stop').click();
   await page.getByTestId('play-along').getByTestId('take-review').waitFor();
+  await page.setViewportSize({ width: 390, height: 844 });
+  await page.getByTestId('play-along').screenshot({ path: path.join(outputDir, 'play-along-review-phone.png') });
   await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
 
   const labels = (await seen(page)).slice(0, STEADY + RUSHING);
