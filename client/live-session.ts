@@ -2,10 +2,11 @@
 // (audio/live/worklet/capture-processor.ts) on the page's one AudioContext, the same context that plays the
 // click, so onsets, recorded samples and clicks share one clock. A run is a one-bar count-in then clicks at the
 // chosen tempo; onsets become beat marks (audio/live/feedback.ts) as they are played. A calibration run plays a
-// few clicks and measures the round trip (audio/live/calibration.ts). Nothing leaves the browser here: a kept
-// take is uploaded by the caller.
+// few clicks and measures the round trip (audio/live/calibration.ts). A play-along run (`startAlong`) opens the
+// microphone only: the caller plays the reference and keeps the grid of its beats. Nothing leaves the browser
+// here: a kept take is uploaded by the caller.
 import { MetronomeTimeline } from '@/audio/playback/click';
-import { LiveFeedback, type BeatMark } from '@/audio/live/feedback';
+import { LiveFeedback, type BeatMark, type TargetGrid } from '@/audio/live/feedback';
 import { calibrate, CALIBRATION_CLICKS, type CalibrationResult } from '@/audio/live/calibration';
 import type { FromCapture, ToCapture } from '@/audio/live/capture-host';
 import { assembleTake, type CapturedChunk } from '@/audio/live/take';
@@ -18,6 +19,13 @@ const WORKLET_URL = `${process.env.EXPO_BASE_URL ?? ''}/capture-processor.js`;
  * to reach the page and the first click to be scheduled, so nothing of the count-in is missed.
  */
 const START_MARGIN_SEC = 0.25;
+/**
+ * Play-along's music starts this long after the microphone's first sound: besides the message to the page, the
+ * player's start must be scheduled, and it cannot start earlier than asked; asked in time, the music's beats sit
+ * where the caller said (a page busy for half a second would start it late; the feedback still follows the real
+ * start, as the beats come from the player).
+ */
+export const ALONG_MARGIN_SEC = 0.5;
 /** The take begins this fraction of a beat before the first beat after the count-in: an early first note is kept. */
 const LEAD_BEATS = 0.5;
 
@@ -108,6 +116,60 @@ export class LiveSession {
   /** Opens the microphone and starts the count-in; rejects with a MicrophoneError the screen can show. */
   async start(o: RunOptions): Promise<void> {
     if (this.running) return;
+    const opened = await this.openMicrophone();
+    if (!opened) return;
+    const { ctx, firstInput } = opened;
+    this.latencySec = o.latencySec;
+
+    // The grid starts from the microphone's first sound (not its first block, which a device may fill with
+    // zeros while it wakes), so the count-in is never cut short by a slow device.
+    const start = Math.max((await firstInput) + START_MARGIN_SEC, ctx.currentTime + 0.1);
+    const period = 60 / o.bpm;
+    const grid = { start, bpm: o.bpm };
+    this.feedback = o.calibration ? null : new LiveFeedback(grid, o.beatsPerBar);
+    this.takeFrom = start + (o.beatsPerBar - LEAD_BEATS) * period;
+    this.post({ type: 'record', from: start - 0.5 });
+    this.gain = ctx.createGain();
+    this.gain.gain.value = o.clickVolume;
+    this.gain.connect(ctx.destination);
+    const timeline = new MetronomeTimeline(start, o.bpm, o.beatsPerBar);
+    const last = o.calibration ? start + (o.beatsPerBar + CALIBRATION_CLICKS - 0.5) * period : Infinity;
+    this.clicks = new ClickScheduler(ctx, this.gain, (from, until) =>
+      timeline.clicksBetween(from, Math.min(until, last)),
+    );
+    this.clicks.start(start);
+    this.events.started?.({ start, countIn: o.beatsPerBar });
+    if (o.calibration) {
+      // Stop once the last click has had time to come back (half a beat after it).
+      const waitMs = (last + period - ctx.currentTime) * 1000;
+      this.calibrationTimer = setTimeout(() => {
+        const onsets = [...this.onsets];
+        void this.finish().then(() => this.events.calibrated?.(calibrate(onsets, grid, o.beatsPerBar)));
+      }, waitMs);
+    }
+  }
+
+  /**
+   * Play-along with a reference: the microphone only (recorded, for the player to keep or discard at stop),
+   * judged against `grid` — the reference's beats as the player hears them, kept up to date by the caller. Resolves with the context time of
+   * the microphone's first sound (the caller starts the music a fixed margin after it), or null when the card
+   * left the screen meanwhile; rejects with a MicrophoneError.
+   */
+  async startAlong(grid: TargetGrid, latencySec: number): Promise<number | null> {
+    if (this.running) return null;
+    const opened = await this.openMicrophone();
+    if (!opened) return null;
+    this.latencySec = latencySec;
+    this.feedback = new LiveFeedback(grid);
+    const first = await opened.firstInput;
+    // The take runs from the microphone's first sound, the margin before the music: an early first note is kept.
+    this.takeFrom = first;
+    this.post({ type: 'record', from: first });
+    return first + ALONG_MARGIN_SEC;
+  }
+
+  /** The capture worklet with the microphone in it; null when disposed while the browser asked. */
+  private async openMicrophone(): Promise<{ ctx: AudioContext; firstInput: Promise<number> } | null> {
     const ctx = await resumeAudio();
     this.ctx = ctx;
     if (!navigator.mediaDevices?.getUserMedia) throw micError(null);
@@ -140,42 +202,15 @@ export class LiveSession {
       // The card left the screen while the browser asked: the microphone is released at once.
       this.stream.getTracks().forEach((t) => t.stop());
       node.port.postMessage({ type: 'unload' } satisfies ToCapture);
-      return;
+      return null;
     }
     this.source = ctx.createMediaStreamSource(this.stream);
     this.source.connect(node);
     this.node = node;
     this.running = true;
-    this.latencySec = o.latencySec;
     this.chunks = [];
     this.onsets = [];
-
-    // The grid starts from the microphone's first sound (not its first block, which a device may fill with
-    // zeros while it wakes), so the count-in is never cut short by a slow device.
-    const start = Math.max((await firstInput) + START_MARGIN_SEC, ctx.currentTime + 0.1);
-    const period = 60 / o.bpm;
-    const grid = { start, bpm: o.bpm };
-    this.feedback = o.calibration ? null : new LiveFeedback(grid, o.beatsPerBar);
-    this.takeFrom = start + (o.beatsPerBar - LEAD_BEATS) * period;
-    this.post({ type: 'record', from: start - 0.5 });
-    this.gain = ctx.createGain();
-    this.gain.gain.value = o.clickVolume;
-    this.gain.connect(ctx.destination);
-    const timeline = new MetronomeTimeline(start, o.bpm, o.beatsPerBar);
-    const last = o.calibration ? start + (o.beatsPerBar + CALIBRATION_CLICKS - 0.5) * period : Infinity;
-    this.clicks = new ClickScheduler(ctx, this.gain, (from, until) =>
-      timeline.clicksBetween(from, Math.min(until, last)),
-    );
-    this.clicks.start(start);
-    this.events.started?.({ start, countIn: o.beatsPerBar });
-    if (o.calibration) {
-      // Stop once the last click has had time to come back (half a beat after it).
-      const waitMs = (last + period - ctx.currentTime) * 1000;
-      this.calibrationTimer = setTimeout(() => {
-        const onsets = [...this.onsets];
-        void this.finish().then(() => this.events.calibrated?.(calibrate(onsets, grid, o.beatsPerBar)));
-      }, waitMs);
-    }
+    return { ctx, firstInput };
   }
 
   private receive(m: FromCapture) {

@@ -7,6 +7,7 @@ import {
   beatsPerBar as perBarOf,
   clicksBetween,
   countIn,
+  type Click,
   PlaybackMap,
   type PlaybackSegment,
 } from '@/audio/playback/click';
@@ -88,6 +89,11 @@ export class AuditionPlayer {
   onLoopPass: ((pass: number) => void) | null = null;
   /** Called when playback reaches the end of the recording and stops. */
   onEnded: (() => void) | null = null;
+  /**
+   * Called when the beats' context times change from `at` on (a start, a tempo change heard, a pause, a new
+   * grid): whoever keeps those times ahead (play-along feedback) forgets them from there and asks `beatTimes` again.
+   */
+  private onTimeline: ((at: number) => void) | null = null;
   readonly stats: PlayerStats = {
     engine: 'audio-worklet',
     stretchMethod: DEFAULT_STRETCH_METHOD,
@@ -103,7 +109,8 @@ export class AuditionPlayer {
 
   constructor(
     private readonly url: string,
-    private readonly grid: PlayerGrid,
+    /** The beat grid as the player feels it; `setGrid` replaces it. */
+    private grid: PlayerGrid,
     /** The stretch method asked for (the person's preference). */
     private readonly method: StretchMethod = DEFAULT_STRETCH_METHOD,
   ) {}
@@ -116,6 +123,10 @@ export class AuditionPlayer {
   }
   get loopRegion() {
     return this.loop;
+  }
+  /** Playback speed, × the recording's own tempo. */
+  get playbackSpeed() {
+    return this.speed;
   }
 
   async load(): Promise<void> {
@@ -165,6 +176,23 @@ export class AuditionPlayer {
     if (this.ctx) this.clicks?.cancelFrom(this.ctx.currentTime);
   }
 
+  /** Who is told when the beats' context times change (null: nobody). */
+  followTimeline(listener: ((at: number) => void) | null) {
+    this.onTimeline = listener;
+  }
+
+  /**
+   * A corrected beat grid (another beat level, bar one, a nudge): the click and the bar readout follow from the
+   * next beat on, at the same speed; the decoded audio and the engine stay as they are.
+   */
+  setGrid(grid: PlayerGrid) {
+    this.grid = grid;
+    if (this.ctx && this.playing) {
+      this.clicks?.cancelFrom(this.ctx.currentTime);
+      this.onTimeline?.(this.ctx.currentTime);
+    }
+  }
+
   /** Playback tempo in BPM; while playing it is heard from the next audio block on, at the same beat. */
   setBpm(bpm: number) {
     const speed = this.speedFor(bpm);
@@ -191,14 +219,15 @@ export class AuditionPlayer {
     if (wasPlaying) void this.play();
   }
 
-  async play() {
+  /** Plays from the current place; `at` (context seconds) asks for the music to start then, not sooner. */
+  async play(at?: number) {
     if (!this.ctx || !this.engine || !this.clicks || this.playing) return;
     this.playing = true;
     const ctx = await resumeAudio();
     if (!this.loop && this.startFrom >= this.durationSec - 0.05) this.startFrom = 0;
 
     // The music comes in after the count-in bar, so that the count-in's beats run on into the recording's.
-    const now = ctx.currentTime + START_MARGIN_SEC;
+    const now = Math.max(ctx.currentTime + START_MARGIN_SEC, at ?? 0);
     let startsAt = now;
     if (this.countInOn) {
       const perBar = perBarOf(this.grid.meter);
@@ -217,6 +246,7 @@ export class AuditionPlayer {
     this.run += 1;
     this.engine.send({ type: 'start', options, run: this.run });
     this.clicks.start(startsAt);
+    this.onTimeline?.(startsAt);
   }
 
   pause() {
@@ -225,6 +255,7 @@ export class AuditionPlayer {
     this.playing = false;
     this.engine?.send({ type: 'stop' });
     this.clicks?.stop();
+    if (this.ctx) this.onTimeline?.(this.ctx.currentTime);
   }
 
   seek(sec: number) {
@@ -303,6 +334,7 @@ export class AuditionPlayer {
       const seg: PlaybackSegment = { at: m.at, from: m.from, speed: m.speed };
       this.map.addSegment(seg);
       this.clicks?.cancelFrom(seg.at);
+      this.onTimeline?.(seg.at);
       this.stats.changeLatencies.push(m.at - m.requestedAt);
     } else if (m.type === 'pass') {
       this.onLoopPass?.(m.pass);
@@ -367,17 +399,31 @@ export class AuditionPlayer {
     return { node, send: (m) => host.receive(m) };
   }
 
-  /** The recording's beats due in [from, until) of context time, while the click is on. */
-  private beatClicks(from: number, until: number) {
-    if (!this.clickOn || !this.ctx || !this.map) return [];
-    const now = this.ctx.currentTime;
+  /**
+   * The recording's beats heard in [from, until) of context time while playing, where the click puts them: the
+   * stretched attacks come a little early or late (audio/playback/stretch.ts), and the click follows the music.
+   * `beat` is the beat's index in the grid (a loop repeats it).
+   */
+  beatTimes(from: number, until: number): Click[] {
+    if (!this.ctx || !this.map || !this.playing) return [];
     const map = this.map;
-    // The stretched attacks come a little early or late (audio/playback/stretch.ts): the click follows the music.
     const grid = this.clickGrid ?? this.grid;
     return clicksBetween(map, grid.beats, grid.downbeats, from, until, this.loop).map((c) => ({
-      time: Math.max(now, c.time + this.heardOffset(map.speedAt(c.time))),
-      accent: c.accent,
+      ...c,
+      time: c.time + this.heardOffset(map.speedAt(c.time)),
     }));
+  }
+
+  /** The grid's beats and downbeats the click follows now. */
+  get beatGrid(): { beats: number[]; downbeats: number[] } {
+    return this.clickGrid ?? this.grid;
+  }
+
+  /** The recording's beats due in [from, until) of context time, while the click is on. */
+  private beatClicks(from: number, until: number) {
+    if (!this.clickOn || !this.ctx) return [];
+    const now = this.ctx.currentTime;
+    return this.beatTimes(from, until).map((c) => ({ time: Math.max(now, c.time), accent: c.accent }));
   }
 
   /** Playback without a loop stops at the recording's end. */

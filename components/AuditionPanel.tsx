@@ -1,9 +1,9 @@
 // The audition player on the recording screen, laid out: the waveform (overview and zoomable detail) with the
-// beat grid as the player feels it, the transport, the tempo control, the beat you feel, candidate tempos, saved
-// passages and the loop with step-up practice, the levels of click and music, and export as WAV. On a phone a
-// compact transport stays on screen above the navigation; on a wide screen the waveform and transport stay in view
-// while the side column scrolls. What each part does lives in audition/: the session hook joins them, the cards
-// draw them.
+// beat grid as the player feels it, the transport, the tempo control, playing along with live feedback, the beat
+// you feel, candidate tempos, saved passages and the loop with step-up practice, the levels of click and music,
+// and export as WAV. On a phone a compact transport stays on screen above the navigation; on a wide screen the
+// waveform and transport stay in view while the side column scrolls. What each part does lives in audition/: the
+// session hook joins them, the cards draw them.
 import React from 'react';
 import { useWindowDimensions, View } from 'react-native';
 import { layout, space } from './theme';
@@ -18,6 +18,7 @@ import {
   PlayerCard,
   SteadinessCard,
 } from '@/components/audition/AuditionCards';
+import { PlayAlongCard } from '@/components/audition/PlayAlongCard';
 import type { PeaksDto, Recording, Song } from '@/shared/schemas';
 
 export function AuditionPanel({
@@ -40,6 +41,7 @@ export function AuditionPanel({
   const passages = <PassagesCard s={s} song={song} recording={recording} canEdit={canEdit} />;
   const candidates = <CandidatesCard s={s} song={song} canEdit={canEdit} wide={wide} />;
   const steadiness = <SteadinessCard s={s} recording={recording} song={song} canEdit={canEdit} />;
+  const playAlong = <PlayAlongCard s={s} song={song} />;
 
   if (wide) {
     // The player column keeps the waveform and transport at the top of the view; the side column scrolls past.
@@ -52,6 +54,8 @@ export function AuditionPanel({
           {beatFeel}
         </View>
         <View style={{ flex: 2, gap: space.lg }}>
+          {/* Beside the player that stays in view, not under it: the live state is read while playing. */}
+          {playAlong}
           {passages}
           {candidates}
           <LevelsAndExport s={s} />
@@ -62,6 +66,7 @@ export function AuditionPanel({
   return (
     <View style={{ gap: space.lg }}>
       {player}
+      {playAlong}
       <NotesCard s={s} recording={recording} />
       {steadiness}
       {passages}

@@ -4,33 +4,29 @@
 // lives here too, kept per browser. The audio work is in client/live-session.ts; this is layout and state.
 import React, { useEffect, useRef, useState } from 'react';
 import { Platform, Text, View } from 'react-native';
-import { mutate } from 'swr';
-import { Button, Card, Chip, Field, Heading, Notice, Row, Small } from './ui';
+import { Button, Card, Chip, Heading, Notice, Row, Small } from './ui';
 import { ProgressBar } from './ProgressBar';
-import { colors, radius, space, type } from './theme';
+import { colors, space, type } from './theme';
 import { Level } from '@/components/audition/SoundLevels';
 import { beatsPerBar } from '@/audio/playback/click';
-import { RUNNING_INTERVALS, type BeatMark, type PlayState } from '@/audio/live/feedback';
+import type { BeatMark } from '@/audio/live/feedback';
+import { LiveBeatView } from './LiveBeatView';
+import { TakeReview } from './TakeReview';
 import { CALIBRATION_CLICKS } from '@/audio/live/calibration';
-import { takeWav } from '@/audio/live/take';
-import { listenBack, LiveSession, type RecordedTake } from '@/client/live-session';
+import { LiveSession, type RecordedTake } from '@/client/live-session';
 import { keepCalibration, readCalibration, type StoredCalibration } from '@/client/latency';
 import { DEFAULT_CLICK_GAIN } from '@/client/click-sound';
 import { audioContext } from '@/client/audio-context';
-import { uploadRecording } from '@/client/upload';
-import { formatBpm, formatDate, formatDuration, formatOffsetMs, plural, tenth } from '@/shared/format';
+import { formatBpm, formatDate, tenth } from '@/shared/format';
 import type { Recording, Song } from '@/shared/schemas';
 
-type Phase = 'idle' | 'calibrating' | 'recording' | 'review' | 'uploading';
+type Phase = 'idle' | 'calibrating' | 'recording' | 'review';
 
-/** Marks shown at once: two bars of 4/4, the window of the running tempo. */
-const SHOWN_MARKS = 8;
-
-const stateWords: Record<PlayState, { label: string; colour: string }> = {
-  steady: { label: 'Steady', colour: colors.teal },
-  rushing: { label: 'Rushing', colour: colors.amber },
-  dragging: { label: 'Dragging', colour: colors.danger },
-};
+/** Bar and beat after the count-in (bar 1, beat 1 is the first beat played), from the grid's beat number. */
+function barBeat(beat: number, perBar: number) {
+  const played = beat - perBar;
+  return { bar: Math.floor(played / perBar) + 1, beat: (played % perBar) + 1 };
+}
 
 /** What the browser test and the benchmark read: the delay from each onset to its mark on screen. */
 interface LiveProbe {
@@ -52,9 +48,6 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
   const [marks, setMarks] = useState<(BeatMark & { receivedAt: number; onset: number })[]>([]);
   const [calibration, setCalibration] = useState<StoredCalibration | null>(readCalibration);
   const [take, setTake] = useState<RecordedTake | null>(null);
-  const [listening, setListening] = useState<(() => void) | null>(null);
-  const [label, setLabel] = useState('');
-  const [progress, setProgress] = useState(0);
   const session = useRef<LiveSession | null>(null);
 
   useEffect(() => {
@@ -121,48 +114,19 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
     }
   };
 
-  const stopListening = () => {
-    listening?.();
-    setListening(null);
-  };
-
-  const discard = () => {
-    stopListening();
+  const discarded = () => {
     setTake(null);
     setPhase('idle');
     setNote('The take was discarded; nothing was sent.');
   };
 
-  const keep = async () => {
-    if (!take) return;
-    stopListening();
-    setPhase('uploading');
-    setError(null);
-    try {
-      const bytes = takeWav(take.samples, take.sampleRate);
-      const file = new File([bytes as Uint8Array<ArrayBuffer>], `Take at ${formatBpm(bpm)} BPM.wav`, {
-        type: 'audio/wav',
-      });
-      const r = await uploadRecording(
-        song.id,
-        file,
-        { kind: 'take', label: label.trim() || `Recorded at ${formatBpm(bpm)} BPM` },
-        setProgress,
-      );
-      await mutate(`/api/songs/${song.id}/recordings`);
-      setTake(null);
-      setLabel('');
-      setPhase('idle');
-      onKept(r);
-    } catch (e) {
-      // The take stays in the browser so it can be sent again.
-      setPhase('review');
-      setError((e as Error).message);
-    }
+  const kept = (r: Recording) => {
+    setTake(null);
+    setPhase('idle');
+    onKept(r);
   };
 
   const busy = phase === 'calibrating' || phase === 'recording';
-  const latest = marks[marks.length - 1];
   return (
     <Card testID="record-panel">
       <Heading level={3}>Record a take</Heading>
@@ -205,7 +169,7 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
           <Button
             label="Start recording"
             onPress={() => void begin(false)}
-            disabled={busy || phase === 'uploading' || phase === 'review'}
+            disabled={busy || phase === 'review'}
             testID="record-start"
           />
         )}
@@ -213,7 +177,7 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
           label={phase === 'calibrating' ? 'Measuring…' : 'Measure latency'}
           kind="secondary"
           onPress={() => void begin(true)}
-          disabled={busy || phase === 'uploading' || phase === 'review'}
+          disabled={busy || phase === 'review'}
           testID="calibrate"
         />
       </Row>
@@ -225,134 +189,21 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
         </View>
       ) : null}
 
-      {phase === 'recording' ? (
-        <View style={{ gap: space.sm }} testID="live-view">
-          <Row align="baseline">
-            <Text
-              style={[type.h2, { color: latest ? stateWords[latest.state].colour : colors.muted }]}
-              testID="live-state"
-              aria-live="polite"
-            >
-              {latest ? stateWords[latest.state].label : 'Listening…'}
-            </Text>
-            <Text style={[type.small, { color: colors.muted }]} testID="live-bpm">
-              {latest?.bpm
-                ? `${formatBpm(tenth(latest.bpm))} BPM over the last ${plural(Math.min(RUNNING_INTERVALS, marks.length - 1), 'beat')} · target ${formatBpm(bpm)} BPM`
-                : ''}
-            </Text>
-          </Row>
-          <OffsetLane marks={marks.slice(-SHOWN_MARKS)} perBar={perBar} />
-        </View>
-      ) : null}
+      {phase === 'recording' ? <LiveBeatView marks={marks} placeOf={(m) => barBeat(m.beat, perBar)} /> : null}
 
-      {take && (phase === 'review' || phase === 'uploading') ? (
-        <View style={{ gap: space.sm }} testID="take-review">
-          <Text style={[type.label, { color: colors.ink }]}>Take: {formatDuration(take.seconds)}</Text>
-          <Row>
-            <Button
-              label={listening ? 'Stop listening' : 'Listen back'}
-              kind="secondary"
-              onPress={() => {
-                if (listening) return stopListening();
-                void listenBack(take, () => setListening(null)).then((stopIt) => setListening(() => stopIt));
-              }}
-              testID="listen-back"
-            />
-          </Row>
-          <Field label="Label (optional)" value={label} onChangeText={setLabel} testID="take-label" />
-          {phase === 'uploading' ? <ProgressBar value={progress} label="Upload progress" /> : null}
-          <Row>
-            <Button
-              label="Keep and analyse"
-              onPress={() => void keep()}
-              busy={phase === 'uploading'}
-              testID="keep-take"
-            />
-            <Button
-              label="Discard"
-              kind="danger"
-              onPress={discard}
-              disabled={phase === 'uploading'}
-              testID="discard-take"
-            />
-          </Row>
-          <Small>Only a kept take leaves this browser.</Small>
-        </View>
+      {take && phase === 'review' ? (
+        <TakeReview
+          take={take}
+          songId={song.id}
+          defaultLabel={`Recorded at ${formatBpm(bpm)} BPM`}
+          fileName={`Take at ${formatBpm(bpm)} BPM.wav`}
+          onKept={kept}
+          onDiscarded={discarded}
+        />
       ) : null}
 
       {note ? <Notice tone="info">{note}</Notice> : null}
       {error ? <Notice tone="error">{error}</Notice> : null}
     </Card>
-  );
-}
-
-/** The lane's half-width in ms: offsets beyond it sit at its edge (a quarter of a beat at 150 BPM). */
-const LANE_MS = 100;
-
-/** Bar and beat after the count-in (bar 1, beat 1 is the first beat played), from the grid's beat number. */
-function barBeat(beat: number, perBar: number) {
-  const played = beat - perBar;
-  return { bar: Math.floor(played / perBar) + 1, beat: (played % perBar) + 1 };
-}
-
-/** The last beats as ticks on a lane: the centre line is the click, early to the left, late to the right. */
-function OffsetLane({ marks, perBar }: { marks: BeatMark[]; perBar: number }) {
-  return (
-    <View style={{ gap: space.xs, maxWidth: 640 }} testID="live-marks">
-      <View style={{ flexDirection: 'row', gap: space.sm }}>
-        <View style={{ width: 64 }} />
-        <View style={{ flex: 1, flexDirection: 'row', justifyContent: 'space-between' }}>
-          <Small>◂ early</Small>
-          <Small>click</Small>
-          <Small>late ▸</Small>
-        </View>
-        <View style={{ width: 64 }} />
-      </View>
-      {marks.map((m) => {
-        const x = Math.max(-1, Math.min(1, m.offsetMs / LANE_MS));
-        const words = m.offsetMs < 0 ? 'early' : 'late';
-        const at = barBeat(m.beat, perBar);
-        return (
-          <View
-            key={m.beat}
-            testID="live-mark"
-            aria-label={`Bar ${at.bar}, beat ${at.beat}: ${Math.round(Math.abs(m.offsetMs))} ms ${words}, ${m.state}`}
-            style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}
-          >
-            <Text style={[type.small, { color: colors.muted, width: 64 }]}>
-              {at.bar}.{at.beat}
-            </Text>
-            <View
-              style={{
-                flex: 1,
-                height: 14,
-                backgroundColor: colors.tealSoft,
-                borderRadius: radius.sm,
-                overflow: 'hidden',
-              }}
-            >
-              <View
-                style={{ position: 'absolute', left: '50%', top: 0, bottom: 0, width: 1, backgroundColor: colors.ink }}
-              />
-              <View
-                style={{
-                  position: 'absolute',
-                  left: `${50 + x * 48}%`,
-                  top: 1,
-                  width: 6,
-                  height: 12,
-                  marginLeft: -3,
-                  borderRadius: 3,
-                  backgroundColor: stateWords[m.state].colour,
-                }}
-              />
-            </View>
-            <Text style={[type.small, { color: colors.ink, width: 64, textAlign: 'right' }]}>
-              {formatOffsetMs(m.offsetMs)}
-            </Text>
-          </View>
-        );
-      })}
-    </View>
   );
 }

@@ -4,7 +4,7 @@
 // feels, with its rubato and ritardando marks left out, as on the recording screen.
 import React, { useMemo, useState } from 'react';
 import { Text, View } from 'react-native';
-import { Card, Chip, Heading, Row, Small } from '@/components/ui';
+import { Card, Chip, Heading, Small } from '@/components/ui';
 import { colors, space, type } from '@/components/theme';
 import { SteadinessTrendChart, TakeComparisonChart } from '@/components/charts/TakeComparisonChart';
 import { useTempoMarksOf } from '@/client/hooks';
@@ -78,27 +78,34 @@ export function TakeComparison({ song, recordings }: { song: Song; recordings: R
   const c = a && b && a.r.id !== b.r.id ? compareTakes(a, b) : null;
   const trend = trendTakes.map((r) => read(r.id)).filter((x): x is Read => x !== null);
 
-  const picker = (slot: 0 | 1, current: string | null) => (
-    <Row>
-      {usable.map((r) => (
-        <Chip
-          key={r.id}
-          label={`${nameOf(r)} · ${formatDate(r.createdAt)}`}
-          selected={current === r.id}
-          onPress={() => setPicked(slot === 0 ? [r.id, second] : [first, r.id])}
-          testID={`compare-${slot === 0 ? 'first' : 'second'}-${r.id}`}
-        />
-      ))}
-    </Row>
+  // One line per recording, newest first, with its two choices beside it: short on a phone with many takes.
+  const choice = (slot: 0 | 1, r: Recording) => (
+    <Chip
+      label={slot === 0 ? 'A' : 'B'}
+      compact
+      selected={(slot === 0 ? first : second) === r.id}
+      hint={`${nameOf(r)} as ${slot === 0 ? 'A, the solid line' : 'B, the dashed line'}`}
+      onPress={() => setPicked(slot === 0 ? [r.id, second] : [first, r.id])}
+      testID={`compare-${slot === 0 ? 'first' : 'second'}-${r.id}`}
+    />
   );
 
   return (
     <Card testID="take-comparison-card">
       <Heading level={3}>Compare recordings</Heading>
-      <Text style={[type.label, { color: colors.muted }]}>First (solid line)</Text>
-      {picker(0, first)}
-      <Text style={[type.label, { color: colors.muted }]}>Second (dashed line)</Text>
-      {picker(1, second)}
+      <Small>Pick A (solid line) and B (dashed line).</Small>
+      <View style={{ gap: space.xs }} testID="compare-choices">
+        {[...usable].reverse().map((r) => (
+          <View key={r.id} style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
+            {choice(0, r)}
+            {choice(1, r)}
+            <Text style={[type.body, { color: colors.ink, flex: 1 }]} numberOfLines={1}>
+              {nameOf(r)}
+              <Text style={{ color: colors.muted }}> · {formatDate(r.createdAt)}</Text>
+            </Text>
+          </View>
+        ))}
+      </View>
       {a && b && c ? (
         <View style={{ gap: space.sm }}>
           <TakeComparisonChart

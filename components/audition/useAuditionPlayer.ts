@@ -14,6 +14,8 @@ export type AuditionPlayerState = ReturnType<typeof useAuditionPlayer>;
 export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
   const { originalBpm } = grid;
   const player = useRef<AuditionPlayer | null>(null);
+  /** The grid the player now has (the one it was made with, or the last correction). */
+  const madeWith = useRef(grid);
   /** Called at each pass through the loop (the step-up run listens here). */
   const onLoopPassRef = useRef<(() => void) | null>(null);
   const [ready, setReady] = useState(false);
@@ -37,6 +39,7 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
       stretchMethod,
     );
     player.current = p;
+    madeWith.current = grid;
     p.load().then(
       () => setReady(true),
       (e: Error) => setFailure(e.message),
@@ -50,9 +53,19 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
       // A new player (another stretch method, say) is not ready until it has loaded.
       setReady(false);
     };
-    // The grid is read when the player is made; a correction reloads it with the new tempo.
+    // The grid the player starts with; a correction reaches it through setGrid below, without decoding again.
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [audioUrl, originalBpm, stretchMethod]);
+  }, [audioUrl, stretchMethod]);
+
+  // A corrected grid (beat level, bar one, nudge): the same player takes it; what is heard keeps its speed, so
+  // the tempo shown is that speed on the new grid's tempo (twice the number at the doubled beat level).
+  useEffect(() => {
+    const p = player.current;
+    if (!p || madeWith.current === grid) return;
+    madeWith.current = grid;
+    p.setGrid({ beats: grid.beats, downbeats: grid.downbeats, originalBpm, meter: grid.meter });
+    setBpmState(tenth(p.playbackSpeed * originalBpm));
+  }, [grid, originalBpm]);
 
   const getPosition = useCallback(() => player.current?.position() ?? 0, []);
   const getCountInBeat = useCallback(() => player.current?.countInBeat() ?? null, []);
@@ -72,6 +85,13 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
     if (!p || p.playing) return;
     void p.play();
     setPlaying(true);
+  }, []);
+  /** Plays with the music starting at context time `at` (play-along starts it a margin after the microphone). */
+  const playAt = useCallback(async (at: number) => {
+    const p = player.current;
+    if (!p || p.playing) return;
+    setPlaying(true);
+    await p.play(at);
   }, []);
   const pause = useCallback(() => {
     player.current?.pause();
@@ -141,6 +161,7 @@ export function useAuditionPlayer(audioUrl: string, grid: PlayerGrid & Grid) {
     setFailure,
     playing,
     play,
+    playAt,
     pause,
     togglePlay,
     getPosition,

@@ -1,6 +1,7 @@
 // Everything the audition player on one recording needs, joined: the beat grid as the player feels it, the
 // player itself, the last loop kept across reloads, the song's saved passages on this recording, the step-up
-// run and its logging, the break suggestion after long practice, keys, candidate tempos and export. AuditionPanel only lays the parts out.
+// run and its logging, the break suggestion after long practice, play-along, keys, candidate tempos and export.
+// AuditionPanel only lays the parts out.
 import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useCandidates, useNotes, usePassages } from '@/client/hooks';
 import { keepLastLoop, readLastLoop } from '@/client/last-loop';
@@ -14,6 +15,7 @@ import { useStepUpRun } from './useStepUpRun';
 import { useBreakReminder } from './useBreakReminder';
 import { usePlayerKeys } from './usePlayerKeys';
 import { useWavExport } from './useWavExport';
+import { usePlayAlong } from './usePlayAlong';
 
 /** A short listen of a beat level: two bars at 70 BPM in 4/4 (about 7 s), long enough to feel where the beat
  * falls, short enough to compare two at once (from memory; no standard sets it). */
@@ -81,6 +83,8 @@ export function useAuditionSession({
     originalBpm: felt.bpm,
   });
   const breakReminder = useBreakReminder(audition.playing);
+  // Here rather than in its card, so a run survives the layout changing between phone and wide screen.
+  const playAlong = usePlayAlong(audition);
   const { candidates } = useCandidates(song?.id);
   usePlayerKeys({ togglePlay: audition.togglePlay, skip, bpm, setBpm, candidateBpms: candidates?.map((c) => c.bpm) });
   const wav = useWavExport({
@@ -120,6 +124,7 @@ export function useAuditionSession({
     saved,
     stepUp,
     breakReminder,
+    playAlong,
     wav,
     unit,
     setUnit,

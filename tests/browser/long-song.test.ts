@@ -239,12 +239,22 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
   // Halve: 60 BPM; every other beat, a bar of four felt beats spans two found bars, so felt bar 29 starts where
   // found bar 57 did; the click's grid (the player's) is the halved one.
   const before = await playerGrid(page);
+  const bpmShown = async () => parseFloat((await page.getByTestId('playback-bpm-compact').textContent()) ?? '');
+  const bpmBefore = await bpmShown();
+  // The player object is marked, to see it is the same one after the correction.
+  await page.evaluate(() => ((window as unknown as { tactusAudition: { seen?: boolean } }).tactusAudition.seen = true));
   await page.getByTestId('level-half').click();
-  await page
-    .getByTestId('playback-bpm-compact')
-    .filter({ hasText: /^60 BPM$/ })
-    .waitFor();
-  // A correction makes the player anew on the new grid: its audio is loaded again before the next tap.
+  await page.waitForFunction(() => (window as unknown as Audition).tactusAudition.grid.originalBpm === 60);
+  await page.waitForFunction(
+    (b) => parseFloat(document.querySelector('[data-testid="playback-bpm-compact"]')?.textContent ?? '') !== b,
+    bpmBefore,
+  );
+  expect(
+    await page.evaluate(() => (window as unknown as { tactusAudition: { seen?: boolean } }).tactusAudition.seen),
+  ).toBe(true);
+  // The same player takes the new grid (no second decode) at the same speed: the tempo shown is that speed on
+  // the halved grid, half the number (to the tenth the player keeps).
+  expect(Math.abs((await bpmShown()) - bpmBefore / 2)).toBeLessThanOrEqual(0.1);
   await page.getByTestId('play-compact').filter({ hasText: 'Play' }).waitFor();
   const halved = await playerGrid(page);
   expect(halved.originalBpm).toBe(60);
@@ -266,16 +276,13 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
   const wave2 = (await page.getByTestId('player-waveform').boundingBox())!;
   const x29 = await barX(page, 29);
   const x30 = await barX(page, 30);
+  // The place before the tap, read before it: the readout may follow the tap at once.
+  const beforeTap = await position(page);
   await page.mouse.click(x29 + (x30 - x29) / 4, wave2.y + wave2.height / 2); // one beat of four into bar 29
-  await page.waitForFunction(
-    (t) => {
-      const m = /^(\d+):(\d+\.\d)$/.exec(
-        document.querySelector('[data-testid="playback-position"]')?.textContent ?? '',
-      );
-      return !!m && Math.abs(Number(m[1]) * 60 + Number(m[2]) - t) > 0.3;
-    },
-    await position(page),
-  );
+  await page.waitForFunction((t) => {
+    const m = /^(\d+):(\d+\.\d)$/.exec(document.querySelector('[data-testid="playback-position"]')?.textContent ?? '');
+    return !!m && Math.abs(Number(m[1]) * 60 + Number(m[2]) - t) > 0.3;
+  }, beforeTap);
   const oneAt = await position(page);
   await page.getByTestId('beat-is-one').click();
   await page.waitForFunction(

@@ -168,6 +168,59 @@ test('calibrate, record against the click with live feedback, keep the take and 
   await context.close();
 }, 150_000);
 
+test('a discarded take is never sent: no new recording, the take list unchanged, the recorder ready again', async () => {
+  const player = await signedInUser('record-discard');
+  const song = (
+    await player.agent
+      .post('/api/songs')
+      .send({ title: 'Birch Hollow Polka', meter: '4/4', workingBpm: BPM })
+      .expect(201)
+  ).body;
+  // One take already there, so "unchanged" is a list of one, not an empty one.
+  const earlier = hitTrainWav(known.times.slice(0, 12), 48000, LEAD + 12 * PERIOD + 1);
+  await player.agent
+    .post(`/api/songs/${song.id}/recordings`)
+    .field('kind', 'take')
+    .field('label', 'Last week')
+    .attach('file', Buffer.from(earlier), 'last-week.wav')
+    .expect(201);
+  const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+  await context.grantPermissions(['microphone']);
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await signInThroughApp(page, player.email, PASSWORD);
+  await page.getByText('Birch Hollow Polka').click();
+  await page.getByTestId('record-panel').waitFor();
+  await page.getByTestId('recording-row').first().waitFor();
+  expect(await page.getByTestId('recording-row').count()).toBe(1);
+  const posts: string[] = [];
+  page.on('request', (r) => {
+    if (r.method() === 'POST') posts.push(new URL(r.url()).pathname);
+  });
+
+  // A take of a few beats after the count-in, stopped, then discarded.
+  await watchMarks(page);
+  await page.getByTestId('record-start').click();
+  await page.waitForFunction(() => (window as unknown as { seenMarks: string[] }).seenMarks.length >= 3, null, {
+    timeout: 30_000,
+  });
+  await page.getByTestId('record-stop').click();
+  await page.getByTestId('take-review').waitFor();
+  await page.getByTestId('discard-take').click();
+  await page.getByText('The take was discarded; nothing was sent.').waitFor();
+
+  expect(await page.getByTestId('take-review').count()).toBe(0);
+  expect(await page.getByTestId('record-start').isEnabled()).toBe(true);
+  expect(posts).toEqual([]);
+  expect(await page.getByTestId('recording-row').count()).toBe(1);
+  const recordings = (await player.agent.get(`/api/songs/${song.id}/recordings`).expect(200)).body.recordings;
+  expect(recordings.map((r: { label: string }) => r.label)).toEqual(['Last week']);
+  await page.screenshot({ path: path.join(outputDir, 'record-discarded-phone.png'), fullPage: true });
+  expect(errors).toEqual([]);
+  await context.close();
+}, 90_000);
+
 test('a refused microphone gets a plain message, and the rest of the song page still works', async () => {
   const player = await signedInUser('record-refused');
   await player.agent

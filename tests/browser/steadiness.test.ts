@@ -17,9 +17,9 @@ const RATE = 22050;
 const INTERVALS = 84; // 21 bars of 4/4
 
 /** A WAV of clicks whose k-th beat interval is played at bpmOf(k), from 0.5 s, accented every 4th beat. */
-function takeFile(name: string, bpmOf: (k: number) => number): string {
+function takeFile(name: string, bpmOf: (k: number) => number, intervals = INTERVALS): string {
   const beats = [0.5];
-  for (let k = 0; k < INTERVALS; k++) beats.push(beats[beats.length - 1]! + 60 / bpmOf(k));
+  for (let k = 0; k < intervals; k++) beats.push(beats[beats.length - 1]! + 60 / bpmOf(k));
   const accents = new Set(beats.map((_, i) => i).filter((i) => i % 4 === 0));
   const samples = clickTrack(beats, beats[beats.length - 1]! + 1.5, RATE, accents);
   const wav = new WaveFile();
@@ -198,3 +198,50 @@ test('the song screen lays two takes over each other by bar and shows the trend 
     await context.close();
   }
 });
+
+test('with eight takes the Compare card lists each recording once, one line apiece with its A and B', async () => {
+  const player = await signedInUser('compare-many');
+  const song = (await player.agent.post('/api/songs').send({ title: 'Mill Race Two-Step', meter: '4/4' }).expect(201))
+    .body;
+  // Eight short takes (eight bars each), a little faster each time: 112, 113, … 119 BPM.
+  const ids: string[] = [];
+  for (let n = 0; n < 8; n++) {
+    const name = `take-${n + 1}`;
+    const id = (
+      await player.agent
+        .post(`/api/songs/${song.id}/recordings`)
+        .field('kind', 'take')
+        .attach(
+          'file',
+          takeFile(name, () => 112 + n, 32),
+          `${name}.wav`,
+        )
+        .expect(201)
+    ).body.id;
+    ids.push(id);
+  }
+  for (const id of ids) expect((await waitForAnalysis(player.agent, id, 120_000)).status).toBe('done');
+  const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+  const page = await context.newPage();
+  await signInThroughApp(page, player.email, PASSWORD);
+  await page.goto(`${baseUrl}/songs/${song.id}`);
+  await page.getByTestId('take-comparison').waitFor();
+  const choices = page.getByTestId('compare-choices');
+  expect(await choices.locator('[data-testid^="compare-first-"]').count()).toBe(8);
+  expect(await choices.locator('[data-testid^="compare-second-"]').count()).toBe(8);
+  // One line per take: eight rows of a 44 px touch target and their gaps, not two wrapped lists of names.
+  const box = await choices.boundingBox();
+  expect(box!.height).toBeLessThanOrEqual(8 * (44 + 8));
+  // A on the first take and B on the last: the summary names them in that order.
+  await page.getByTestId(`compare-first-${ids[0]}`).click();
+  await page.getByTestId(`compare-second-${ids[7]}`).click();
+  await page
+    .getByTestId('comparison-summary')
+    .filter({ hasText: /^Against take-1\.wav, take-8\.wav is/ })
+    .waitFor();
+  await page.getByTestId('take-comparison-card').scrollIntoViewIfNeeded();
+  await page
+    .getByTestId('take-comparison-card')
+    .screenshot({ path: path.join(outputDir, 'compare-eight-takes-phone.png') });
+  await context.close();
+}, 240_000);

@@ -80,9 +80,9 @@ export default function RecordingScreen() {
             ) : null}
           </Card>
           {bpm !== null ? (
-            // A new grid (tempo, level, bar 1, nudge) makes a new player with it.
+            // A corrected grid (tempo, level, bar 1, nudge) reaches the same player: the audio is not decoded again.
             <AuditionPanel
-              key={`${r.id}-${bpm}-${r.barOneSec}-${r.nudgeMs}`}
+              key={r.id}
               recording={r}
               song={song}
               peaks={peaks}
