@@ -257,7 +257,9 @@ export function LineChart({
     );
     const labelRows = rangeLabels.length ? Math.max(...rangeLabels.map((l) => l.row)) + 1 : 0;
     const top = FONT_SIZE + space.md + labelRows * (FONT_SIZE + space.xs);
-    const plotH = Math.max(40, height - top - bottom);
+    // Rows of range labels beyond the first add to the drawing's height rather than take it from the plot.
+    const drawnHeight = height + Math.max(0, labelRows - 1) * (FONT_SIZE + space.xs);
+    const plotH = Math.max(40, drawnHeight - top - bottom);
     y.range([top + plotH, top]);
     const xTicks = fitTicks(x, plotW, (t) => textWidth(formatX(t)), {
       integer: integerX,
@@ -289,7 +291,7 @@ export function LineChart({
       top + FONT_SIZE / 2,
       top + plotH - FONT_SIZE / 2,
     );
-    return { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs, labelled, rangeLabels };
+    return { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs, labelled, rangeLabels, drawnHeight };
   }, [
     series,
     referenceLines,
@@ -307,19 +309,19 @@ export function LineChart({
     height,
   ]);
 
-  const { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs, labelled, rangeLabels } = chart;
+  const { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs, labelled, rangeLabels, drawnHeight } = chart;
   const label = { fontFamily: fonts.body, fontSize: FONT_SIZE };
 
   return (
     <View style={{ width: '100%', gap: space.xs }}>
       <View
         onLayout={onLayout}
-        style={{ width: '100%', height }}
+        style={{ width: '100%', height: drawnHeight }}
         role="img"
         accessibilityLabel={accessibilityLabel}
         testID={testID}
       >
-        <Svg width={width} height={height}>
+        <Svg width={width} height={drawnHeight}>
           {ranges.map((r, i) => (
             <G key={`range-${i}`}>
               <Rect
@@ -380,7 +382,7 @@ export function LineChart({
             </SvgText>
           ) : null}
           {xLabel ? (
-            <SvgText x={left + plotW / 2} y={height - space.xs} textAnchor="middle" fill={colors.muted} {...label}>
+            <SvgText x={left + plotW / 2} y={drawnHeight - space.xs} textAnchor="middle" fill={colors.muted} {...label}>
               {xLabel}
             </SvgText>
           ) : null}

@@ -75,4 +75,16 @@ test('labels of neighbouring shaded ranges never print over each other, and the 
   // Every label sits above the plot, whose top is the bands' top.
   const top = Number(container.querySelector('rect')!.getAttribute('y'));
   for (const l of labels) expect(l.y).toBeLessThan(top);
+  // The extra rows add to the drawing's height; the plot keeps the height it has with one row of labels.
+  const oneRow = render(
+    <LineChart
+      series={[{ id: 'a', label: 'tempo', points: bars }]}
+      ranges={[{ from: 85, to: 87, label: 'rushes' }]}
+      accessibilityLabel="one band"
+    />,
+  ).container.querySelector('rect')!;
+  expect(Number(container.querySelector('rect')!.getAttribute('height'))).toBeCloseTo(
+    Number(oneRow.getAttribute('height')),
+    5,
+  );
 });
