@@ -11,8 +11,8 @@ const COLUMNS = [
   { label: 'Composer or artist', flex: 2.2 },
   { label: 'Key', flex: 1.2 },
   { label: 'Time sig.', flex: 0.9 },
-  { label: 'Working / goal', flex: 1.8 },
-  { label: 'Chosen', flex: 1 },
+  { label: 'Working / goal BPM', flex: 1.8 },
+  { label: 'Chosen BPM', flex: 1 },
   { label: 'Last practised', flex: 1.5 },
 ] as const;
 
