@@ -128,7 +128,7 @@ function StudentCard({ student: s }: { student: Student }) {
         {s.email} · {plural(s.songCount, 'song')}
       </Small>
       {s.songCount === 0 ? (
-        <Small muted={false}>No songs yet. When {s.name} adds a song, its tempos, takes and practice show here.</Small>
+        <Small muted={false}>No songs yet: their songs, takes and practice show here once they add one.</Small>
       ) : null}
       {s.songs.map((song) => (
         <View key={song.id} style={{ gap: space.xs, paddingVertical: space.xs }} testID="student-song">
