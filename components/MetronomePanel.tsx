@@ -88,16 +88,17 @@ export function MetronomePanel({
             setRunning(!running);
           }}
         />
-        <Level
-          label="Click"
-          value={level}
-          onChange={(v) => {
-            clock.current?.setVolume(v);
-            setLevel(v);
-          }}
-          testID="metronome-level"
-        />
       </Row>
+      {/* The level on a line of its own: beside Start, "Click" read as part of the button's words. */}
+      <Level
+        label="Click"
+        value={level}
+        onChange={(v) => {
+          clock.current?.setVolume(v);
+          setLevel(v);
+        }}
+        testID="metronome-level"
+      />
       <Notice tone="caution">
         Keep the click moderate, above all in headphones: long listening at high levels harms hearing (WHO–ITU H.870,
         safe listening).

@@ -25,9 +25,13 @@ export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: num
       </Small>
     );
   return (
-    <View style={{ gap: space.xs }} testID="practice-log">
+    // Entries further apart than an entry's own lines, so each line's details read with its heading, not the next.
+    <View style={{ gap: space.md }} testID="practice-log">
       {entries.slice(0, limit).map((e) => (
-        <View key={e.id} style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'baseline' }}>
+        <View
+          key={e.id}
+          style={{ flexDirection: 'row', flexWrap: 'wrap', columnGap: space.sm, rowGap: 2, alignItems: 'baseline' }}
+        >
           <Text style={[type.label, { color: colors.ink }]}>
             {e.passage ?? 'Whole piece'}
             {bars(e) && bars(e) !== e.passage ? ` (${bars(e)})` : ''}:{' '}

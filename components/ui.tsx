@@ -171,7 +171,8 @@ export function Chip({
       disabled={disabled}
       style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [
         styles.chip,
-        compact && { minWidth: layout.minTouch, paddingHorizontal: 0 },
+        // Narrower than a chip, never flush: a word on a compact chip must not touch its border.
+        compact && { minWidth: layout.minTouch, paddingHorizontal: space.sm },
         selected && { backgroundColor: colors.teal, borderColor: colors.teal },
         !selected && (pressed || hovered) && { backgroundColor: colors.tealSoft },
         disabled && { opacity: 0.5 },

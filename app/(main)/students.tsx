@@ -127,6 +127,9 @@ function StudentCard({ student: s }: { student: Student }) {
       <Small>
         {s.email} · {plural(s.songCount, 'song')}
       </Small>
+      {s.songCount === 0 ? (
+        <Small muted={false}>No songs yet: their songs, takes and practice show here once they add one.</Small>
+      ) : null}
       {s.songs.map((song) => (
         <View key={song.id} style={{ gap: space.xs, paddingVertical: space.xs }} testID="student-song">
           <Pressable
@@ -151,7 +154,6 @@ function StudentCard({ student: s }: { student: Student }) {
               {song.recentTakes.map((t) => (
                 <Chip
                   key={t.id}
-                  compact
                   label={`${t.label ?? 'Take'} · ${formatDate(t.createdAt)}`}
                   onPress={() => router.navigate(`/recordings/${t.id}`)}
                 />

@@ -13,7 +13,9 @@ import { formatDate } from '@/shared/format';
 const answered: Record<string, string> = {
   accepted: 'This invitation has been accepted.',
   declined: 'This invitation was declined.',
-  withdrawn: 'The teacher withdrew this invitation.',
+  // Sending a new invitation to the same address also withdraws the pending one, so an older mail's link lands here.
+  withdrawn:
+    'This link no longer works: the teacher withdrew the invitation or sent a newer one. Use the link in their latest e-mail.',
   expired: 'This invitation has expired. Ask your teacher to send a new one.',
 };
 

@@ -150,6 +150,30 @@ export function spreadLabels(ys: number[], gap: number, top: number, bottom: num
   return out;
 }
 
+/** One label over a shaded x-range: its centre and its row above the plot (0 is the row nearest to it). */
+export interface RangeLabelPlace {
+  x: number;
+  row: number;
+}
+
+/**
+ * Places the labels of shaded x-ranges (wanted centred at `centres`, `widths` wide) inside [minX, maxX] so none
+ * touches another: each goes on the lowest row where it clears the labels already there, so neighbouring bands
+ * ("rushes", "rubato", "rushes") all stay readable instead of printing over each other.
+ */
+export function placeRangeLabels(centres: number[], widths: number[], minX: number, maxX: number): RangeLabelPlace[] {
+  const rows: { from: number; to: number }[][] = [];
+  return centres.map((c, i) => {
+    const half = widths[i]! / 2;
+    const x = Math.min(Math.max(c, minX + half), Math.max(minX + half, maxX - half));
+    const span = { from: x - half - LABEL_GAP / 2, to: x + half + LABEL_GAP / 2 };
+    let row = rows.findIndex((taken) => taken.every((t) => span.to <= t.from || span.from >= t.to));
+    if (row < 0) row = rows.push([]) - 1;
+    rows[row]!.push(span);
+    return { x, row };
+  });
+}
+
 /** Points thinned to what `width` pixels can show: per column of PX_PER_POINT, the lowest and highest kept in order. */
 export function thinPoints(points: Point[], toPx: (x: number) => number, width: number): Point[] {
   if (points.length <= width / PX_PER_POINT) return points;
@@ -219,14 +243,23 @@ export function LineChart({
     const right = referenceLines.length
       ? Math.ceil(Math.max(...referenceLines.map((r) => textWidth(r.label)))) + space.sm * 2
       : space.md;
-    const top = FONT_SIZE + space.md + (ranges.some((r) => r.label) ? FONT_SIZE + space.xs : 0);
     const bottom = FONT_SIZE + space.md + (xLabel ? FONT_SIZE + space.xs : 0);
     const plotW = Math.max(40, width - left - right);
-    const plotH = Math.max(40, height - top - bottom);
-
     const x = scaleLinear()
       .domain(xs)
       .range([left, left + plotW]);
+    const labelled = ranges.filter((r) => r.label);
+    const rangeLabels = placeRangeLabels(
+      labelled.map((r) => (x(r.from) + x(r.to)) / 2),
+      labelled.map((r) => textWidth(r.label!)),
+      0,
+      width,
+    );
+    const labelRows = rangeLabels.length ? Math.max(...rangeLabels.map((l) => l.row)) + 1 : 0;
+    const top = FONT_SIZE + space.md + labelRows * (FONT_SIZE + space.xs);
+    // Rows of range labels beyond the first add to the drawing's height rather than take it from the plot.
+    const drawnHeight = height + Math.max(0, labelRows - 1) * (FONT_SIZE + space.xs);
+    const plotH = Math.max(40, drawnHeight - top - bottom);
     y.range([top + plotH, top]);
     const xTicks = fitTicks(x, plotW, (t) => textWidth(formatX(t)), {
       integer: integerX,
@@ -258,7 +291,7 @@ export function LineChart({
       top + FONT_SIZE / 2,
       top + plotH - FONT_SIZE / 2,
     );
-    return { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs };
+    return { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs, labelled, rangeLabels, drawnHeight };
   }, [
     series,
     referenceLines,
@@ -276,19 +309,19 @@ export function LineChart({
     height,
   ]);
 
-  const { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs } = chart;
+  const { x, y, left, top, plotW, plotH, xTicks, yTicks, drawn, refYs, labelled, rangeLabels, drawnHeight } = chart;
   const label = { fontFamily: fonts.body, fontSize: FONT_SIZE };
 
   return (
     <View style={{ width: '100%', gap: space.xs }}>
       <View
         onLayout={onLayout}
-        style={{ width: '100%', height }}
+        style={{ width: '100%', height: drawnHeight }}
         role="img"
         accessibilityLabel={accessibilityLabel}
         testID={testID}
       >
-        <Svg width={width} height={height}>
+        <Svg width={width} height={drawnHeight}>
           {ranges.map((r, i) => (
             <G key={`range-${i}`}>
               <Rect
@@ -299,18 +332,19 @@ export function LineChart({
                 fill={r.color ?? colors.amberSoft}
                 opacity={0.7}
               />
-              {r.label ? (
-                <SvgText
-                  x={(x(r.from) + x(r.to)) / 2}
-                  y={top - space.xs}
-                  textAnchor="middle"
-                  fill={colors.muted}
-                  {...label}
-                >
-                  {r.label}
-                </SvgText>
-              ) : null}
             </G>
+          ))}
+          {labelled.map((r, i) => (
+            <SvgText
+              key={`range-label-${i}`}
+              x={rangeLabels[i]!.x}
+              y={top - space.xs - rangeLabels[i]!.row * (FONT_SIZE + space.xs)}
+              textAnchor="middle"
+              fill={colors.muted}
+              {...label}
+            >
+              {r.label}
+            </SvgText>
           ))}
           {yTicks.map((t) => (
             <G key={`y-${t}`}>
@@ -348,7 +382,7 @@ export function LineChart({
             </SvgText>
           ) : null}
           {xLabel ? (
-            <SvgText x={left + plotW / 2} y={height - space.xs} textAnchor="middle" fill={colors.muted} {...label}>
+            <SvgText x={left + plotW / 2} y={drawnHeight - space.xs} textAnchor="middle" fill={colors.muted} {...label}>
               {xLabel}
             </SvgText>
           ) : null}

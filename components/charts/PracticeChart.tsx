@@ -60,9 +60,10 @@ export function PracticeChart({
   );
   if (points.length === 0) return null;
   const ys = [...points.map((p) => p.y), ...refs.map((r) => r.y)];
-  const first = Math.floor(points[0]!.x);
-  // At least a week wide, so one day's sessions do not stretch across the whole chart.
-  const last = Math.max(Math.ceil(points[points.length - 1]!.x), first + 7);
+  // Ends at the last session, never later: a practice chart has no days to come. At least a week wide, reaching
+  // back, so one day's sessions do not stretch across the whole chart.
+  const last = points[points.length - 1]!.x;
+  const first = Math.min(Math.floor(points[0]!.x), Math.floor(last) - 7);
   return (
     <View style={{ gap: space.xs }} testID={testID}>
       <Small muted={false}>{title}</Small>

@@ -9,10 +9,10 @@ import type { LibrarySong } from '@/shared/schemas';
 const COLUMNS = [
   { label: 'Title', flex: 3 },
   { label: 'Composer or artist', flex: 2.2 },
-  { label: 'Key', flex: 1.2 },
+  { label: 'Key', flex: 1 },
   { label: 'Time sig.', flex: 0.9 },
-  { label: 'Working / goal', flex: 1.8 },
-  { label: 'Chosen', flex: 1 },
+  { label: 'Working / goal BPM', flex: 1.8 },
+  { label: 'Chosen BPM', flex: 1.2 },
   { label: 'Last practised', flex: 1.5 },
 ] as const;
 

@@ -43,3 +43,48 @@ test('labels of reference lines one BPM apart are pushed apart so both stay read
   // The faster tempo's label stays the higher one.
   expect(y('chosen 105')).toBeLessThan(y('goal 104'));
 });
+
+test('labels of neighbouring shaded ranges never print over each other, and the bands keep their places', () => {
+  // A take's end as the steadiness report draws it at phone width: rushing in bars 85–86, a rubato mark over
+  // 87–91, rushing again in 92–100 — three bands a few pixels apart, each with its word.
+  const bars = Array.from({ length: 100 }, (_, i) => ({ x: i + 1, y: 118 + i / 10 }));
+  const { container } = render(
+    <LineChart
+      series={[{ id: 'a', label: 'tempo', points: bars }]}
+      ranges={[
+        { from: 85, to: 87, label: 'rushes' },
+        { from: 87, to: 92, label: 'rubato' },
+        { from: 92, to: 101, label: 'rushes' },
+      ]}
+      accessibilityLabel="test chart"
+    />,
+  );
+  const labels = [...container.querySelectorAll('text')]
+    .filter((t) => t.textContent === 'rushes' || t.textContent === 'rubato')
+    .map((t) => ({ x: Number(t.getAttribute('x')), y: Number(t.getAttribute('y')), w: t.textContent!.length * 7.2 }));
+  expect(labels).toHaveLength(3);
+  for (let i = 0; i < labels.length; i++)
+    for (let j = i + 1; j < labels.length; j++) {
+      const [a, b] = [labels[i]!, labels[j]!];
+      const apartSideways = Math.abs(a.x - b.x) >= (a.w + b.w) / 2;
+      const apartUpDown = Math.abs(a.y - b.y) >= 12;
+      expect(apartSideways || apartUpDown).toBe(true);
+    }
+  // Every label stays inside the drawing (320 px before layout), none cut off at the right edge.
+  for (const l of labels) expect(l.x + l.w / 2).toBeLessThanOrEqual(320);
+  // Every label sits above the plot, whose top is the bands' top.
+  const top = Number(container.querySelector('rect')!.getAttribute('y'));
+  for (const l of labels) expect(l.y).toBeLessThan(top);
+  // The extra rows add to the drawing's height; the plot keeps the height it has with one row of labels.
+  const oneRow = render(
+    <LineChart
+      series={[{ id: 'a', label: 'tempo', points: bars }]}
+      ranges={[{ from: 85, to: 87, label: 'rushes' }]}
+      accessibilityLabel="one band"
+    />,
+  ).container.querySelector('rect')!;
+  expect(Number(container.querySelector('rect')!.getAttribute('height'))).toBeCloseTo(
+    Number(oneRow.getAttribute('height')),
+    5,
+  );
+});
