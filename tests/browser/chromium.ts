@@ -2,7 +2,7 @@
 // playwright gives every launch a fresh, empty profile of its own.
 import fs from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type Locator, type Page } from 'playwright-core';
 import { baseUrl } from '@/tests/api/helpers';
 
 export const outputDir = path.resolve(__dirname, '../../test-output');
@@ -40,4 +40,20 @@ export async function signInThroughApp(page: Page, email: string, password: stri
   await page.getByTestId('password').fill(password);
   await page.getByTestId('sign-in').click();
   await page.getByTestId('library').waitFor();
+}
+
+/**
+ * A screenshot of one element that a layout change (a new viewport width) may still be re-mounting: taken
+ * again, a few times, once the element is attached anew.
+ */
+export async function screenshotOf(element: Locator, file: string) {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await element.screenshot({ path: file });
+      return;
+    } catch (e) {
+      if (attempt >= 4 || !/not attached/.test((e as Error).message)) throw e;
+      await element.waitFor();
+    }
+  }
 }

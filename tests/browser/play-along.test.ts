@@ -10,8 +10,9 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
-import { launchChromium, outputDir, signInThroughApp } from './chromium';
+import type { Browser } from 'playwright-core';
+import { launchChromium, outputDir, screenshotOf, signInThroughApp } from './chromium';
+import { launchWithFakeMicrophone, seenLiveMarks, watchLiveMarks } from './live-marks';
 import { baseUrl, PASSWORD, signedInUser, waitForAnalysis } from '@/tests/api/helpers';
 import { hitTrainWav } from '@/fixtures/live-takes';
 import { ALONG_MARGIN_SEC } from '@/client/live-session';
@@ -31,26 +32,6 @@ afterAll(async () => {
   await browser?.close();
   fs.rmSync(dir, { recursive: true, force: true });
 });
-
-/** Every live mark as it appears (the card shows only the last few), from its spoken label. */
-async function watchMarks(page: Page) {
-  await page.evaluate(() => {
-    const w = window as unknown as { seenMarks: string[] };
-    w.seenMarks = [];
-    new MutationObserver((records) => {
-      for (const r of records)
-        r.addedNodes.forEach((n) => {
-          if (!(n instanceof HTMLElement)) return;
-          const marks = n.matches('[data-testid="live-mark"]')
-            ? [n]
-            : Array.from(n.querySelectorAll<HTMLElement>('[data-testid="live-mark"]'));
-          for (const m of marks) w.seenMarks.push(m.getAttribute('aria-label') ?? '');
-        });
-    }).observe(document.body, { childList: true, subtree: true });
-  });
-}
-
-const seen = (page: Page) => page.evaluate(() => (window as unknown as { seenMarks: string[] }).seenMarks);
 
 test('play along with a reference at 80 %: each beat marked against the reference within ±10 ms, rushing at once, the take kept', async () => {
   const player = await signedInUser('play-along');
@@ -79,11 +60,7 @@ test('play along with a reference at 80 %: each beat marked against the referenc
   const mic = path.join(dir, 'along.wav');
   // Two seconds past the last hit: the run is stopped before Chromium loops the file.
   fs.writeFileSync(mic, hitTrainWav(hits, 48000, hits[hits.length - 1]! + 2, SILENT));
-  browser = await launchChromium([
-    '--use-fake-device-for-media-stream',
-    '--use-fake-ui-for-media-stream',
-    `--use-file-for-fake-audio-capture=${mic}`,
-  ]);
+  browser = await launchWithFakeMicrophone(mic);
 
   const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
   await context.grantPermissions(['microphone']);
@@ -102,7 +79,7 @@ test('play along with a reference at 80 %: each beat marked against the referenc
   await page.getByTestId('playback-percent').filter({ hasText: '80 %' }).waitFor();
   await page.getByTestId('play-along').getByText('nothing leaves this browser', { exact: false }).waitFor();
 
-  await watchMarks(page);
+  await watchLiveMarks(page);
   await page.getByTestId('play-along-start').click();
   await page.getByTestId('live-view').waitFor();
   // The stretch method whose heard offset the file was made for.
@@ -135,10 +112,11 @@ test('play along with a reference at 80 %: each beat marked against the referenc
   await page.getByTestId('play-along-stop').click();
   await page.getByTestId('play-along').getByTestId('take-review').waitFor();
   await page.setViewportSize({ width: 390, height: 844 });
-  await page.getByTestId('play-along').screenshot({ path: path.join(outputDir, 'play-along-review-phone.png') });
+  // The phone layout moves the card under the player: it is re-mounted.
+  await screenshotOf(page.getByTestId('play-along'), path.join(outputDir, 'play-along-review-phone.png'));
   await page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
 
-  const labels = (await seen(page)).slice(0, STEADY + RUSHING);
+  const labels = (await seenLiveMarks(page)).slice(0, STEADY + RUSHING);
   const marks = labels.map((l) => {
     const m = /^Bar (\d+), beat (\d+): (\d+) ms (early|late), (\w+)$/.exec(l);
     if (!m) throw new Error(`unexpected mark label: ${l}`);

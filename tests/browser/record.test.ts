@@ -7,7 +7,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
-import { launchChromium, outputDir, signInThroughApp } from './chromium';
+import { outputDir, screenshotOf, signInThroughApp } from './chromium';
+import { launchWithFakeMicrophone, seenLiveMarks, watchLiveMarks } from './live-marks';
 import { PASSWORD, signedInUser } from '@/tests/api/helpers';
 import { hitTrainWav, steadyThenRushing } from '@/fixtures/live-takes';
 import { OFFSET_TOLERANCE_MS } from '@/audio/live/feedback';
@@ -34,11 +35,7 @@ fs.writeFileSync(MIC, hitTrainWav(known.times, 48000, LEAD + (STEADY + RUSHING) 
 
 let browser: Browser;
 beforeAll(async () => {
-  browser = await launchChromium([
-    '--use-fake-device-for-media-stream',
-    '--use-fake-ui-for-media-stream',
-    `--use-file-for-fake-audio-capture=${MIC}`,
-  ]);
+  browser = await launchWithFakeMicrophone(MIC);
 });
 afterAll(async () => {
   await browser?.close();
@@ -51,29 +48,11 @@ interface SeenMark {
   state: string;
 }
 
-/** Every live mark as it appears (the card shows only the last few): read from its spoken label. */
-async function watchMarks(page: Page) {
-  await page.evaluate(() => {
-    const w = window as unknown as { seenMarks: string[] };
-    w.seenMarks = [];
-    new MutationObserver((records) => {
-      for (const r of records)
-        r.addedNodes.forEach((n) => {
-          if (!(n instanceof HTMLElement)) return;
-          const marks = n.matches('[data-testid="live-mark"]')
-            ? [n]
-            : Array.from(n.querySelectorAll<HTMLElement>('[data-testid="live-mark"]'));
-          for (const m of marks) w.seenMarks.push(m.getAttribute('aria-label') ?? '');
-        });
-    }).observe(document.body, { childList: true, subtree: true });
-  });
-}
-
 /** The file's beat number of a mark labelled "Bar b, beat k" (bar 1, beat 1 follows the one-bar count-in). */
 const fileBeat = (bar: number, beat: number) => PER_BAR + (bar - 1) * PER_BAR + (beat - 1);
 
 async function seenMarks(page: Page): Promise<SeenMark[]> {
-  const labels = await page.evaluate(() => (window as unknown as { seenMarks: string[] }).seenMarks);
+  const labels = await seenLiveMarks(page);
   return labels.map((l) => {
     const m = /^Bar (\d+), beat (\d+): (\d+) ms (early|late), (\w+)$/.exec(l);
     if (!m) throw new Error(`unexpected mark label: ${l}`);
@@ -111,7 +90,7 @@ test('calibrate, record against the click with live feedback, keep the take and 
   expect(Math.abs(stored.latencyMs)).toBeLessThan(PERIOD * 500);
 
   // The run: watch every mark appear, stop once the last rushed beat is marked.
-  await watchMarks(page);
+  await watchLiveMarks(page);
   await page.getByTestId('record-start').click();
   await page.getByTestId('live-view').waitFor();
   await page.getByTestId('input-level').waitFor();
@@ -124,7 +103,7 @@ test('calibrate, record against the click with live feedback, keep the take and 
   );
   await page.screenshot({ path: path.join(outputDir, 'record-live-phone.png'), fullPage: true });
   await page.setViewportSize({ width: 1280, height: 800 });
-  await page.getByTestId('live-view').screenshot({ path: path.join(outputDir, 'record-live-desktop.png') });
+  await screenshotOf(page.getByTestId('live-view'), path.join(outputDir, 'record-live-desktop.png'));
   await page.setViewportSize({ width: 390, height: 844 });
   expect(await page.getByTestId('live-state').innerText()).toBe('Rushing');
   await page.getByTestId('record-stop').click();
@@ -200,7 +179,7 @@ test('a discarded take is never sent: no new recording, the take list unchanged,
   });
 
   // A take of a few beats after the count-in, stopped, then discarded.
-  await watchMarks(page);
+  await watchLiveMarks(page);
   await page.getByTestId('record-start').click();
   await page.waitForFunction(() => (window as unknown as { seenMarks: string[] }).seenMarks.length >= 3, null, {
     timeout: 30_000,
@@ -249,7 +228,7 @@ test('a refused microphone gets a plain message, and the rest of the song page s
   await page.getByTestId('record-panel').getByRole('button', { name: '+1' }).click();
   await page.getByTestId('record-bpm').getByText('91 BPM').waitFor();
   await page.setViewportSize({ width: 1280, height: 900 });
-  await page.getByTestId('record-panel').screenshot({ path: path.join(outputDir, 'record-refused-desktop.png') });
+  await screenshotOf(page.getByTestId('record-panel'), path.join(outputDir, 'record-refused-desktop.png'));
   expect(errors).toEqual([]);
   await context.close();
 });
