@@ -2,8 +2,10 @@
 // beat grid as the player feels it, the transport, the tempo control, playing along with live feedback, the beat
 // you feel, candidate tempos, saved passages and the loop with step-up practice, the levels of click and music,
 // and export as WAV. On a phone a compact transport stays on screen above the navigation; on a wide screen the
-// waveform and transport stay in view while the side column scrolls. What each part does lives in audition/: the
-// session hook joins them, the cards draw them.
+// waveform and transport stay in view while the side column scrolls. A teacher on a phone, reading a student's
+// recording, finds the notes first (above the player; the compact transport still plays from them), since writing
+// and reading notes is what they came for; the player's own view keeps the player first. What each part does
+// lives in audition/: the session hook joins them, the cards draw them.
 import React from 'react';
 import { useWindowDimensions, View } from 'react-native';
 import { layout, space } from './theme';
@@ -42,6 +44,9 @@ export function AuditionPanel({
   const candidates = <CandidatesCard s={s} song={song} canEdit={canEdit} wide={wide} />;
   const steadiness = <SteadinessCard s={s} recording={recording} song={song} canEdit={canEdit} />;
   const playAlong = <PlayAlongCard s={s} song={song} />;
+  const notes = <NotesCard s={s} recording={recording} />;
+  // Someone who may write notes but not change the recording: the player's teacher.
+  const teacherReading = !canEdit && recording.permissions.note;
 
   if (wide) {
     // The player column keeps the waveform and transport at the top of the view; the side column scrolls past.
@@ -49,7 +54,7 @@ export function AuditionPanel({
       <View style={{ flexDirection: 'row', gap: space.lg }}>
         <View style={{ flex: 3, gap: space.lg }}>
           {player}
-          <NotesCard s={s} recording={recording} />
+          {notes}
           {steadiness}
           {beatFeel}
         </View>
@@ -65,9 +70,10 @@ export function AuditionPanel({
   }
   return (
     <View style={{ gap: space.lg }}>
+      {teacherReading ? notes : null}
       {player}
       {playAlong}
-      <NotesCard s={s} recording={recording} />
+      {teacherReading ? null : notes}
       {steadiness}
       {passages}
       {candidates}

@@ -1,5 +1,6 @@
 // Candidate tempos: add the tempo you are hearing, hop between candidates with one tap (or the number keys),
-// rate each and write a line on it, then mark one as the song's chosen tempo with a note.
+// rate each and write a line on it, then mark one as the song's chosen tempo with a note. A reader who cannot add
+// (a teacher on a student's song) hops between the player's candidates and is told where a suggestion goes.
 import React, { useState } from 'react';
 import { Text, View } from 'react-native';
 import { Button, Chip, Field, Notice, Row, Small } from '@/components/ui';
@@ -8,6 +9,12 @@ import { formatBpm, tenth } from '@/shared/format';
 import { addCandidate, changeCandidate, chooseTempo, removeCandidate, useCandidates } from '@/client/hooks';
 import { useAction } from '@/client/useAction';
 import type { Candidate, Song } from '@/shared/schemas';
+
+/** For a reader who cannot add, rate or choose: what they can do here instead. */
+export const READER_HINT = {
+  none: 'The player has not added candidate tempos yet. To suggest a tempo, try it with the tempo control and say so in a note; working and goal tempos are set on the song screen.',
+  some: "Tap a candidate to hear the recording at that tempo. Adding, rating and choosing are the player's; suggest a tempo in a note.",
+} as const;
 
 export function CandidateTempos({
   song,
@@ -53,9 +60,13 @@ export function CandidateTempos({
         ) : null}
       </Row>
       {add.error ? <Notice tone="error">{add.error}</Notice> : null}
-      {list.length === 0 ? (
-        <Small>Try a few tempos, add the ones worth comparing, then hop between them while the music plays.</Small>
-      ) : null}
+      {canEdit ? (
+        list.length === 0 ? (
+          <Small>Try a few tempos, add the ones worth comparing, then hop between them while the music plays.</Small>
+        ) : null
+      ) : (
+        <Small>{READER_HINT[list.length === 0 ? 'none' : 'some']}</Small>
+      )}
       {wide && list.length > 1 ? <Small>Keys 1–9 hop between candidates; the music keeps its place.</Small> : null}
       {list.map((c) => (
         <CandidateRow key={c.id} candidate={c} song={song} canEdit={canEdit} current={Math.abs(c.bpm - bpm) < 0.05} />

@@ -211,16 +211,23 @@ export function PlayerWaveform({
   const pct = (t: number) => `${(t / durationSec) * 100}%` as const;
 
   const [goTo, setGoTo] = useState('');
+  const whole = useRef<View>(null);
   const goToBar = () => {
     const n = Math.round(Number(goTo));
     const t = downbeats[n - 1];
     if (t === undefined) return;
     onSeek(t);
     setFrom(windowAround(t, span, durationSec, PAGE_TO).from);
+    // Typing in the field (and a phone's keyboard) scrolls the screen down to it, which can leave the top of the
+    // waveform and its bar numbers out of sight: close the keyboard and bring the whole waveform back into view,
+    // the least scroll that does it, to see the bar just gone to. On the web a View is its DOM element.
+    if (typeof document !== 'undefined') (document.activeElement as HTMLElement | null)?.blur?.();
+    (whole.current as unknown as HTMLElement | null)?.scrollIntoView?.({ block: 'nearest' });
   };
 
   return (
     <View
+      ref={whole}
       style={{ gap: space.sm }}
       onLayout={(e: LayoutChangeEvent) => setWidth(Math.max(1, Math.floor(e.nativeEvent.layout.width)))}
     >

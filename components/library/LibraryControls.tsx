@@ -1,8 +1,9 @@
-// The library's search box, sort and filter: what the player asks for; the server does the finding.
+// The library's search box, sort and filter: what the player asks for; the server does the finding. The chips wrap
+// onto a second line on a phone rather than run off the edge, so every sort is seen.
 import React from 'react';
-import { ScrollView, useWindowDimensions, View } from 'react-native';
+import { View } from 'react-native';
 import { Chip, Field, Row, Small } from '@/components/ui';
-import { layout, space } from '@/components/theme';
+import { space } from '@/components/theme';
 import type { LibrarySort, LibraryStatus } from '@/shared/schemas';
 
 export const SORT_LABELS: Record<LibrarySort, string> = {
@@ -25,17 +26,6 @@ const STATUS_LABELS: { value: LibraryStatus | null; label: string }[] = [
 ];
 /** The one definition the server applies (LIBRARY_STATUSES in shared/schemas.ts), in the player's words. */
 export const READY_MEANS = 'Ready to perform: the working tempo has reached the goal tempo.';
-
-/** Chips in one line: wrapped on a wide screen, a sideways scroll on a phone so the songs start higher up. */
-function ChipLine({ children }: { children: React.ReactNode }) {
-  const wide = useWindowDimensions().width >= layout.wideFrom;
-  if (wide) return <Row>{children}</Row>;
-  return (
-    <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={{ gap: space.sm }}>
-      {children}
-    </ScrollView>
-  );
-}
 
 export function LibraryControls({
   q,
@@ -67,7 +57,7 @@ export function LibraryControls({
         <Small>
           Sort by {SORT_LABELS[sort].toLowerCase()}, {SORT_HINTS[sort]}
         </Small>
-        <ChipLine>
+        <Row>
           {(Object.keys(SORT_LABELS) as LibrarySort[]).map((key) => (
             <Chip
               key={key}
@@ -78,11 +68,11 @@ export function LibraryControls({
               testID={`sort-${key}`}
             />
           ))}
-        </ChipLine>
+        </Row>
       </View>
       <View style={{ gap: space.xs }}>
         <Small>Show</Small>
-        <ChipLine>
+        <Row>
           {STATUS_LABELS.map(({ value, label }) => (
             <Chip
               key={label}
@@ -92,7 +82,7 @@ export function LibraryControls({
               testID={`status-${value ?? 'all'}`}
             />
           ))}
-        </ChipLine>
+        </Row>
         <Small>{READY_MEANS}</Small>
       </View>
     </View>

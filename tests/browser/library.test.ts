@@ -92,6 +92,17 @@ describe.each(viewports)('library and set lists at $name width', (viewport) => {
     await waitForTitles(page, [...SONGS.map((s) => s.title)].sort());
     expect(await page.getByTestId(viewport.width >= 900 ? 'song-row' : 'song-card').count()).toBe(12);
     await page.screenshot({ path: path.join(outputDir, `library-${viewport.name}.png`), fullPage: true });
+    // Every sort and filter chip is wholly on screen (wrapped onto another line on a phone), none cut off at the edge.
+    const chips = await page
+      .locator('[data-testid^="sort-"], [data-testid^="status-"]')
+      .evaluateAll((els) =>
+        els.map((e) => ({ id: e.getAttribute('data-testid'), ...e.getBoundingClientRect().toJSON() })),
+      );
+    expect(chips.map((c) => c.id)).toContain('sort-progress');
+    for (const c of chips) {
+      expect(c.left).toBeGreaterThanOrEqual(0);
+      expect(c.right).toBeLessThanOrEqual(viewport.width);
+    }
 
     // Search by composer: one tap in the box, a few letters.
     await page.getByTestId('library-search').fill('vahl');

@@ -108,10 +108,33 @@ test('on a phone: bars 57–60 of a 4-minute song found, named, kept, looped and
   expect((await barNumbers(page)).length).toBeLessThanOrEqual(12);
   await page.screenshot({ path: path.join(outputDir, 'long-song-phone-zoomed-out.png') });
 
-  // To bar 57, then 16 seconds (8 bars) across the phone.
+  // To bar 57, then 16 seconds (8 bars) across the phone. The screen is first scrolled as a phone's keyboard leaves
+  // it, the field at the top and the waveform above it out of sight: going to the bar brings the whole waveform,
+  // bar numbers and all, back into view below the top bar, and closes the keyboard.
+  // The position readout before bar 1 (no bar, no beat yet), measured to compare with bar 57's below.
+  const readout = async () => {
+    const box = (await page.getByTestId('position-readout').boundingBox())!;
+    const clock = (await page.getByTestId('playback-position').boundingBox())!;
+    return { height: box.height, clockX: clock.x - box.x };
+  };
+  expect(await page.getByTestId('playback-bar').textContent()).toBe('–');
+  const readoutBefore = await readout();
+  await page.getByTestId('go-to-bar').evaluate((e) => e.scrollIntoView({ block: 'start' }));
+  const screenTop = async () => (await page.getByTestId('recording').boundingBox())!.y;
+  const overviewTop = async () => (await page.getByTestId('waveform-overview').boundingBox())!.y;
+  expect(await overviewTop()).toBeLessThan(await screenTop());
   await page.getByTestId('go-to-bar').fill('57');
   await page.getByTestId('go-to-bar').press('Enter');
   await page.getByTestId('playback-bar').filter({ hasText: /^57$/ }).waitFor();
+  expect(await overviewTop()).toBeGreaterThanOrEqual(await screenTop());
+  expect(await page.getByTestId('go-to-bar').evaluate((e) => e === document.activeElement)).toBe(false);
+  // A bar number and a beat appearing move nothing: the readout keeps its height and the clock its place.
+  await page.getByTestId('playback-beat').filter({ hasText: /^1$/ }).waitFor();
+  expect(await readout()).toEqual(readoutBefore);
+  // Read from a music stand: the bar number is set large (44 px here; body text is 16 px).
+  expect(
+    await page.getByTestId('playback-bar').evaluate((e) => parseFloat(getComputedStyle(e).fontSize)),
+  ).toBeGreaterThanOrEqual(40);
   // From the whole song (240 s) six halvings reach the two-bar floor (4 s); one step back out is 8 s.
   for (let i = 0; i < 6; i++) await page.getByTestId('zoom-in').click();
   await page.getByTestId('zoom-out').click();

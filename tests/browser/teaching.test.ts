@@ -1,7 +1,8 @@
 // A teacher and a student through the whole loop in the browser: the teacher invites a new address, the
 // invitee opens the caught mail's link, signs up, confirms, accepts and uploads a take; the teacher opens it
 // from the Students screen and writes a note at 0:42 and one on bars 9–12; the student sees both and replies;
-// the teacher sees the reply. The teacher works at a desk (1280 px), the student on a phone (390 px).
+// the teacher sees the reply. The teacher works at a desk (1280 px), the student on a phone (390 px); then the
+// teacher's view on a phone: the notes before the player, the candidate tempos saying what a teacher can do.
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -153,6 +154,21 @@ test('invite, sign up through the link, upload a take, notes at a moment and on 
   expect(Math.abs(onBars.endSec! - onBars.startSec! - 8)).toBeLessThan(0.5);
   expect(firstBar).toBeGreaterThan(-0.6);
   expect(stored.find((n) => n.atSec !== null)!.atSec).toBe(42);
+
+  // On a phone the teacher reaches the notes before the player; the student's own view keeps the player first.
+  const top = async (page: Page, testId: string) => (await page.getByTestId(testId).boundingBox())!.y;
+  await t.page.setViewportSize({ width: phone.width, height: phone.height });
+  await t.page.getByTestId('play').filter({ hasText: 'Play' }).waitFor();
+  await t.page.getByTestId('compact-transport').waitFor();
+  expect(await top(t.page, 'notes')).toBeLessThan(await top(t.page, 'audition'));
+  expect(await top(s.page, 'audition')).toBeLessThan(await top(s.page, 'notes'));
+  // The teacher cannot add candidate tempos, so is told what they can do there instead.
+  await t.page
+    .getByTestId('candidates')
+    .getByText(/has not added candidate tempos yet.*say so in a note/)
+    .waitFor();
+  expect(await t.page.getByTestId('add-candidate').count()).toBe(0);
+  await shot(t.page, 'teaching-teacher-notes-phone');
   expect(t.errors).toEqual([]);
   expect(s.errors).toEqual([]);
   await t.context.close();
