@@ -5,7 +5,7 @@ import { ApiRequestError, apiBase, apiFetch, fetcher } from './api';
 import type {
   Candidate,
   Invitation,
-  LibrarySong,
+  SongListItem,
   LibrarySort,
   LibraryStatus,
   Me,
@@ -50,7 +50,7 @@ export function useSongs(query: { q?: string; sort?: LibrarySort; status?: Libra
   if (query.status) params.set('status', query.status);
   const search = params.toString();
   const key = search ? `/api/songs?${search}` : '/api/songs';
-  const { data, error, isLoading, isValidating } = useSWR<{ songs: LibrarySong[] }>(key, fetcher, {
+  const { data, error, isLoading, isValidating } = useSWR<{ songs: SongListItem[] }>(key, fetcher, {
     keepPreviousData: true,
   });
   return { songs: data?.songs, error, isLoading, isValidating };

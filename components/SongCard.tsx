@@ -6,12 +6,11 @@ import { SongTempos } from './TempoLabel';
 import { ProgressToGoal } from './TempoProgress';
 import { colors, radius, space, type } from './theme';
 import { formatDate } from '@/shared/format';
-import type { LibrarySong, Song } from '@/shared/schemas';
+import type { SongListItem } from '@/shared/schemas';
 
 /** A song in the library on a phone: what it is, its tempos, how far toward the goal, when last practised. */
-export function SongCard({ song }: { song: Song | LibrarySong }) {
+export function SongCard({ song }: { song: SongListItem }) {
   const router = useRouter();
-  const library = 'ready' in song ? song : null;
   return (
     <Pressable
       role="link"
@@ -26,7 +25,7 @@ export function SongCard({ song }: { song: Song | LibrarySong }) {
             </Text>
             <Small>{[song.composer, song.key, song.meter].filter(Boolean).join(' · ')}</Small>
           </View>
-          {library?.ready ? (
+          {song.ready ? (
             <Text
               style={[
                 type.small,
@@ -44,14 +43,10 @@ export function SongCard({ song }: { song: Song | LibrarySong }) {
           ) : null}
         </View>
         <SongTempos working={song.workingBpm} goal={song.goalBpm} chosen={song.chosenBpm} />
-        {song.goalBpm !== null && !library?.ready ? (
-          <ProgressToGoal working={song.workingBpm} goal={song.goalBpm} />
-        ) : null}
-        {library ? (
-          <Small>
-            {library.lastPractisedAt ? `Last practised ${formatDate(library.lastPractisedAt)}` : 'Not practised yet'}
-          </Small>
-        ) : null}
+        {song.goalBpm !== null && !song.ready ? <ProgressToGoal working={song.workingBpm} goal={song.goalBpm} /> : null}
+        <Small>
+          {song.lastPractisedAt ? `Last practised ${formatDate(song.lastPractisedAt)}` : 'Not practised yet'}
+        </Small>
       </Card>
     </Pressable>
   );

@@ -128,8 +128,21 @@ export const SongListQuerySchema = z
   })
   .strict();
 export type SongListQuery = z.infer<typeof SongListQuerySchema>;
-/** A song as the library lists it: with when it was last practised, its counts and where it stands. */
-export const LibrarySongSchema = SongSchema.extend({
+/**
+ * A song as the library lists it: only what the library's screens show (the table, the phone's card, the set
+ * list's "Add songs", the practice page), with when it was last practised, its counts and where it stands. The
+ * whole song, with its notes, who set its tempos and what the reader may do, is GET /api/songs/:id.
+ */
+export const SongListItemSchema = SongSchema.pick({
+  id: true,
+  title: true,
+  composer: true,
+  key: true,
+  meter: true,
+  goalBpm: true,
+  workingBpm: true,
+  chosenBpm: true,
+}).extend({
   lastPractisedAt: z.string().nullable(),
   recordingCount: z.number().int(),
   passageCount: z.number().int(),
@@ -137,8 +150,8 @@ export const LibrarySongSchema = SongSchema.extend({
   progress: z.number().nullable(),
   ready: z.boolean(),
 });
-export type LibrarySong = z.infer<typeof LibrarySongSchema>;
-export const SongListSchema = z.object({ songs: z.array(LibrarySongSchema) });
+export type SongListItem = z.infer<typeof SongListItemSchema>;
+export const SongListSchema = z.object({ songs: z.array(SongListItemSchema) });
 
 export const UserSummarySchema = z.object({
   id: z.string(),

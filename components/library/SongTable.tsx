@@ -4,7 +4,7 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { useRouter } from 'expo-router';
 import { colors, fonts, layout, radius, space, type } from '@/components/theme';
 import { formatBpm, formatDate } from '@/shared/format';
-import type { LibrarySong } from '@/shared/schemas';
+import type { SongListItem } from '@/shared/schemas';
 
 const COLUMNS = [
   { label: 'Title', flex: 3 },
@@ -18,7 +18,7 @@ const COLUMNS = [
 
 const none = <Text style={{ color: colors.muted }}>—</Text>;
 
-export function SongTable({ songs }: { songs: LibrarySong[] }) {
+export function SongTable({ songs }: { songs: SongListItem[] }) {
   const router = useRouter();
   return (
     <View style={styles.table} testID="song-table">

@@ -3,7 +3,7 @@
 import { literal, Op, type Order, type WhereOptions } from 'sequelize';
 import { Song } from '@/server/models';
 import type {
-  LibrarySong,
+  SongListItem,
   LibrarySort,
   Me,
   Song as SongDto,
@@ -16,7 +16,7 @@ import { allows, assertMay, missing, relationTo, type Action } from './access';
 import { removeStoredFiles, storageKeysOfSong } from './recordings';
 import { namesOf, setByColumns, setByView, tempoColumns } from './users';
 
-/** What a song's API form is made of: a Song, or a plain row of the same columns (the library's list). */
+/** What a song's API form is made of. */
 type SongFields = Pick<
   Song,
   | 'id'
@@ -126,43 +126,54 @@ const ORDERS: Record<LibrarySort, Order> = {
 const likeWord = (word: string) => `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 /** The library: a player's own songs whose title or composer/artist holds every word of `q`, sorted, filtered. */
-export async function listSongs(user: Me, query: SongListQuery = { sort: 'title' }): Promise<LibrarySong[]> {
+export async function listSongs(user: Me, query: SongListQuery = { sort: 'title' }): Promise<SongListItem[]> {
   const words = (query.q ?? '').split(/\s+/).filter(Boolean);
   const where: WhereOptions[] = [{ ownerId: user.id }];
   for (const word of words)
     where.push({ [Op.or]: [{ title: { [Op.like]: likeWord(word) } }, { composer: { [Op.like]: likeWord(word) } }] });
   if (query.status) where.push(literal(query.status === 'ready' ? READY : `NOT ${READY}`));
-  // Plain rows (raw): building a model instance per song cost more than the query itself in a long library.
+  // Plain rows (raw) of only the columns the library shows: a model instance per song, and the whole song's
+  // view (names of who set the tempos, permissions, notes), cost more than the query itself in a long library.
+  // Only the player's own songs are listed, so no other person's access needs checking here.
   const rows = (await Song.findAll({
-    attributes: {
-      include: [
-        [literal(LAST_PRACTISED), 'lastPractisedAt'],
-        [literal(RECORDINGS), 'recordingCount'],
-        [literal(PASSAGES), 'passageCount'],
-        [literal(PROGRESS), 'progress'],
-        [literal(READY), 'ready'],
-      ],
-    },
+    attributes: [
+      ...LIST_COLUMNS,
+      [literal(LAST_PRACTISED), 'lastPractisedAt'],
+      [literal(RECORDINGS), 'recordingCount'],
+      [literal(PASSAGES), 'passageCount'],
+      [literal(PROGRESS), 'progress'],
+      [literal(READY), 'ready'],
+    ],
     where: { [Op.and]: where },
     order: ORDERS[query.sort],
     raw: true,
-  })) as unknown as LibraryRow[];
-  const views = await songViews(user, rows.map(songFieldsOf));
-  // Added to each view in place: copying 25 fields per song again showed in the profile of a long library.
-  return views.map((view, i) => {
-    const row = rows[i]!;
-    return Object.assign(view, {
-      lastPractisedAt: row.lastPractisedAt === null ? null : new Date(row.lastPractisedAt).toISOString(),
-      recordingCount: Number(row.recordingCount),
-      passageCount: Number(row.passageCount),
-      progress: row.progress === null ? null : Number(row.progress),
-      ready: Boolean(Number(row.ready)),
-    });
-  });
+  })) as unknown as ListRow[];
+  return rows.map((row) => ({
+    id: row.id,
+    title: row.title,
+    composer: row.composer,
+    key: row.key,
+    meter: row.meter,
+    goalBpm: numberOrNull(row.goalBpm),
+    workingBpm: numberOrNull(row.workingBpm),
+    chosenBpm: numberOrNull(row.chosenBpm),
+    lastPractisedAt: row.lastPractisedAt === null ? null : new Date(row.lastPractisedAt).toISOString(),
+    recordingCount: Number(row.recordingCount),
+    passageCount: Number(row.passageCount),
+    progress: numberOrNull(row.progress),
+    ready: Boolean(Number(row.ready)),
+  }));
 }
 
+const LIST_COLUMNS = ['id', 'title', 'composer', 'key', 'meter', 'goalBpm', 'workingBpm', 'chosenBpm'] as const;
+
 /** A raw row of the library's query: the driver's own types (DECIMAL tempos as strings, counts as bigints). */
-type LibraryRow = Omit<SongFields, 'goalBpm' | 'workingBpm' | 'chosenBpm'> & {
+interface ListRow {
+  id: string;
+  title: string;
+  composer: string | null;
+  key: string | null;
+  meter: string;
   goalBpm: string | number | null;
   workingBpm: string | number | null;
   chosenBpm: string | number | null;
@@ -171,31 +182,10 @@ type LibraryRow = Omit<SongFields, 'goalBpm' | 'workingBpm' | 'chosenBpm'> & {
   passageCount: bigint | number | string;
   progress: string | number | null;
   ready: bigint | number | string;
-};
+}
 
-const bpmOf = (x: string | number | null) => (x === null ? null : Number(x));
-const dateOf = (x: Date | string | null) => (x === null ? null : new Date(x));
-
-/** The same values a Song's getters give (see models/decimal.ts): tempos as numbers, times as Dates. */
-const songFieldsOf = (row: LibraryRow): SongFields => ({
-  id: row.id,
-  ownerId: row.ownerId,
-  title: row.title,
-  composer: row.composer,
-  key: row.key,
-  meter: row.meter,
-  goalBpm: bpmOf(row.goalBpm),
-  workingBpm: bpmOf(row.workingBpm),
-  chosenBpm: bpmOf(row.chosenBpm),
-  notes: row.notes,
-  chosenNote: row.chosenNote,
-  workingSetBy: row.workingSetBy,
-  workingSetAt: dateOf(row.workingSetAt),
-  goalSetBy: row.goalSetBy,
-  goalSetAt: dateOf(row.goalSetAt),
-  createdAt: new Date(row.createdAt),
-  updatedAt: new Date(row.updatedAt),
-});
+/** Tempos and shares as numbers, as a Song's getters give them (see models/decimal.ts). */
+const numberOrNull = (x: string | number | null) => (x === null ? null : Number(x));
 
 export async function createSong(owner: Me, input: SongInput): Promise<SongDto> {
   const song = await Song.create({

@@ -5,6 +5,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { baseUrl, linkStudent, signedInUser } from './helpers';
 import { root } from '@/tests/setup/processes';
+import { SongListItemSchema } from '@/shared/schemas';
 
 describe('songs', () => {
   test('a player creates, lists, changes and deletes a song', async () => {
@@ -133,6 +134,9 @@ describe('the library: search, sort and filter', () => {
     const songs = (await player.agent.get('/api/songs').expect(200)).body.songs;
     const reel = songs.find((s: { title: string }) => s.title === 'Copperline Reel');
     expect(reel).toMatchObject({ key: 'D major', recordingCount: 1, passageCount: 0, ready: false });
+    // Only what the library shows: the whole song (notes, who set a tempo, permissions) is GET /api/songs/:id.
+    expect(Object.keys(reel).sort()).toEqual(Object.keys(SongListItemSchema.shape).sort());
+    expect(reel).not.toHaveProperty('notes');
     expect(reel.progress).toBeCloseTo(88 / 112, 6);
     expect(Date.parse(reel.lastPractisedAt)).toBeGreaterThan(Date.now() - 10 * 60_000);
     expect(songs.find((s: { title: string }) => s.title === 'Saltmarsh Air')).toMatchObject({
