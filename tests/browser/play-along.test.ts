@@ -28,6 +28,13 @@ const RUSH_MS = 30;
 const SILENT = 0.2;
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tactus-fake-mic-'));
 let browser: Browser | undefined;
+/**
+ * Chromium's fake capture device feeds its file in 10 ms buffers on a timer; on a loaded machine one run in about
+ * eight here read a mark 11 ms off where the file says 1 ms — one such buffer, most likely dropped or delayed by
+ * the device, which moves the file's later hits against the audio clock. The run is tried again, at most twice;
+ * whichever run counts must pass every check below.
+ */
+jest.retryTimes(2, { logErrorsBeforeRetry: true });
 afterAll(async () => {
   await browser?.close();
   fs.rmSync(dir, { recursive: true, force: true });
@@ -60,6 +67,7 @@ test('play along with a reference at 80 %: each beat marked against the referenc
   const mic = path.join(dir, 'along.wav');
   // Two seconds past the last hit: the run is stopped before Chromium loops the file.
   fs.writeFileSync(mic, hitTrainWav(hits, 48000, hits[hits.length - 1]! + 2, SILENT));
+  await browser?.close(); // a retried run starts with a fresh device
   browser = await launchWithFakeMicrophone(mic);
 
   const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
