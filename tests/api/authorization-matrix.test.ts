@@ -3,8 +3,6 @@
 // anonymous request. Each answer is written out here as designed (DEVELOPERS.md: anonymous 401, wrong role
 // 403, someone else's thing 404 …). A route that is not in this table fails the first test, so a new route
 // cannot be left out.
-import { encodeWavChannels } from '@/audio/playback/export';
-import { clickTrack, steadyBeats } from '@/tests/unit/signals';
 import fs from 'node:fs';
 import path from 'node:path';
 import request from 'supertest';
@@ -14,6 +12,7 @@ import {
   invitationToken,
   linkStudent,
   signedInUser,
+  smallUpload,
   uniqueEmail,
   waitForAnalysis,
 } from './helpers';
@@ -25,12 +24,6 @@ type Agent = ReturnType<typeof request.agent> | ReturnType<typeof request>;
 type Person = Awaited<ReturnType<typeof signedInUser>>;
 type Expect = Record<Who, number>;
 const clip = fs.readFileSync(path.join(root, 'fixtures/clips/waltz-150.mp3'));
-/**
- * The upload row sends a small file (3 s of clicks, 48 KB): refused people are answered before the body is read,
- * and a body that fits the socket's buffer is written whole before that answer arrives (a large one can meet a
- * closed connection half-way: EPIPE instead of a status to check).
- */
-const smallUpload = Buffer.from(encodeWavChannels([clickTrack(steadyBeats(120, 3), 3, 8000)], 8000));
 
 /** The things the routes are asked about, all owned by `owner` unless said otherwise. */
 interface World {

@@ -6,6 +6,8 @@ import { execFileSync } from 'node:child_process';
 import path from 'node:path';
 import type { CaughtMail, Role } from '@/shared/schemas';
 import type { RouteEntry } from '@/server/route-table';
+import { encodeWavChannels } from '@/audio/playback/export';
+import { clickTrack, steadyBeats } from '@/tests/unit/signals';
 
 const root = path.resolve(__dirname, '../..');
 
@@ -163,3 +165,10 @@ export async function linkStudent(teacher: Person, student: Person, url = baseUr
   const invitation = (await student.agent.get(`/api/invitations/token/${token}`).expect(200)).body;
   await student.agent.post(`/api/invitations/${invitation.id}/accept`).expect(200);
 }
+
+/**
+ * A small upload (3 s of clicks, 48 KB) for requests that are refused: a refused person is answered before the
+ * body is read, and a body that fits the socket's buffer is written whole before that answer arrives (a large
+ * one can meet the closed connection half-way: EPIPE instead of a status to check).
+ */
+export const smallUpload = Buffer.from(encodeWavChannels([clickTrack(steadyBeats(120, 3), 3, 8000)], 8000));

@@ -7,7 +7,7 @@ import crypto from 'node:crypto';
 import request from 'supertest';
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import { accuracy1 } from '@/audio/analysis/evaluation';
-import { query, servers, signedInUser, waitForAnalysis, type TestServer } from './helpers';
+import { query, servers, signedInUser, smallUpload, waitForAnalysis, type TestServer } from './helpers';
 
 const CLIPS = path.resolve(__dirname, '../../fixtures/clips');
 const clip = (name: string) => fs.readFileSync(path.join(CLIPS, name));
@@ -181,7 +181,7 @@ describe.each([servers.disk, servers.s3])('recordings stored on $name', (server)
     await stranger.agent
       .post(`/api/songs/${songId}/recordings`)
       .field('kind', 'take')
-      .attach('file', clip('waltz-150.mp3'), 'w.mp3')
+      .attach('file', smallUpload, 'w.wav')
       .expect(404);
     await request(server.url).get(`/api/recordings/${id}`).expect(401);
     await request(server.url).get(`/api/recordings/${id}/audio`).expect(401);
