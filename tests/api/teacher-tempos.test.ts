@@ -3,7 +3,7 @@
 // student's; the answers say what each side may do, so the screens show only that.
 import fs from 'node:fs';
 import path from 'node:path';
-import { linkStudent, signedInUser, waitForAnalysis } from './helpers';
+import { linkStudent, signedInUser, smallUpload, waitForAnalysis } from './helpers';
 import { root } from '@/tests/setup/processes';
 
 const clip = fs.readFileSync(path.join(root, 'fixtures/clips/waltz-150.mp3'));
@@ -72,7 +72,7 @@ test('the teacher adds a reference to the student’s song: it is the student’
   const take = await teacher.agent
     .post(`/api/songs/${songId}/recordings`)
     .field('kind', 'take')
-    .attach('file', clip, 'take.mp3')
+    .attach('file', smallUpload, 'take.wav')
     .expect(403);
   expect(take.body.error.field).toBe('kind');
   await teacher.agent.patch(`/api/recordings/${res.body.id}`).send({ label: 'mine' }).expect(404);
@@ -85,7 +85,7 @@ test('a teacher who is not linked sets nothing and uploads nothing; the student�
   await stranger.agent
     .post(`/api/songs/${songId}/recordings`)
     .field('kind', 'reference')
-    .attach('file', clip, 'x.mp3')
+    .attach('file', smallUpload, 'x.wav')
     .expect(404);
   await teacher.agent.patch(`/api/songs/${songId}`).send({ title: 'Renamed by the teacher' }).expect(404);
   await teacher.agent.post(`/api/songs/${songId}/choose`).send({ bpm: 140 }).expect(404);
