@@ -5,9 +5,14 @@ const alias = { '^@/(.*)$': '<rootDir>/$1' };
 
 const node = {
   testEnvironment: 'node',
-  transform: { '^.+\\.[jt]sx?$': 'babel-jest' },
-  // soundtouchjs is published as an ES module only: let babel turn it into CommonJS for jest.
-  transformIgnorePatterns: ['/node_modules/(?!soundtouchjs/)'],
+  transform: {
+    // The engine's FFT loader (an Emscripten ES module): see the transform's own comment.
+    '/@echogarden/pffft-wasm/.+\\.js$': '<rootDir>/tests/setup/emscripten-esm-transform.js',
+    // import() (the engine loads its FFT when first needed) becomes a require for jest's CommonJS runtime.
+    '^.+\\.[jt]sx?$': ['babel-jest', { plugins: ['@babel/plugin-transform-dynamic-import'] }],
+  },
+  // soundtouchjs and @echogarden/pffft-wasm are published as ES modules only: babel turns them into CommonJS.
+  transformIgnorePatterns: ['/node_modules/(?!(soundtouchjs|@echogarden/pffft-wasm)/)'],
   moduleNameMapper: alias,
 };
 

@@ -20,6 +20,7 @@ import { regressionBpm, summarise, tempoCurve, interBeatTempi, median } from './
 import { ANALYSIS_RATE, resample } from './resample';
 import { chooseLevel, levelCandidates, LEVEL_MAX_BPM, type LevelCandidate, type LevelModel } from './level';
 import { LEVEL_MODEL } from './level-weights';
+import { loadSpectrum } from './spectrum';
 
 const TEMPO_PATH_RANGE = 1.32;
 /** Beat-to-beat tempo varying less than this (coefficient of variation) counts as a steady piece. */
@@ -35,8 +36,14 @@ export interface AnalyseOptions {
   levelModel?: LevelModel;
 }
 
-export function analyse(samples: Float32Array, sampleRate: number, options: AnalyseOptions = {}): Analysis {
+/** The whole analysis of a mono signal. Asynchronous only for loading the FFT (spectrum.ts) the first time. */
+export async function analyse(
+  samples: Float32Array,
+  sampleRate: number,
+  options: AnalyseOptions = {},
+): Promise<Analysis> {
   const started = performance.now();
+  await loadSpectrum();
   const durationSec = samples.length / sampleRate;
   const env = envelopeOf(samples, sampleRate);
   const fr = env.frameRate;
@@ -164,7 +171,8 @@ function envelopeOf(samples: Float32Array, sampleRate: number): OnsetEnvelope {
 }
 
 /** The metrical-level candidates of a recording with their features, for fitting the level model. */
-export function levelCandidatesOf(samples: Float32Array, sampleRate: number): LevelCandidate[] {
+export async function levelCandidatesOf(samples: Float32Array, sampleRate: number): Promise<LevelCandidate[]> {
+  await loadSpectrum();
   const env = envelopeOf(samples, sampleRate);
   if (env.strength.length < bpmToLag(MIN_BPM, env.frameRate) * 2) return [];
   const { periodicity, tempo } = ruleBasedTempo(env);

@@ -39,7 +39,7 @@ const CONTINUITY = 300;
  * at 30 it follows, with the same figures on the real recordings.
  */
 const PATH_PULL = 30;
-/** Intervals range over the tempo path's periods ÷ and × 1.32, the range of the path itself (analyse.ts). */
+/** At each frame, intervals range over the tempo path's period there ÷ and × 1.32, the range of the path itself (analyse.ts). */
 const INTERVAL_RANGE = 1.32;
 
 export interface BeatTrackOptions {
@@ -72,22 +72,37 @@ export function trackBeats(onset: Float32Array, periodAt: Float32Array, opts: Be
   // score[i·D + k]: the best track whose last beat is at frame i, reached by an interval of dMin + k frames;
   // from[…]: the previous beat's interval index, or FIRST when the previous beat opens the track.
   const FIRST = D;
+  // Which earlier intervals may lead to each interval (within MAX_STEP), and what the step costs: the same
+  // for every frame, so computed once.
+  const lo = new Int32Array(D);
+  const hi = new Int32Array(D);
+  const stepAt = new Int32Array(D);
+  const steps: number[] = [];
+  for (let k = 0; k < D; k++) {
+    const d = dMin + k;
+    lo[k] = Math.max(0, Math.floor(d / (1 + MAX_STEP)) - dMin);
+    hi[k] = Math.min(D - 1, Math.ceil(d * (1 + MAX_STEP)) - dMin);
+    stepAt[k] = steps.length;
+    for (let k2 = lo[k]!; k2 <= hi[k]!; k2++) steps.push(continuity * (logD[k]! - logD[k2]!) ** 2);
+  }
+  const stepCost = Float64Array.from(steps);
   const score = new Float32Array(n * D).fill(-Infinity);
   const from = new Int16Array(n * D).fill(FIRST);
   for (let i = 0; i < n; i++) {
     const logTau = Math.log(periodAt[i]!);
-    for (let k = 0; k < D; k++) {
-      const d = dMin + k;
-      const p = i - d;
+    // Only intervals within the range of the path's period at this frame are states here.
+    const kFrom = Math.max(0, Math.floor(periodAt[i]! / INTERVAL_RANGE) - dMin);
+    const kTo = Math.min(D - 1, Math.ceil(periodAt[i]! * INTERVAL_RANGE) - dMin);
+    for (let k = kFrom; k <= kTo; k++) {
+      const p = i - dMin - k;
       if (p < 0) break;
       // The previous beat may open the track (Ellis's restart where the cumulative score has nothing to give).
       let link = local[p]!;
       let arg = FIRST;
       const base = p * D;
-      const lo = Math.max(0, Math.floor(d / (1 + MAX_STEP)) - dMin);
-      const hi = Math.min(D - 1, Math.ceil(d * (1 + MAX_STEP)) - dMin);
-      for (let k2 = lo; k2 <= hi; k2++) {
-        const c = score[base + k2]! - continuity * (logD[k]! - logD[k2]!) ** 2;
+      const cost = stepAt[k]! - lo[k]!;
+      for (let k2 = lo[k]!; k2 <= hi[k]!; k2++) {
+        const c = score[base + k2]! - stepCost[cost + k2]!;
         if (c > link) {
           link = c;
           arg = k2;

@@ -71,7 +71,7 @@ export function onsetEnvelope(samples: Float32Array, sampleRate: number): OnsetE
       prev = cur;
       cur = t;
     },
-    FRAME_SIZE,
+    { padStart: FRAME_SIZE },
   );
   const frameRate = sampleRate / HOP;
   const attacks = removeTrend(strength, Math.round(frameRate * 0.4));
@@ -119,13 +119,12 @@ function standardDeviation(x: Float32Array): number {
  * rectified and summed, at the flux's `frames` (frame f centred where the flux's frame f is).
  */
 function harmonicChange(samples: Float32Array, sampleRate: number, frames: number): Float32Array {
-  const bins = CHROMA_FRAME / 2 + 1;
-  const pitchClass = new Int8Array(bins).fill(-1);
-  for (let k = 1; k < bins; k++) {
-    const hz = (k * sampleRate) / CHROMA_FRAME;
-    if (hz >= CHROMA_LOW_HZ && hz <= CHROMA_HIGH_HZ)
-      pitchClass[k] = ((Math.round(12 * Math.log2(hz / 440)) % 12) + 12) % 12;
-  }
+  // Only the bins from CHROMA_LOW_HZ to CHROMA_HIGH_HZ are read out, as power (no square root).
+  const kLo = Math.ceil((CHROMA_LOW_HZ * CHROMA_FRAME) / sampleRate);
+  const kHi = Math.floor((CHROMA_HIGH_HZ * CHROMA_FRAME) / sampleRate);
+  const pitchClass = new Int8Array(kHi + 1);
+  for (let k = kLo; k <= kHi; k++)
+    pitchClass[k] = ((Math.round(12 * Math.log2((k * sampleRate) / CHROMA_FRAME / 440)) % 12) + 12) % 12;
   const step = CHROMA_HOP / HOP;
   const coarse = new Float32Array(Math.ceil(frames / step) + 1);
   let prev = new Float32Array(12);
@@ -134,10 +133,10 @@ function harmonicChange(samples: Float32Array, sampleRate: number, frames: numbe
     samples,
     CHROMA_FRAME,
     CHROMA_HOP,
-    (f, mags) => {
+    (f, power) => {
       if (f >= coarse.length) return;
       cur.fill(0);
-      for (let k = 1; k < bins; k++) if (pitchClass[k]! >= 0) cur[pitchClass[k]!]! += mags[k]! * mags[k]!;
+      for (let k = kLo; k <= kHi; k++) cur[pitchClass[k]!]! += power[k]!;
       for (let j = 0; j < 12; j++) cur[j] = Math.log1p(CHROMA_COMPRESSION * Math.sqrt(cur[j]!));
       if (f > 0) {
         let rise = 0;
@@ -149,7 +148,7 @@ function harmonicChange(samples: Float32Array, sampleRate: number, frames: numbe
       cur = t;
     },
     // Centre chroma frame f where flux frame f·step is centred (f·HOP·step − FRAME_SIZE/2).
-    CHROMA_FRAME / 2 + FRAME_SIZE / 2,
+    { padStart: CHROMA_FRAME / 2 + FRAME_SIZE / 2, bins: kHi + 1, power: true },
   );
   const out = new Float32Array(frames);
   for (let i = 0; i < frames; i++) {

@@ -1,5 +1,23 @@
-// Short-time magnitude spectra through fft.js (a well-known radix-4 FFT), one frame at a time.
+// Short-time magnitude spectra, one frame at a time, through PFFFT (Pommier's SIMD FFT, compiled to WebAssembly;
+// @echogarden/pffft-wasm); the autocorrelation through fft.js (a well-known radix-4 FFT in JavaScript). The
+// short-time spectra are most of the engine's work: on a 5-minute file the 32 000 real transforms took 174 ms
+// with fft.js and 47 ms with PFFFT (README, "The tempo engine", speed).
 import FFT from 'fft.js';
+import type { PffftModule } from '@echogarden/pffft-wasm/simd';
+
+let pffft: PffftModule | null = null;
+let loading: Promise<void> | null = null;
+
+/** Loads the WebAssembly FFT, once per process or worker thread; `analyse` awaits it before its first spectrum. */
+export function loadSpectrum(): Promise<void> {
+  // Imported when first needed: the package is an ES module (its loader finds the .wasm beside it).
+  loading ??= import('@echogarden/pffft-wasm/simd')
+    .then(({ default: createPffft }) => createPffft())
+    .then((m) => {
+      pffft = m;
+    });
+  return loading;
+}
 
 export function hannWindow(size: number): Float32Array {
   const w = new Float32Array(size);
@@ -7,35 +25,63 @@ export function hannWindow(size: number): Float32Array {
   return w;
 }
 
+export interface SpectrumOptions {
+  /**
+   * The signal is read as if this many zeros came before it, so an attack at the very first sample still has
+   * a silent frame before it.
+   */
+  padStart?: number;
+  /** Bins 0…bins−1 only (the rest are not read out): a stage that reads a low band need not pay for all. */
+  bins?: number;
+  /** Squared magnitudes (power) instead of magnitudes: no square root for a stage that sums power anyway. */
+  power?: boolean;
+}
+
 /**
  * Calls `onFrame(frameIndex, magnitudes)` for each hop; the magnitudes array is reused between calls.
- * The signal is read as if `padStart` zeros came before it, so an attack at the very first sample still
- * has a silent frame before it.
  */
 export function forEachSpectrum(
   samples: Float32Array,
   frameSize: number,
   hop: number,
   onFrame: (index: number, magnitudes: Float32Array) => void,
-  padStart = 0,
+  { padStart = 0, bins = frameSize / 2 + 1, power = false }: SpectrumOptions = {},
 ): number {
-  const fft = new FFT(frameSize);
+  if (!pffft) throw new Error('the FFT is not loaded yet: await loadSpectrum() first');
+  const m = pffft;
   const window = hannWindow(frameSize);
-  const input = new Float64Array(frameSize);
-  const out = fft.createComplexArray() as number[];
-  const mags = new Float32Array(frameSize / 2 + 1);
+  const nBins = Math.min(bins, frameSize / 2 + 1);
+  const mags = new Float32Array(nBins);
   const frames = Math.max(0, Math.floor((samples.length + padStart - frameSize) / hop) + 1);
-  for (let f = 0; f < frames; f++) {
-    const start = f * hop - padStart;
-    if (start >= 0) for (let i = 0; i < frameSize; i++) input[i] = samples[start + i]! * window[i]!;
-    else for (let i = 0; i < frameSize; i++) input[i] = start + i >= 0 ? samples[start + i]! * window[i]! : 0;
-    fft.realTransform(out, input);
-    for (let k = 0; k <= frameSize / 2; k++) {
-      const re = out[2 * k]!;
-      const im = out[2 * k + 1]!;
-      mags[k] = Math.sqrt(re * re + im * im);
+  const setup = m._pffft_new_setup(frameSize, 0);
+  const frame = m._pffft_aligned_malloc(frameSize * 4);
+  try {
+    // The frame is windowed in a plain array and copied in (writing element by element into the module's
+    // memory was 3× slower); the memory is read after the allocation (it may have grown), nothing allocates
+    // inside the loop.
+    const windowed = new Float32Array(frameSize);
+    const spectrum = m.HEAPF32.subarray(frame >> 2, (frame >> 2) + frameSize);
+    const last = frameSize / 2;
+    for (let f = 0; f < frames; f++) {
+      const start = f * hop - padStart;
+      if (start >= 0) for (let i = 0; i < frameSize; i++) windowed[i] = samples[start + i]! * window[i]!;
+      else for (let i = 0; i < frameSize; i++) windowed[i] = start + i >= 0 ? samples[start + i]! * window[i]! : 0;
+      spectrum.set(windowed);
+      m._pffft_transform_ordered(setup, frame, frame, 0, 0);
+      // PFFFT's order for a real transform: DC and Nyquist (both real) first, then re/im pairs of bins 1…N/2−1.
+      for (let k = 1; k < nBins && k < last; k++) {
+        const re = spectrum[2 * k]!;
+        const im = spectrum[2 * k + 1]!;
+        mags[k] = re * re + im * im;
+      }
+      mags[0] = spectrum[0]! * spectrum[0]!;
+      if (nBins > last) mags[last] = spectrum[1]! * spectrum[1]!;
+      if (!power) for (let k = 0; k < nBins; k++) mags[k] = Math.sqrt(mags[k]!);
+      onFrame(f, mags);
     }
-    onFrame(f, mags);
+  } finally {
+    m._pffft_aligned_free(frame);
+    m._pffft_destroy_setup(setup);
   }
   return frames;
 }

@@ -20,7 +20,7 @@ async function main(argv: string[]) {
   let result: Analysis;
   try {
     const { samples, sampleRate } = await decodeFile(file);
-    result = analyse(samples, sampleRate);
+    result = await analyse(samples, sampleRate);
   } catch (err) {
     if (err instanceof NotAudioError) {
       console.error(`tactus analyze: ${file}: ${err.message}`);

@@ -6,6 +6,7 @@ import crypto from 'node:crypto';
 import { pipeline } from 'node:stream/promises';
 import { parentPort } from 'node:worker_threads';
 import { analyse } from '@/audio/analysis/analyse';
+import type { Analysis } from '@/shared/analysis';
 import { waveformPeaks } from '@/audio/analysis/peaks';
 import { ENGINE_VERSION } from '@/audio/analysis/version';
 import { decodeFile } from '@/server/analysis/decode';
@@ -20,7 +21,7 @@ export type WorkMessage =
   | { type: 'progress'; value: number }
   | {
       type: 'done';
-      result: ReturnType<typeof analyse>;
+      result: Analysis;
       peaks: ReturnType<typeof waveformPeaks>;
       engineMs: number;
       engineVersion: number;
@@ -43,7 +44,7 @@ parentPort!.on('message', async ({ storageKey }: WorkRequest) => {
     post({ type: 'progress', value: 0.5 });
     if (testDelayMs) await new Promise((r) => setTimeout(r, testDelayMs));
     const started = performance.now();
-    const result = analyse(samples, sampleRate);
+    const result = await analyse(samples, sampleRate);
     const peaks = waveformPeaks(samples, sampleRate);
     post({
       type: 'done',

@@ -17,7 +17,7 @@ test('every piece: tempo within 4 % (Accuracy1), beats within ±70 ms (F ≥ 0.8
   const failures: string[] = [];
   for (const truth of truths) {
     const { samples, sampleRate } = await decodeFile(path.join(CORPUS_DIR, `${truth.name}.mp3`));
-    const a = analyse(samples, sampleRate);
+    const a = await analyse(samples, sampleRate);
     const reference = referenceBpm(truth);
     if (!accuracy1(a.bpm!, reference)) failures.push(`${truth.name}: ${a.bpm} BPM, truth ${reference}`);
     const f = beatFMeasure(trimBeats(truth.beats), trimBeats(a.beats));

@@ -17,7 +17,7 @@ describeWithReferenceData('a human drummer from the Groove MIDI Dataset', () => 
     renderMidi(MIDI, wav);
     const { samples, sampleRate } = await decodeFile(wav);
     expect(samples.length / sampleRate).toBeGreaterThan(27);
-    const a = analyse(samples, sampleRate);
+    const a = await analyse(samples, sampleRate);
     expect(accuracy1(a.bpm!, 138)).toBe(true);
     expect(a.meter).toBe('4/4');
   });

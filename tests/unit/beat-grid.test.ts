@@ -3,6 +3,7 @@
 // between each pair), as is counting bars from the beat a player calls one.
 import { beatsAtLevel, downbeatsFrom, feltGrid, nudged, relationInWords } from '@/audio/practice/beat-grid';
 import { analyse } from '@/audio/analysis/analyse';
+import type { Analysis } from '@/shared/analysis';
 import { clickTrack, RATE, steadyBeats } from './signals';
 
 const beats = Array.from({ length: 17 }, (_, i) => 1 + i * 0.5); // 1.0 … 9.0 s
@@ -66,7 +67,10 @@ test('relations read in words', () => {
 
 describe('on an analysed click track (clicks placed to the sample, tests/unit/signals.ts)', () => {
   const truth = steadyBeats(120, 20);
-  const analysed = analyse(clickTrack(truth, 20), RATE);
+  let analysed: Analysis;
+  beforeAll(async () => {
+    analysed = await analyse(clickTrack(truth, 20), RATE);
+  });
   test('the engine finds every click as a beat at 120 (the grid the corrections start from)', () => {
     expect(analysed.beatCount).toBe(truth.length);
     expect(analysed.bpm).toBeCloseTo(120, 0);

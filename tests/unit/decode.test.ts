@@ -21,7 +21,7 @@ describe.each(clips)('clip %s', (name) => {
     const { samples, sampleRate } = await decodeFile(path.join(CLIPS, `${name}.${format}`));
     expect(samples.length / sampleRate).toBeGreaterThan(truth.durationSec - 0.2);
     expect(samples.length / sampleRate).toBeLessThan(truth.durationSec + 0.2);
-    const a = analyse(samples, sampleRate);
+    const a = await analyse(samples, sampleRate);
     expect(accuracy1(a.bpm!, truth.bpm)).toBe(true);
     // ±70 ms window as mir_eval's beat F-measure; clips are short, so no 5 s trim here.
     expect(beatFMeasure(truth.beats, a.beats)).toBeGreaterThan(0.9);
