@@ -416,6 +416,32 @@ export const PassageListSchema = z.object({ passages: z.array(PassageSchema) });
 
 // ── The practice log ────────────────────────────────────────────────────────────────────────────────
 
+/**
+ * How far back a session may be logged, in days: a year, with room for the same date last year to stay in reach
+ * at any time of day, leap years included. Further back is more likely a typing slip than a forgotten session.
+ */
+export const PRACTICE_BACKDATE_DAYS = 367;
+/** A client clock this far ahead of the server's is not a session in the future. */
+const CLOCK_SKEW_MS = 5 * 60_000;
+const DAY_MS = 86_400_000;
+/** A malformed instant is left to the format check, so it is told once, in its own words. */
+const instantIs = (ok: (ms: number) => boolean) => (iso: string) => {
+  const ms = Date.parse(iso);
+  return Number.isNaN(ms) || ok(ms);
+};
+
+/** When a session was played: an ISO 8601 instant, not in the future and at most a year back. */
+export const PractisedAtSchema = z.iso
+  .datetime({ offset: true })
+  .refine(
+    instantIs((ms) => ms <= Date.now() + CLOCK_SKEW_MS),
+    'cannot be in the future',
+  )
+  .refine(
+    instantIs((ms) => ms >= Date.now() - PRACTICE_BACKDATE_DAYS * DAY_MS),
+    'must be within the last year',
+  );
+
 export const PracticeInputSchema = z
   .object({
     /** What was played, in words; for a saved passage the server takes its name. */
@@ -439,6 +465,9 @@ export const PracticeInputSchema = z
     clean: z.boolean(),
     /** What the player wants to remember of the session; blank is none. */
     note: z.string().trim().max(1000, 'use at most 1000 characters').nullish(),
+    /** A session logged later: when it was played (the form sends noon of the day chosen, in the player's time
+     * zone, so it lands on that day wherever it is read). Left out: now. */
+    practisedAt: PractisedAtSchema.nullish(),
   })
   .strict();
 export type PracticeInput = z.infer<typeof PracticeInputSchema>;
@@ -458,7 +487,10 @@ export const PracticeEntrySchema = z.object({
   minutes: z.number(),
   clean: z.boolean(),
   note: z.string().nullable(),
+  /** When the session was played: when it was logged, or the day given for one logged later. */
   createdAt: z.string(),
+  /** When it was logged. */
+  loggedAt: z.string(),
 });
 export type PracticeEntryDto = z.infer<typeof PracticeEntrySchema>;
 export const PracticeEntryListSchema = z.object({ entries: z.array(PracticeEntrySchema) });
