@@ -600,8 +600,14 @@ export const SetListSongSchema = z.object({
   meter: z.string(),
   /** The click tempo for the stage: the song's chosen tempo (null when none is chosen yet). */
   chosenBpm: z.number().nullable(),
-  /** How long it lasts at the chosen tempo, from a recording's measured beats; null when either is missing. */
+  /** The tempo of its latest analysed recording as the player hears it (their correction and beat level); null
+   * without one. Shown, marked as not chosen, where no tempo is chosen. */
+  analysedBpm: z.number().nullable(),
+  /** How long it lasts, from that recording's measured beats: at the chosen tempo, else (an estimate) at the
+   * analysed one; null without measured beats. */
   durationSec: z.number().nullable(),
+  /** Which tempo `durationSec` is at; null with no duration. */
+  durationAt: z.enum(['chosen', 'analysed']).nullable(),
 });
 export const SetListSchema = z.object({
   id: z.string(),
@@ -609,8 +615,11 @@ export const SetListSchema = z.object({
   songs: z.array(SetListSongSchema),
   /** The sum of the durations that are known. */
   totalSec: z.number(),
-  /** How many songs have no duration yet (no chosen tempo or no analysed recording). */
+  /** How many songs have no duration yet (no analysed recording). */
   unknownDurations: z.number(),
+  /** How many of the songs counted in the total are counted at their analysed tempo (no tempo chosen): the total
+   * is then an estimate. */
+  estimatedDurations: z.number(),
   updatedAt: z.string(),
 });
 export type SetListDto = z.infer<typeof SetListSchema>;
