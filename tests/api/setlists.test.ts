@@ -94,6 +94,10 @@ test('a song with no chosen tempo shows its analysed tempo, as the player hears 
   expect(after.songs[0]).toMatchObject({ chosenBpm: 100, durationAt: 'chosen' });
   expect(after.songs[0].durationSec).toBeCloseTo((beats * 60) / 100, 6);
   expect(after.estimatedDurations).toBe(0);
+  // The chosen tempo counts the beats the player feels: heard in half time, half as many beats at 100 BPM.
+  await player.agent.patch(`/api/recordings/${rec}`).send({ beatLevel: 'half' }).expect(200);
+  const halfTime = (await player.agent.get(`/api/set-lists/${list.id}`).expect(200)).body.songs[0];
+  expect(halfTime.durationSec).toBeCloseTo((beats * 0.5 * 60) / 100, 6);
 });
 
 test('only one’s own songs, each once; another player sees nothing', async () => {
