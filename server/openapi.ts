@@ -573,6 +573,9 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       tag: 'studio',
       access: ['teacher', 'admin'],
       summary: 'My students',
+      description:
+        'Each with their songs, recent takes and what waits for my answer: takes of the last two weeks I have not ' +
+        'written on, and open notes on their recordings whose last word is theirs.',
       ok: { 200: json('My students.', s.StudentList) },
     },
     {

@@ -173,7 +173,17 @@ export const StudentSongSchema = z.object({
   workingBpm: z.number().nullable(),
   chosenBpm: z.number().nullable(),
   lastPracticedAt: z.string().nullable(),
-  recentTakes: z.array(z.object({ id: z.string(), label: z.string().nullable(), createdAt: z.string() })),
+  recentTakes: z.array(
+    z.object({
+      id: z.string(),
+      label: z.string().nullable(),
+      createdAt: z.string(),
+      /** A recent take (see `awaiting`) the teacher asking has not written on yet. */
+      awaitingAnswer: z.boolean(),
+    }),
+  ),
+  /** Recordings of the song with open notes whose last word is the student's, and how many such notes each. */
+  notesAwaiting: z.array(z.object({ recordingId: z.string(), label: z.string().nullable(), notes: z.number().int() })),
 });
 export const StudentSchema = z.object({
   id: z.string(),
@@ -181,6 +191,11 @@ export const StudentSchema = z.object({
   email: z.string(),
   songCount: z.number().int(),
   songs: z.array(StudentSongSchema),
+  /**
+   * What waits for the teacher asking: takes of the last two weeks (since the link) they have not written on,
+   * and open notes on the student's recordings whose last word is the student's (a question or a reply).
+   */
+  awaiting: z.object({ takes: z.number().int(), notes: z.number().int() }),
 });
 export type Student = z.infer<typeof StudentSchema>;
 export const StudentListSchema = z.object({ students: z.array(StudentSchema) });
