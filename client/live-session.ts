@@ -276,6 +276,24 @@ export class LiveSession {
   }
 }
 
+/** A take shorter than this is not offered to keep: a Stop pressed at once, a run the music ended at its start. */
+const SHORTEST_TAKE_SEC = 1;
+
+/** How a run ended, for its card: the take to listen back to and keep or discard, or why there is none. */
+export type RunEnd = { take: RecordedTake; note: null } | { take: null; note: string };
+
+/**
+ * Ends a run the way both live cards do (recording against the click, playing along): the clicks stop, the
+ * microphone is released and the take is cut; one long enough is offered for review, a shorter one is dropped
+ * with a word saying so.
+ */
+export async function endRun(session: LiveSession): Promise<RunEnd> {
+  const take = await session.stop();
+  return take && take.seconds > SHORTEST_TAKE_SEC
+    ? { take, note: null }
+    : { take: null, note: 'That was too short to keep: nothing was recorded.' };
+}
+
 /** Plays a recorded take back once; returns a function that stops it. */
 export async function listenBack(take: RecordedTake, onEnded: () => void): Promise<() => void> {
   const ctx = await resumeAudio();

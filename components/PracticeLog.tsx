@@ -3,7 +3,8 @@ import React from 'react';
 import { Text, View } from 'react-native';
 import { Small } from './ui';
 import { colors, space, type } from './theme';
-import { formatBpm, formatDateTime, formatMinutes, plural } from '@/shared/format';
+import { formatBpm, formatDate, formatDateTime, formatMinutes, plural } from '@/shared/format';
+import { loggedLater } from '@/audio/practice/practice-log';
 import { usePractice } from '@/client/hooks';
 import type { PracticeEntryDto } from '@/shared/schemas';
 
@@ -41,7 +42,9 @@ export function PracticeLog({ songId, limit = 5 }: { songId: string; limit?: num
           </Text>
           <Small>
             {plural(e.repetitions, 'repetition')} · {formatMinutes(e.minutes)} · {e.clean ? 'clean' : 'not yet clean'} ·{' '}
-            {formatDateTime(e.createdAt)}
+            {loggedLater(e)
+              ? `${formatDate(e.createdAt)} (logged ${formatDate(e.loggedAt)})`
+              : formatDateTime(e.createdAt)}
           </Small>
           {e.note ? <Small muted={false}>“{e.note}”</Small> : null}
         </View>

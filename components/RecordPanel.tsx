@@ -13,7 +13,7 @@ import type { BeatMark } from '@/audio/live/feedback';
 import { LiveBeatView } from './LiveBeatView';
 import { TakeReview } from './TakeReview';
 import { CALIBRATION_CLICKS } from '@/audio/live/calibration';
-import { LiveSession, type RecordedTake } from '@/client/live-session';
+import { endRun, LiveSession, type RecordedTake } from '@/client/live-session';
 import { keepCalibration, readCalibration, type StoredCalibration } from '@/client/latency';
 import { DEFAULT_CLICK_GAIN } from '@/client/click-sound';
 import { audioContext } from '@/client/audio-context';
@@ -103,15 +103,13 @@ export function RecordPanel({ song, onKept }: { song: Song; onKept: (r: Recordin
   };
 
   const stop = async () => {
-    const t = await session.current?.stop();
+    const s = session.current;
+    if (!s) return;
+    const end = await endRun(s);
     setLevel(0);
-    if (t && t.seconds > 1) {
-      setTake(t);
-      setPhase('review');
-    } else {
-      setPhase('idle');
-      setNote('That was too short to keep: nothing was recorded.');
-    }
+    setTake(end.take);
+    setNote(end.note);
+    setPhase(end.take ? 'review' : 'idle');
   };
 
   const discarded = () => {

@@ -428,7 +428,9 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       summary: 'Log a practice entry (owner only)',
       description:
         'By hand or from a step-up run. Logging never changes a working tempo: the app offers the raise and sets ' +
-        'it through the tempos routes, so the player can undo it.',
+        'it through the tempos routes, so the player can undo it. A session logged later gives `practisedAt` ' +
+        '(not in the future, at most a year back; the app sends noon of the day in the player’s time zone): the ' +
+        'entry’s `createdAt` is then that instant and `loggedAt` when it was logged.',
       body: s.PracticeInput,
       ok: { 201: json('The new entry.', s.PracticeEntry) },
     },
@@ -571,6 +573,9 @@ function operations(s: ReturnType<typeof namedSchemas>, devTools: boolean): Oper
       tag: 'studio',
       access: ['teacher', 'admin'],
       summary: 'My students',
+      description:
+        'Each with their songs, recent takes and what waits for my answer: takes of the last two weeks I have not ' +
+        'written on, and open notes on their recordings whose last word is theirs.',
       ok: { 200: json('My students.', s.StudentList) },
     },
     {

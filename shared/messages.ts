@@ -29,7 +29,11 @@ export const FIELD_LABELS: Record<string, string> = {
   endSec: 'End',
   startBar: 'First bar',
   endBar: 'Last bar',
+  practisedAt: 'Day practised',
 };
+
+/** A day typed in a form that is not one (the forms write days as ISO 8601, as a date field does). */
+export const DAY_TEXT_PROBLEM = 'write the day as year-month-day, such as 2026-11-30';
 
 const article = (n: number | bigint, unit: string) => `${n} ${unit}${Number(n) === 1 ? '' : 's'}`;
 
@@ -61,6 +65,7 @@ export function plainIssueMessage(issue: z.core.$ZodRawIssue): string | undefine
     }
     case 'invalid_format':
       if (issue.format === 'email') return 'enter an e-mail address such as name@example.com';
+      if (issue.format === 'datetime') return 'give a date and time such as 2026-11-30T12:00:00Z';
       return 'this is not in the expected form';
     case 'invalid_value':
       return `choose one of: ${issue.values.map(String).join(', ')}`;

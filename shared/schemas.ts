@@ -173,7 +173,17 @@ export const StudentSongSchema = z.object({
   workingBpm: z.number().nullable(),
   chosenBpm: z.number().nullable(),
   lastPracticedAt: z.string().nullable(),
-  recentTakes: z.array(z.object({ id: z.string(), label: z.string().nullable(), createdAt: z.string() })),
+  recentTakes: z.array(
+    z.object({
+      id: z.string(),
+      label: z.string().nullable(),
+      createdAt: z.string(),
+      /** A recent take (see `awaiting`) the teacher asking has not written on yet. */
+      awaitingAnswer: z.boolean(),
+    }),
+  ),
+  /** Recordings of the song with open notes whose last word is the student's, and how many such notes each. */
+  notesAwaiting: z.array(z.object({ recordingId: z.string(), label: z.string().nullable(), notes: z.number().int() })),
 });
 export const StudentSchema = z.object({
   id: z.string(),
@@ -181,6 +191,11 @@ export const StudentSchema = z.object({
   email: z.string(),
   songCount: z.number().int(),
   songs: z.array(StudentSongSchema),
+  /**
+   * What waits for the teacher asking: takes of the last two weeks (since the link) they have not written on,
+   * and open notes on the student's recordings whose last word is the student's (a question or a reply).
+   */
+  awaiting: z.object({ takes: z.number().int(), notes: z.number().int() }),
 });
 export type Student = z.infer<typeof StudentSchema>;
 export const StudentListSchema = z.object({ students: z.array(StudentSchema) });
@@ -416,6 +431,32 @@ export const PassageListSchema = z.object({ passages: z.array(PassageSchema) });
 
 // ── The practice log ────────────────────────────────────────────────────────────────────────────────
 
+/**
+ * How far back a session may be logged, in days: a year, with room for the same date last year to stay in reach
+ * at any time of day, leap years included. Further back is more likely a typing slip than a forgotten session.
+ */
+export const PRACTICE_BACKDATE_DAYS = 367;
+/** A client clock this far ahead of the server's is not a session in the future. */
+const CLOCK_SKEW_MS = 5 * 60_000;
+const DAY_MS = 86_400_000;
+/** A malformed instant is left to the format check, so it is told once, in its own words. */
+const instantIs = (ok: (ms: number) => boolean) => (iso: string) => {
+  const ms = Date.parse(iso);
+  return Number.isNaN(ms) || ok(ms);
+};
+
+/** When a session was played: an ISO 8601 instant, not in the future and at most a year back. */
+export const PractisedAtSchema = z.iso
+  .datetime({ offset: true })
+  .refine(
+    instantIs((ms) => ms <= Date.now() + CLOCK_SKEW_MS),
+    'cannot be in the future',
+  )
+  .refine(
+    instantIs((ms) => ms >= Date.now() - PRACTICE_BACKDATE_DAYS * DAY_MS),
+    'must be within the last year',
+  );
+
 export const PracticeInputSchema = z
   .object({
     /** What was played, in words; for a saved passage the server takes its name. */
@@ -439,6 +480,9 @@ export const PracticeInputSchema = z
     clean: z.boolean(),
     /** What the player wants to remember of the session; blank is none. */
     note: z.string().trim().max(1000, 'use at most 1000 characters').nullish(),
+    /** A session logged later: when it was played (the form sends noon of the day chosen, in the player's time
+     * zone, so it lands on that day wherever it is read). Left out: now. */
+    practisedAt: PractisedAtSchema.nullish(),
   })
   .strict();
 export type PracticeInput = z.infer<typeof PracticeInputSchema>;
@@ -458,7 +502,10 @@ export const PracticeEntrySchema = z.object({
   minutes: z.number(),
   clean: z.boolean(),
   note: z.string().nullable(),
+  /** When the session was played: when it was logged, or the day given for one logged later. */
   createdAt: z.string(),
+  /** When it was logged. */
+  loggedAt: z.string(),
 });
 export type PracticeEntryDto = z.infer<typeof PracticeEntrySchema>;
 export const PracticeEntryListSchema = z.object({ entries: z.array(PracticeEntrySchema) });
@@ -568,8 +615,14 @@ export const SetListSongSchema = z.object({
   meter: z.string(),
   /** The click tempo for the stage: the song's chosen tempo (null when none is chosen yet). */
   chosenBpm: z.number().nullable(),
-  /** How long it lasts at the chosen tempo, from a recording's measured beats; null when either is missing. */
+  /** The tempo of its latest analysed recording as the player hears it (their correction and beat level); null
+   * without one. Shown, marked as not chosen, where no tempo is chosen. */
+  analysedBpm: z.number().nullable(),
+  /** How long it lasts, from that recording's measured beats: at the chosen tempo, else (an estimate) at the
+   * analysed one; null without measured beats. */
   durationSec: z.number().nullable(),
+  /** Which tempo `durationSec` is at; null with no duration. */
+  durationAt: z.enum(['chosen', 'analysed']).nullable(),
 });
 export const SetListSchema = z.object({
   id: z.string(),
@@ -577,8 +630,11 @@ export const SetListSchema = z.object({
   songs: z.array(SetListSongSchema),
   /** The sum of the durations that are known. */
   totalSec: z.number(),
-  /** How many songs have no duration yet (no chosen tempo or no analysed recording). */
+  /** How many songs have no duration yet (no analysed recording). */
   unknownDurations: z.number(),
+  /** How many of the songs counted in the total are counted at their analysed tempo (no tempo chosen): the total
+   * is then an estimate. */
+  estimatedDurations: z.number(),
   updatedAt: z.string(),
 });
 export type SetListDto = z.infer<typeof SetListSchema>;

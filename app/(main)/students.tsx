@@ -1,5 +1,5 @@
 // Students: a teacher's studio. A student is linked only after accepting the teacher's invitation; either side
-// can end the link. Only teachers (and admins) see this screen; the server enforces it too.
+// can end the link. Each student's card flags the takes and notes that wait for the teacher's answer. Only teachers (and admins) see this screen; the server enforces it too.
 import React, { useState } from 'react';
 import { Pressable, View } from 'react-native';
 import { useRouter } from 'expo-router';
@@ -18,6 +18,7 @@ import {
   Small,
 } from '@/components/ui';
 import { ProgressToGoal } from '@/components/TempoProgress';
+import { AwaitingFlag, notesChipLabel, takeChipLabel } from '@/components/AwaitingAnswer';
 import { colors, space } from '@/components/theme';
 import {
   inviteStudent,
@@ -127,6 +128,7 @@ function StudentCard({ student: s }: { student: Student }) {
       <Small>
         {s.email} · {plural(s.songCount, 'song')}
       </Small>
+      <AwaitingFlag awaiting={s.awaiting} />
       {s.songCount === 0 ? (
         <Small muted={false}>No songs yet: their songs, takes and practice show here once they add one.</Small>
       ) : null}
@@ -149,13 +151,23 @@ function StudentCard({ student: s }: { student: Student }) {
               ? `Last practised ${formatDate(song.lastPracticedAt)}`
               : 'Not practised in Tactus yet'}
           </Small>
-          {song.recentTakes.length ? (
+          {song.recentTakes.length || song.notesAwaiting.length ? (
             <Row>
               {song.recentTakes.map((t) => (
                 <Chip
                   key={t.id}
-                  label={`${t.label ?? 'Take'} · ${formatDate(t.createdAt)}`}
+                  label={takeChipLabel(t)}
+                  hint={t.awaitingAnswer ? `${takeChipLabel(t)}: waits for your answer` : undefined}
                   onPress={() => router.navigate(`/recordings/${t.id}`)}
+                  testID="student-take"
+                />
+              ))}
+              {song.notesAwaiting.map((n) => (
+                <Chip
+                  key={n.recordingId}
+                  label={notesChipLabel(n)}
+                  onPress={() => router.navigate(`/recordings/${n.recordingId}`)}
+                  testID="student-notes-awaiting"
                 />
               ))}
             </Row>

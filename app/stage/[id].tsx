@@ -8,8 +8,8 @@ import { ScreenTitle } from '@/components/ScreenTitle';
 import { fonts, space } from '@/components/theme';
 import { useSetList } from '@/client/hooks';
 import { ApiRequestError } from '@/client/api';
-import { formatBpm } from '@/shared/format';
-import { songLength, totalLength } from '@/components/setlists/lengths';
+import { songLength, songTempo, totalLength } from '@/components/setlists/lengths';
+import type { SetListDto } from '@/shared/schemas';
 import { printPage, usePrintStyles } from '@/components/setlists/printStyles';
 
 const INK = '#000000';
@@ -59,16 +59,35 @@ export default function StageView() {
               {song.meter} · {songLength(song)}
             </Text>
           </View>
-          <View style={{ alignItems: 'flex-end' }}>
-            <Text style={styles.bpm} testID="stage-bpm">
-              {song.chosenBpm === null ? '—' : formatBpm(song.chosenBpm)}
-            </Text>
-            {song.chosenBpm === null ? null : <Text style={styles.unit}>BPM</Text>}
-          </View>
+          <StageTempo song={song} />
         </View>
       ))}
-      <Text style={styles.meta}>Click tempos in BPM (beats per minute), each song&apos;s chosen tempo.</Text>
+      <Text style={styles.meta}>
+        Click tempos in BPM (beats per minute), each song&apos;s chosen tempo; ≈ marks a tempo analysed from a recording
+        where none is chosen yet.
+      </Text>
     </ScrollView>
+  );
+}
+
+/** The chosen tempo as large as the stand needs; an analysed one smaller, with "≈" and "not chosen" in words, so
+ * it is not taken for a decision; none, in words. Ink only: it must print. */
+function StageTempo({ song }: { song: SetListDto['songs'][number] }) {
+  const t = songTempo(song);
+  return (
+    <View
+      style={{ alignItems: 'flex-end', maxWidth: 180 }}
+      accessible
+      accessibilityLabel={t.spoken}
+      testID="stage-tempo"
+    >
+      {t.figure ? (
+        <Text style={t.chosen ? styles.bpm : styles.guideBpm} testID="stage-bpm">
+          {t.figure}
+        </Text>
+      ) : null}
+      <Text style={t.chosen ? styles.unit : styles.unitWords}>{t.words}</Text>
+    </View>
   );
 }
 
@@ -89,4 +108,6 @@ const styles = StyleSheet.create({
   title: { fontFamily: fonts.bodyBold, fontSize: 22, lineHeight: 28, color: INK },
   unit: { fontFamily: fonts.bodyBold, fontSize: 14, color: INK, letterSpacing: 1 },
   bpm: { fontFamily: fonts.displayBold, fontSize: 64, lineHeight: 70, color: INK, minWidth: 120, textAlign: 'right' },
+  guideBpm: { fontFamily: fonts.displayBold, fontSize: 36, lineHeight: 42, color: INK, textAlign: 'right' },
+  unitWords: { fontFamily: fonts.bodyBold, fontSize: 14, color: INK, letterSpacing: 1, textAlign: 'right' },
 });

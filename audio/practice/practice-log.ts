@@ -42,6 +42,37 @@ export const dayOf = (n: number): Day => {
   return { year: d.getUTCFullYear(), month: d.getUTCMonth() + 1, day: d.getUTCDate() };
 };
 
+/** "2026-11-30" (ISO 8601, as a date field holds it) → that day; null for other text or a day no calendar has. */
+export function parseDay(text: string): Day | null {
+  const m = /^\s*(\d{4})-(\d{1,2})-(\d{1,2})\s*$/.exec(text);
+  if (!m) return null;
+  const d = { year: Number(m[1]), month: Number(m[2]), day: Number(m[3]) };
+  const back = dayOf(dayNumber(d));
+  return back.year === d.year && back.month === d.month && back.day === d.day ? d : null;
+}
+
+/** A day as ISO 8601 text ("2026-11-30"). */
+export const dayText = (d: Day) =>
+  `${String(d.year).padStart(4, '0')}-${String(d.month).padStart(2, '0')}-${String(d.day).padStart(2, '0')}`;
+
+/**
+ * When a session logged by hand on `day` is sent as played: nothing for today (the server's now), else noon of
+ * that day in the reader's time zone — the middle of the day, so it stays that day across a daylight-saving
+ * change, and the charts and weeks, which read the day in the same zone, place it there.
+ */
+export function practisedAtOf(day: Day, now = new Date()): string | undefined {
+  if (dayNumber(day) === dayNumber(localDay(now))) return undefined;
+  return new Date(day.year, day.month - 1, day.day, 12).toISOString();
+}
+
+/**
+ * Whether an entry was logged after the day it counts on (typed in later): the log then shows its day, not a
+ * time of day nobody gave. An entry dated now was played and logged at the same instant; one dated to an
+ * earlier day sits at its noon, at least twelve hours before it was logged; an hour tells them apart.
+ */
+export const loggedLater = (e: { createdAt: string; loggedAt: string }) =>
+  Date.parse(e.loggedAt) - Date.parse(e.createdAt) > 3_600_000;
+
 /**
  * ISO 8601 week of a day: weeks run Monday to Sunday and week 1 is the one holding the year's first Thursday,
  * so a week belongs to the year its Thursday falls in.

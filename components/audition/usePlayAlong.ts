@@ -8,7 +8,7 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import type { AuditionPlayer } from '@/client/player';
 import { ReferenceGrid, type BeatMark } from '@/audio/live/feedback';
 import { barAt, beatInBar } from '@/audio/practice/passage';
-import { LiveSession, type RecordedTake } from '@/client/live-session';
+import { endRun, LiveSession, type RecordedTake } from '@/client/live-session';
 import { readCalibration } from '@/client/latency';
 import { audioContext } from '@/client/audio-context';
 import type { BeatPlace } from '@/components/LiveBeatView';
@@ -53,15 +53,11 @@ export function usePlayAlong(audition: AuditionPlayerState) {
     // Stop and the music ending may both ask: the first one finishes the run.
     if (!s) return;
     session.current = null;
-    const t = await s.stop();
+    const end = await endRun(s);
     release();
-    if (t && t.seconds > 1) {
-      setTake(t);
-      setPhase('review');
-    } else {
-      setPhase('idle');
-      setNote('That was too short to keep: nothing was recorded.');
-    }
+    setTake(end.take);
+    setNote(end.note);
+    setPhase(end.take ? 'review' : 'idle');
   }, [release]);
 
   const stop = useCallback(() => {

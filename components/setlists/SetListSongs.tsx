@@ -1,11 +1,11 @@
-// A set list's songs in playing order: each one's click tempo and length, moved up or down or taken out.
+// A set list's songs in playing order: each one's click tempo (or the analysed one, marked as not chosen) and
+// length, moved up or down or taken out.
 import React from 'react';
 import { Text, useWindowDimensions, View } from 'react-native';
 import { Card, Chip, Small } from '@/components/ui';
 import { colors, fonts, layout, space, type } from '@/components/theme';
-import { formatBpm } from '@/shared/format';
 import type { SetListDto } from '@/shared/schemas';
-import { songLength } from './lengths';
+import { songLength, songTempo } from './lengths';
 
 /** The order with the song at `from` moved to `to`. */
 export function moved(ids: string[], from: number, to: number): string[] {
@@ -47,17 +47,7 @@ export function SetListSongs({
                 {song.meter} · <Text testID="set-list-song-length">{songLength(song)}</Text>
               </Small>
             </View>
-            <Text
-              style={{
-                fontFamily: fonts.displayBold,
-                fontSize: 26,
-                color: song.chosenBpm ? colors.amber : colors.line,
-              }}
-              accessibilityLabel={song.chosenBpm ? `${formatBpm(song.chosenBpm)} BPM` : 'no chosen tempo'}
-            >
-              {song.chosenBpm ? formatBpm(song.chosenBpm) : '—'}
-              {song.chosenBpm ? <Text style={[type.small, { color: colors.muted }]}> BPM</Text> : null}
-            </Text>
+            <SongTempoFigure song={song} />
           </View>
           <View style={{ flexDirection: 'row', gap: space.sm, justifyContent: 'flex-end' }}>
             <Chip
@@ -83,6 +73,36 @@ export function SetListSongs({
           </View>
         </Card>
       ))}
+    </View>
+  );
+}
+
+/** The chosen tempo large in amber; an analysed one smaller and muted, over "BPM, not chosen"; or the words alone. */
+function SongTempoFigure({ song }: { song: SetListDto['songs'][number] }) {
+  const t = songTempo(song);
+  const words = <Text style={[type.small, { color: colors.muted }]}>{t.chosen ? ` ${t.words}` : t.words}</Text>;
+  return (
+    <View
+      style={{ alignItems: 'flex-end', maxWidth: 150 }}
+      accessible
+      accessibilityLabel={t.spoken}
+      testID="set-list-song-tempo"
+    >
+      {t.chosen ? (
+        <Text style={{ fontFamily: fonts.displayBold, fontSize: 26, color: colors.amber }}>
+          {t.figure}
+          {words}
+        </Text>
+      ) : (
+        <>
+          {t.figure ? (
+            <Text style={{ fontFamily: fonts.displayBold, fontSize: 20, lineHeight: 24, color: colors.muted }}>
+              {t.figure}
+            </Text>
+          ) : null}
+          {words}
+        </>
+      )}
     </View>
   );
 }

@@ -22,7 +22,9 @@ export class PracticeEntry extends Model<InferAttributes<PracticeEntry>, InferCr
   declare clean: boolean;
   /** What the player wants to remember of the session. */
   declare note: string | null;
+  /** When the session was played: the moment it was logged, or the day given for one logged later. */
   declare createdAt: CreationOptional<Date>;
+  /** When it was logged (an entry is never edited). */
   declare updatedAt: CreationOptional<Date>;
 }
 PracticeEntry.init(

@@ -28,6 +28,7 @@ export const toPracticeDto = (p: PracticeEntry): PracticeEntryDto => ({
   clean: Boolean(p.clean),
   note: p.note,
   createdAt: p.createdAt.toISOString(),
+  loggedAt: p.updatedAt.toISOString(),
 });
 
 /** The latest 500 entries, newest first. */
@@ -77,7 +78,7 @@ async function whereItWasPlayed(user: Me, songId: string, input: PracticeInput) 
   return { passage: null, label: input.passage ?? null, region };
 }
 
-/** A practice entry, by hand or from a step-up run; only the song's owner logs. */
+/** A practice entry, by hand (now, or on a day up to a year back) or from a step-up run; only the song's owner logs. */
 export async function logPractice(user: Me, songId: string, input: PracticeInput): Promise<PracticeEntryDto> {
   const song = await songFor(user, 'write', songId);
   await assertMay(user, 'write', 'practice-entry', song.ownerId);
@@ -93,6 +94,8 @@ export async function logPractice(user: Me, songId: string, input: PracticeInput
     minutes: input.minutes,
     clean: input.clean,
     note: input.note || null,
+    // A session logged later counts on the day it was played: the log, charts and weeks all read createdAt.
+    ...(input.practisedAt ? { createdAt: new Date(input.practisedAt) } : {}),
   });
   return toPracticeDto(entry);
 }

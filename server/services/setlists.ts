@@ -1,31 +1,44 @@
-// Set lists: a player's songs in playing order with each song's click tempo (its chosen tempo) and how long it
-// lasts at that tempo, and the whole set's length.
+// Set lists: a player's songs in playing order with each song's click tempo (its chosen tempo, or the analysed
+// one marked as not chosen) and how long it lasts at that tempo, and the whole set's length (an estimate where
+// a song is counted at its analysed tempo).
 import { Analysis, Recording, SetList, SetListItem, Song } from '@/server/models';
 import { sequelize } from '@/server/db';
 import { HttpError } from '@/server/http';
 import { secondsFor } from '@/audio/practice/duration';
+import { LEVEL_FACTOR, type BeatLevel } from '@/audio/practice/beat-grid';
 import type { Me, SetListDto, SetListInput, SetListPatch } from '@/shared/schemas';
 import { assertMay, missing, type Action } from './access';
 import { readStoredAnalysis } from './recordings';
 
-/** Beats measured in each song's most recent analysed recording. */
-async function measuredBeats(songIds: string[]): Promise<Map<string, number>> {
+/** What a song's most recent analysed recording measured, as the player hears it. */
+interface Measured {
+  /** Beats at the player's beat level (half as many felt in half, twice as many in double). */
+  beats: number;
+  /** Its tempo at that level: the player's correction, else the engine's. */
+  bpm: number;
+}
+
+/** Each song's most recent analysed recording, measured. */
+async function measured(songIds: string[]): Promise<Map<string, Measured>> {
   if (!songIds.length) return new Map();
   const recordings = await Recording.findAll({
     where: { songId: songIds, status: 'done' },
-    attributes: ['id', 'songId'],
+    attributes: ['id', 'songId', 'correctedBpm', 'beatLevel'],
     order: [['createdAt', 'DESC']],
   });
   const analyses = new Map(
     (await Analysis.findAll({ where: { recordingId: recordings.map((r) => r.id) } })).map((a) => [a.recordingId, a]),
   );
-  const beats = new Map<string, number>();
+  const out = new Map<string, Measured>();
   for (const r of recordings) {
-    if (beats.has(r.songId)) continue;
+    if (out.has(r.songId)) continue;
     const a = readStoredAnalysis(analyses.get(r.id) ?? null);
-    if (a && a.beatCount > 0) beats.set(r.songId, a.beatCount);
+    const found = r.correctedBpm ?? a?.bpm;
+    if (!a || a.beatCount <= 0 || !found) continue;
+    const level = LEVEL_FACTOR[r.beatLevel as BeatLevel];
+    out.set(r.songId, { beats: a.beatCount * level, bpm: found * level });
   }
-  return beats;
+  return out;
 }
 
 /** Set lists in their API form: the items, songs and measured beats of all of them in three queries, not per list. */
@@ -37,21 +50,25 @@ async function toSetListDtos(lists: SetList[]): Promise<SetListDto[]> {
   });
   const songIds = [...new Set(items.map((i) => i.songId))];
   const songs = new Map((await Song.findAll({ where: { id: songIds } })).map((s) => [s.id, s]));
-  const beats = await measuredBeats(songIds);
+  const measures = await measured(songIds);
   return lists.map((list) => {
     const rows = items
       .filter((i) => i.setListId === list.id)
       .map((i) => songs.get(i.songId))
       .filter((s): s is Song => Boolean(s))
       .map((s) => {
-        const b = beats.get(s.id);
+        const m = measures.get(s.id);
+        // At the chosen tempo when there is one; else the recording's own tempo gives its length as recorded.
+        const at = m ? (s.chosenBpm ? 'chosen' : 'analysed') : null;
         return {
           songId: s.id,
           title: s.title,
           meter: s.meter,
           chosenBpm: s.chosenBpm,
-          durationSec: b && s.chosenBpm ? secondsFor(b, s.chosenBpm) : null,
-        };
+          analysedBpm: m?.bpm ?? null,
+          durationSec: m ? secondsFor(m.beats, s.chosenBpm ?? m.bpm) : null,
+          durationAt: at,
+        } as const;
       });
     const known = rows.filter((r) => r.durationSec !== null);
     return {
@@ -60,6 +77,7 @@ async function toSetListDtos(lists: SetList[]): Promise<SetListDto[]> {
       songs: rows,
       totalSec: known.reduce((sum, r) => sum + r.durationSec!, 0),
       unknownDurations: rows.length - known.length,
+      estimatedDurations: known.filter((r) => r.durationAt === 'analysed').length,
       updatedAt: list.updatedAt.toISOString(),
     };
   });

@@ -3,7 +3,7 @@
 // access module looks the link up on every request).
 import crypto from 'node:crypto';
 import { fn, col, Op } from 'sequelize';
-import { PracticeEntry, Recording, Song, StudioInvitation, StudioLink, User } from '@/server/models';
+import { PracticeEntry, Recording, RecordingNote, Song, StudioInvitation, StudioLink, User } from '@/server/models';
 import { config } from '@/server/config';
 import { HttpError, notFound } from '@/server/http';
 import { linkMail, sendMail } from '@/server/mail/mailer';
@@ -132,7 +132,38 @@ export async function declineInvitation(user: Me, id: string): Promise<void> {
   await i.update({ status: 'declined', answeredBy: user.id, answeredAt: new Date() });
 }
 
-/** A teacher's students with their songs: tempos toward the goal, when each was last practised, recent takes. */
+/**
+ * A take waits for its teacher's answer this long: two weeks is two weekly lessons, after which it has been
+ * heard at one or is past answering (a judgement of the trade, not a published figure). The flag is for what
+ * to look at now, and a take the teacher has nothing to say on leaves it by itself.
+ */
+export const TAKE_ANSWER_DAYS = 14;
+
+/**
+ * Per recording, its open notes (not resolved) whose latest word — the note, or its last reply — is the
+ * recording owner's: a question or an answer back that waits for the teacher.
+ */
+function ownersLastWord(notes: RecordingNote[], ownerOf: Map<string, string>): Map<string, number> {
+  const latest = new Map<string, RecordingNote>();
+  for (const n of notes) {
+    const thread = n.parentId ?? n.id;
+    const seen = latest.get(thread);
+    if (!seen || n.createdAt >= seen.createdAt) latest.set(thread, n);
+  }
+  const out = new Map<string, number>();
+  for (const n of notes) {
+    if (n.parentId || n.resolved) continue;
+    if (latest.get(n.id)?.authorId !== ownerOf.get(n.recordingId)) continue;
+    out.set(n.recordingId, (out.get(n.recordingId) ?? 0) + 1);
+  }
+  return out;
+}
+
+/**
+ * A teacher's students with their songs: tempos toward the goal, when each was last practised, recent takes, and
+ * what waits for this teacher's answer (recent takes they have not written on, notes whose last word is the
+ * student's).
+ */
 export async function listStudents(teacherId: string): Promise<Student[]> {
   const links = await StudioLink.findAll({
     where: { teacherId },
@@ -152,24 +183,40 @@ export async function listStudents(teacherId: string): Promise<Student[]> {
       })) as unknown as { songId: string; last: Date }[])
     : [];
   const lastBySong = new Map(practised.map((p) => [p.songId, new Date(p.last).toISOString()]));
-  const takes = songIds.length
+  const recordings = songIds.length
     ? await Recording.findAll({
-        where: { songId: songIds, kind: 'take' },
-        attributes: ['id', 'songId', 'label', 'originalName', 'createdAt'],
+        where: { songId: songIds },
+        attributes: ['id', 'songId', 'ownerId', 'kind', 'label', 'originalName', 'uploadedBy', 'createdAt'],
         order: [['createdAt', 'DESC']],
       })
     : [];
-  const takesBySong = new Map<string, Recording[]>();
-  for (const t of takes) takesBySong.set(t.songId, [...(takesBySong.get(t.songId) ?? []), t]);
+  const notes = recordings.length
+    ? await RecordingNote.findAll({
+        where: { recordingId: recordings.map((r) => r.id) },
+        attributes: ['id', 'recordingId', 'authorId', 'parentId', 'resolved', 'createdAt'],
+        order: [['createdAt', 'ASC']],
+      })
+    : [];
+  const open = ownersLastWord(notes, new Map(recordings.map((r) => [r.id, r.ownerId])));
+  const answered = new Set(notes.filter((n) => n.authorId === teacherId).map((n) => n.recordingId));
+  const since = new Map(links.map((l) => [l.studentId, l.createdAt.getTime()]));
+  const recent = Date.now() - TAKE_ANSWER_DAYS * 86_400_000;
+  /** A take the student made lately, since the link, that this teacher has not written on. */
+  const awaits = (r: Recording, studentId: string) =>
+    r.kind === 'take' &&
+    r.uploadedBy !== teacherId &&
+    r.createdAt.getTime() >= Math.max(recent, since.get(studentId) ?? 0) &&
+    !answered.has(r.id);
+  const bySong = new Map<string, Recording[]>();
+  for (const r of recordings) bySong.set(r.songId, [...(bySong.get(r.songId) ?? []), r]);
+  const nameOf = (r: Recording) => r.label ?? r.originalName;
   return links.map((l) => {
     const s = (l as StudioLink & { student: User }).student;
     const own = songs.filter((song) => song.ownerId === s.id);
-    return {
-      id: s.id,
-      name: s.name,
-      email: s.email,
-      songCount: own.length,
-      songs: own.map((song) => ({
+    const songDtos = own.map((song) => {
+      const rows = bySong.get(song.id) ?? [];
+      const takes = rows.filter((r) => r.kind === 'take');
+      return {
         id: song.id,
         title: song.title,
         goalBpm: song.goalBpm,
@@ -177,10 +224,28 @@ export async function listStudents(teacherId: string): Promise<Student[]> {
         chosenBpm: song.chosenBpm,
         lastPracticedAt: lastBySong.get(song.id) ?? null,
         // The three newest takes are what a teacher looks at before a lesson.
-        recentTakes: (takesBySong.get(song.id) ?? [])
-          .slice(0, 3)
-          .map((t) => ({ id: t.id, label: t.label ?? t.originalName, createdAt: t.createdAt.toISOString() })),
-      })),
+        recentTakes: takes.slice(0, 3).map((t) => ({
+          id: t.id,
+          label: nameOf(t),
+          createdAt: t.createdAt.toISOString(),
+          awaitingAnswer: awaits(t, s.id),
+        })),
+        notesAwaiting: rows
+          .filter((r) => open.has(r.id))
+          .map((r) => ({ recordingId: r.id, label: nameOf(r), notes: open.get(r.id)! })),
+        takesAwaiting: takes.filter((t) => awaits(t, s.id)).length,
+      };
+    });
+    return {
+      id: s.id,
+      name: s.name,
+      email: s.email,
+      songCount: own.length,
+      songs: songDtos.map(({ takesAwaiting: _, ...song }) => song),
+      awaiting: {
+        takes: songDtos.reduce((sum, song) => sum + song.takesAwaiting, 0),
+        notes: songDtos.reduce((sum, song) => sum + song.notesAwaiting.reduce((n, r) => n + r.notes, 0), 0),
+      },
     };
   });
 }

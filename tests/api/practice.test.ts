@@ -1,6 +1,6 @@
 // The practice log by hand: every field of an entry (song, optional passage, tempos, clean or not, repetitions,
-// minutes, note), refused input in plain words with nothing written, a passage of another song refused, another
-// player kept out; the whole log across songs and its CSV export read back with csv-parse.
+// minutes, note, the day of a session logged later), refused input in plain words with nothing written, a
+// passage of another song refused, another player kept out; the whole log across songs and its CSV export read back with csv-parse.
 import fs from 'node:fs';
 import path from 'node:path';
 import request from 'supertest';
@@ -88,6 +88,87 @@ test('refused input is told in plain words, naming the field, and nothing is wri
     expect(res.body.error.message).not.toMatch(/Expected|invalid_type|ZodError|\[/);
   }
   expect(await countEntries()).toBe(before);
+});
+
+test('a session logged later counts on its day: listed, exported and dated there, with when it was logged', async () => {
+  const player = await signedInUser('practice-later');
+  const song = (await player.agent.post('/api/songs').send({ title: 'Lantern Jig' }).expect(201)).body.id;
+  const entry = { startBpm: 88, reachedBpm: 92, repetitions: 5, minutes: 20, clean: true };
+  const today = (await player.agent.post(`/api/songs/${song}/practice`).send(entry).expect(201)).body;
+  // Today's entry is dated when it was logged.
+  expect(today.createdAt).toBe(today.loggedAt);
+
+  // Yesterday at noon (the form sends noon of the chosen day in the player's zone), with the zone's offset.
+  const yesterdayNoon = new Date(Date.now() - 86_400_000);
+  yesterdayNoon.setUTCHours(12, 0, 0, 0);
+  const practisedAt = yesterdayNoon.toISOString().replace('Z', '+00:00');
+  const before = Date.now();
+  const later = (
+    await player.agent
+      .post(`/api/songs/${song}/practice`)
+      .send({ ...entry, reachedBpm: 90, practisedAt })
+      .expect(201)
+  ).body;
+  expect(later.createdAt).toBe(yesterdayNoon.toISOString());
+  expect(Date.parse(later.loggedAt)).toBeGreaterThanOrEqual(before - 1000);
+
+  // The song's log and the whole log are newest played first: the later-logged session comes after today's.
+  const listed = (await player.agent.get(`/api/songs/${song}/practice`).expect(200)).body.entries;
+  expect(listed.map((e: { id: string }) => e.id)).toEqual([today.id, later.id]);
+  const whole = (await player.agent.get('/api/practice').expect(200)).body.entries;
+  expect(whole.map((e: { id: string }) => e.id)).toEqual([today.id, later.id]);
+  // The export (oldest first) dates it on its day.
+  const rows = parse((await player.agent.get('/api/practice/export').expect(200)).text, { columns: true }) as Record<
+    string,
+    string
+  >[];
+  expect(rows.map((r) => [r.date, r['reached BPM']])).toEqual([
+    [yesterdayNoon.toISOString(), '90'],
+    [today.createdAt, '92'],
+  ]);
+  // The library's "last practised" stays the latest session played, not the latest logged.
+  const library = (await player.agent.get('/api/songs').expect(200)).body.songs as {
+    id: string;
+    lastPractisedAt: string;
+  }[];
+  expect(library.find((x) => x.id === song)!.lastPractisedAt).toBe(today.createdAt);
+});
+
+test('a day in the future, over a year back or not a date is refused in plain words, and nothing is written', async () => {
+  const before = await countEntries();
+  const day = 86_400_000;
+  const cases: [unknown, RegExp][] = [
+    [new Date(Date.now() + day).toISOString(), /^practisedAt: cannot be in the future$/],
+    [new Date(Date.now() - 400 * day).toISOString(), /^practisedAt: must be within the last year$/],
+    ['yesterday', /^practisedAt: give a date and time such as 2026-11-30T12:00:00Z$/],
+    ['2026-11-30', /^practisedAt: give a date and time/],
+    [20261130, /^practisedAt: enter some text$/],
+  ];
+  for (const [practisedAt, words] of cases) {
+    const res = await owner.agent
+      .post(`/api/songs/${songId}/practice`)
+      .send({ startBpm: 90, reachedBpm: 94, repetitions: 4, minutes: 5, clean: true, practisedAt })
+      .expect(400);
+    expect(res.body.error).toMatchObject({
+      code: 'invalid_body',
+      field: 'practisedAt',
+      message: expect.stringMatching(words),
+    });
+  }
+  expect(await countEntries()).toBe(before);
+  // Half a year back is within reach.
+  await owner.agent
+    .post(`/api/songs/${songId}/practice`)
+    .send({
+      startBpm: 90,
+      reachedBpm: 94,
+      repetitions: 4,
+      minutes: 5,
+      clean: true,
+      practisedAt: new Date(Date.now() - 182 * day).toISOString(),
+    })
+    .expect(201);
+  expect(await countEntries()).toBe(before + 1);
 });
 
 test('a passage or a looped recording must belong to the song; another player gets 404 and anonymous 401', async () => {

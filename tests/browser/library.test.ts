@@ -1,6 +1,7 @@
 // The library and set lists in a real browser, on a phone (390 px) and at a desk (1280 px): a dozen songs, a
-// search that finds one, a sort and a filter that change the list; then a set list of three songs, reordered,
-// with its total length checked against hand arithmetic, and its stage view for print.
+// search that finds one, a sort and a filter that change the list; then a set list of four songs (one with only
+// an analysed tempo, one with no tempo at all), reordered, with its total length checked against hand arithmetic,
+// and its stage view for print.
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
@@ -11,8 +12,9 @@ import { formatDuration } from '@/shared/format';
 const CLIP = fs.readFileSync(path.resolve(__dirname, '../../fixtures/clips/drums-bass-124.mp3'));
 let browser: Browser;
 let player: Awaited<ReturnType<typeof signedInUser>>;
-/** Beats the engine measured in the clip; both songs with a recording have this clip. */
+/** Beats the engine measured in the clip, and its tempo; every song with a recording has this clip. */
 let beats: number;
+let analysedBpm: number;
 
 // Invented songs. "Ready to perform" = working tempo has reached the goal: Lanterns, Slate Roof, Tidewater.
 const SONGS = [
@@ -51,7 +53,8 @@ beforeAll(async () => {
   const ids: Record<string, string> = {};
   for (const song of SONGS) ids[song.title] = (await player.agent.post('/api/songs').send(song).expect(201)).body.id;
   const uploads = [];
-  for (const title of ['Copperline Reel', 'Saltmarsh Air'])
+  // The hornpipe has a recording but no chosen tempo: the set list shows its analysed tempo, marked not chosen.
+  for (const title of ['Copperline Reel', 'Saltmarsh Air', 'Gull Rock Hornpipe'])
     uploads.push(
       (
         await player.agent
@@ -63,7 +66,8 @@ beforeAll(async () => {
     );
   const analysed = await Promise.all(uploads.map((id) => waitForAnalysis(player.agent, id, 60_000)));
   beats = analysed[0].analysis.beatCount;
-  expect(analysed[1].analysis.beatCount).toBe(beats);
+  analysedBpm = analysed[0].analysis.bpm;
+  for (const a of analysed) expect(a.analysis).toMatchObject({ beatCount: beats, bpm: analysedBpm });
   browser = await launchChromium();
 }, 120_000);
 afterAll(async () => {
@@ -81,7 +85,7 @@ const waitForTitles = (page: Page, titles: string[]) =>
   );
 
 describe.each(viewports)('library and set lists at $name width', (viewport) => {
-  test('search, sort and filter a dozen songs; a set list of three, reordered, totalled and printed', async () => {
+  test('search, sort and filter a dozen songs; a set list of four, reordered, totalled and printed', async () => {
     const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
     const page = await context.newPage();
     const errors: string[] = [];
@@ -131,24 +135,38 @@ describe.each(viewports)('library and set lists at $name width', (viewport) => {
     await page.getByText('Ready to perform: the working tempo has reached the goal tempo.').waitFor();
     await page.screenshot({ path: path.join(outputDir, `library-ready-${viewport.name}.png`), fullPage: true });
 
-    // A set list of three: two with a chosen tempo and a recording, one without a chosen tempo.
+    // A set list of four: two with a chosen tempo and a recording, one with a recording but no chosen tempo, one
+    // with neither.
     await page.getByRole('link', { name: 'Set lists' }).click();
     await page.getByTestId('set-lists').waitFor();
     await page.getByTestId('new-set-list-name').fill(`Harbour Lane, Friday (${viewport.name})`);
     await page.getByTestId('create-set-list').click();
     await page.getByTestId('set-list').waitFor();
-    for (const [i, title] of ['Copperline Reel', 'Saltmarsh Air', 'Nine Steps Waltz'].entries()) {
+    const titles = ['Copperline Reel', 'Saltmarsh Air', 'Gull Rock Hornpipe', 'Nine Steps Waltz'];
+    for (const [i, title] of titles.entries()) {
       await page.getByRole('button', { name: `Add ${title}` }).click();
       await page.waitForFunction((n) => document.querySelectorAll('[data-testid="set-list-song"]').length === n, i + 1);
     }
     // A song lasts its beats at its chosen tempo: B beats at 124 BPM last B × 60 / 124 s, at 62 BPM twice as
-    // long, B × 60 / 62 s; together B × 180 / 124 s. The waltz has no chosen tempo and is not counted.
-    const total = `${formatDuration((beats * 180) / 124)} in all at the chosen tempos, not counting 1 song without a length`;
+    // long, B × 60 / 62 s. The hornpipe has no chosen tempo: its beats at the tempo they were measured at, A BPM,
+    // B × 60 / A s, which makes the total an estimate. The waltz has no recording and is not counted.
+    const hornpipeSec = (beats * 60) / analysedBpm;
+    const total =
+      `About ${formatDuration((beats * 180) / 124 + hornpipeSec)} in all, an estimate: 1 song at its analysed ` +
+      'tempo, not a chosen one; not counting 1 song without a length';
     await page.getByTestId('set-list-total').filter({ hasText: total }).waitFor();
     expect(await page.getByTestId('set-list-song-length').allInnerTexts()).toEqual([
       formatDuration((beats * 60) / 124),
       formatDuration((beats * 60) / 62),
-      'no chosen tempo yet',
+      `≈ ${formatDuration(hornpipeSec)} at the analysed tempo`,
+      'no analysed recording, so no length',
+    ]);
+    // Never a bare dash: the analysed tempo marked as not chosen, or the words.
+    expect(await page.getByTestId('set-list-song-tempo').evaluateAll((els) => els.map((e) => e.textContent))).toEqual([
+      '124 BPM',
+      '62 BPM',
+      `≈ ${Math.round(analysedBpm)}BPM, not chosen`,
+      'No tempo chosen',
     ]);
 
     // Reorder: the air to the top.
@@ -164,7 +182,12 @@ describe.each(viewports)('library and set lists at $name width', (viewport) => {
     // The stage view: every click tempo large, in the new order; on paper the buttons are gone.
     await page.getByTestId('open-stage-view').click();
     await page.getByTestId('stage-view').waitFor();
-    expect(await page.getByTestId('stage-bpm').allInnerTexts()).toEqual(['62', '124', '—']);
+    expect(await page.getByTestId('stage-tempo').allInnerTexts()).toEqual([
+      '62\nBPM',
+      '124\nBPM',
+      `≈ ${Math.round(analysedBpm)}\nBPM, not chosen`,
+      'No tempo chosen',
+    ]);
     await page.getByTestId('stage-total').filter({ hasText: total }).waitFor();
     await page.screenshot({ path: path.join(outputDir, `set-list-stage-${viewport.name}.png`), fullPage: true });
     await page.emulateMedia({ media: 'print' });

@@ -1,5 +1,6 @@
-// The fake microphone and the live view's marks, for the browser tests of recording a take and playing along.
-import type { Browser, Page } from 'playwright-core';
+// The fake microphone (or a refused one) and the live view's marks, for the browser tests of recording a take
+// and playing along.
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchChromium } from './chromium';
 
 /** Chromium with a fake microphone fed from `wavFile` (restarted from its start each time it is opened). */
@@ -9,6 +10,14 @@ export function launchWithFakeMicrophone(wavFile: string): Promise<Browser> {
     '--use-fake-ui-for-media-stream',
     `--use-file-for-fake-audio-capture=${wavFile}`,
   ]);
+}
+
+/** Every page of `context` refuses the microphone as the browser does after the player said no to its prompt. */
+export async function refuseMicrophone(context: BrowserContext): Promise<void> {
+  await context.addInitScript(() => {
+    navigator.mediaDevices.getUserMedia = () =>
+      Promise.reject(new DOMException('Permission denied', 'NotAllowedError'));
+  });
 }
 
 /** Collects every live mark as it appears (the card shows only the last few), by its spoken label. */

@@ -12,7 +12,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Browser } from 'playwright-core';
 import { launchChromium, outputDir, screenshotOf, signInThroughApp } from './chromium';
-import { launchWithFakeMicrophone, seenLiveMarks, watchLiveMarks } from './live-marks';
+import { launchWithFakeMicrophone, refuseMicrophone, seenLiveMarks, watchLiveMarks } from './live-marks';
 import { baseUrl, PASSWORD, signedInUser, waitForAnalysis } from '@/tests/api/helpers';
 import { hitTrainWav } from '@/fixtures/live-takes';
 import { ALONG_MARGIN_SEC } from '@/client/live-session';
@@ -178,10 +178,7 @@ test('play-along with the microphone refused: a plain message, and the player st
   ).body;
   expect((await waitForAnalysis(player.agent, uploaded.id)).status).toBe('done');
   const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
-  await context.addInitScript(() => {
-    navigator.mediaDevices.getUserMedia = () =>
-      Promise.reject(new DOMException('Permission denied', 'NotAllowedError'));
-  });
+  await refuseMicrophone(context);
   const page = await context.newPage();
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));

@@ -2,6 +2,7 @@
 // working tempo its teacher set, two sessions logged by hand at rising tempos (the chart's caption moves), the
 // offer to raise the working tempo naming the teacher, accepted and undone; a session on the passage draws its
 // own chart; the duration planner's worked example; the week's summary; the CSV export read back with csv-parse.
+// A session logged later, on yesterday: placed on its day by the chart and the log; refused days told why.
 import fs from 'node:fs';
 import path from 'node:path';
 import { parse } from 'csv-parse/sync';
@@ -149,3 +150,69 @@ describe.each(viewports)('practice log at $width px', (viewport) => {
     await context.close();
   });
 });
+
+describe.each(viewports)('a session logged later at $width px', (viewport) => {
+  test('yesterday’s forgotten session lands on its day; a future, far-back or unreadable day is refused', async () => {
+    const player = await signedInUser(`practice-later-${viewport.name}`);
+    const songId = (
+      await player.agent.post('/api/songs').send({ title: 'Lantern Jig', meter: '6/8', goalBpm: 120 }).expect(201)
+    ).body.id;
+    const session = { startBpm: 96, reachedBpm: 100, repetitions: 4, minutes: 15, clean: true };
+    await player.agent.post(`/api/songs/${songId}/practice`).send(session).expect(201);
+
+    const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await signInThroughApp(page, player.email, PASSWORD);
+    await page.goto(`${baseUrl}/songs/${songId}`);
+    const form = page.getByTestId('log-practice');
+    await form.waitFor();
+    const songChart = page.getByTestId('practice-chart-song');
+    await songChart.getByText('1 session over 1 day; the last reached 100 BPM, clean.').waitFor();
+
+    // Refused days say why under the field, and nothing is logged.
+    const day = form.getByTestId('log-day');
+    const refused: [string, string][] = [
+      [isoDay(+1), 'cannot be in the future'],
+      [isoDay(-800), 'must be within the last year'],
+      ['last tuesday', 'write the day as year-month-day, such as 2026-11-30'],
+    ];
+    for (const [text, words] of refused) {
+      await day.fill(text);
+      await logByHand(page, { reached: '98', clean: true, reps: '3', minutes: '10' });
+      await form.getByText(words).waitFor();
+    }
+    await shot(page, `practice-day-refused-${viewport.name}`);
+
+    // Yesterday, by its chip: the chart now spans two days, and the log gives its day and when it was logged.
+    await form.getByTestId('log-yesterday').click();
+    await form.getByText(/^Yesterday, /).waitFor();
+    await logByHand(page, { reached: '98', clean: true, reps: '3', minutes: '10', note: 'forgot to log it' });
+    await form.getByText(/^Logged for .+: the whole piece at 98 BPM, clean\.$/).waitFor();
+    // Oldest first on the chart: yesterday's 98, then today's 100 is the last.
+    await songChart.getByText('2 sessions over 2 days; the last reached 100 BPM, clean.').waitFor();
+    const log = page.getByTestId('practice-log');
+    await log.getByText(/\(logged .+\)$/).waitFor();
+    await log.screenshot({ path: path.join(outputDir, `practice-day-log-${viewport.name}.png`) });
+    // The field is back on today for the next session.
+    expect(await day.inputValue()).toBe(isoDay(0));
+    const entries = (await player.agent.get(`/api/songs/${songId}/practice`).expect(200)).body.entries;
+    expect(entries.map((e: { reachedBpm: number }) => e.reachedBpm)).toEqual([100, 98]);
+    await page.getByTestId('log-practice').screenshot({
+      path: path.join(outputDir, `practice-day-form-${viewport.name}.png`),
+    });
+    await page.getByTestId('practice-progress').screenshot({
+      path: path.join(outputDir, `practice-day-chart-${viewport.name}.png`),
+    });
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
+
+/** The local day `days` from today as the day field writes it (the browser runs in this machine's zone). */
+function isoDay(days: number): string {
+  const d = new Date();
+  d.setDate(d.getDate() + days);
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+}

@@ -8,7 +8,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { outputDir, screenshotOf, signInThroughApp } from './chromium';
-import { launchWithFakeMicrophone, seenLiveMarks, watchLiveMarks } from './live-marks';
+import { launchWithFakeMicrophone, refuseMicrophone, seenLiveMarks, watchLiveMarks } from './live-marks';
 import { PASSWORD, signedInUser } from '@/tests/api/helpers';
 import { hitTrainWav, steadyThenRushing } from '@/fixtures/live-takes';
 import { OFFSET_TOLERANCE_MS } from '@/audio/live/feedback';
@@ -207,11 +207,7 @@ test('a refused microphone gets a plain message, and the rest of the song page s
     .send({ title: 'Quiet Harbour Waltz', meter: '3/4', workingBpm: 90 })
     .expect(201);
   const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
-  // The player said no: the browser refuses as it does after a denied prompt.
-  await context.addInitScript(() => {
-    navigator.mediaDevices.getUserMedia = () =>
-      Promise.reject(new DOMException('Permission denied', 'NotAllowedError'));
-  });
+  await refuseMicrophone(context);
   const page = await context.newPage();
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));

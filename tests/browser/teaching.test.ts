@@ -1,7 +1,7 @@
 // A teacher and a student through the whole loop in the browser: the teacher invites a new address, the
 // invitee opens the caught mail's link, signs up, confirms, accepts and uploads a take; the teacher opens it
-// from the Students screen and writes a note at 0:42 and one on bars 9–12; the student sees both and replies;
-// the teacher sees the reply. The teacher works at a desk (1280 px), the student on a phone (390 px); then the
+// from the Students screen (flagged as waiting for an answer) and writes a note at 0:42 and one on bars 9–12;
+// the student sees both and replies; the teacher sees the reply, and the Students screen flags it. The teacher works at a desk (1280 px), the student on a phone (390 px); then the
 // teacher's view on a phone: the notes before the player, the candidate tempos saying what a teacher can do.
 import fs from 'node:fs';
 import os from 'node:os';
@@ -96,8 +96,15 @@ test('invite, sign up through the link, upload a take, notes at a moment and on 
   await s.page.getByTestId('tempo-result').waitFor({ timeout: 60_000 });
   const recordingUrl = s.page.url();
 
-  // The teacher finds it from the Students screen, labelled with the student's name.
+  // The teacher finds it from the Students screen, flagged as waiting for an answer, labelled with the student's
+  // name.
   await t.page.goto(`${baseUrl}/students`);
+  await t.page.getByTestId('student-awaiting').getByText('1 take waits for your answer').waitFor();
+  await t.page
+    .getByTestId('student-take')
+    .getByText(/ · new$/)
+    .waitFor();
+  await shot(t.page, 'teaching-students-take-waits-desktop');
   await t.page.getByTestId('student-song').getByText('Scales in Thirds').click();
   await t.page.getByTestId('song').waitFor();
   await t.page.getByTestId('recording-row').first().click();
@@ -154,6 +161,26 @@ test('invite, sign up through the link, upload a take, notes at a moment and on 
   expect(Math.abs(onBars.endSec! - onBars.startSec! - 8)).toBeLessThan(0.5);
   expect(firstBar).toBeGreaterThan(-0.6);
   expect(stored.find((n) => n.atSec !== null)!.atSec).toBe(42);
+
+  // On the Students screen the take no longer waits (the teacher wrote on it); the student's reply does.
+  await t.page.goto(`${baseUrl}/students`);
+  await t.page.getByTestId('student-awaiting').getByText('1 note waits for your answer').waitFor();
+  expect(
+    await t.page
+      .getByTestId('student-take')
+      .getByText(/ · new$/)
+      .count(),
+  ).toBe(0);
+  await t.page
+    .getByTestId('student-notes-awaiting')
+    .getByText(/^1 note to answer on /)
+    .waitFor();
+  await t.page.setViewportSize({ width: phone.width, height: phone.height });
+  await shot(t.page, 'teaching-students-note-waits-phone');
+  await t.page.setViewportSize({ width: desk.width, height: desk.height });
+  // The chip leads to the recording, where the reply is.
+  await t.page.getByTestId('student-notes-awaiting').click();
+  await t.page.getByTestId('recording').waitFor();
 
   // On a phone the teacher reaches the notes before the player; the student's own view keeps the player first.
   const top = async (page: Page, testId: string) => (await page.getByTestId(testId).boundingBox())!.y;

@@ -1,9 +1,14 @@
 // The practice log as numbers: ISO 8601 weeks in the player's local time, a week's minutes, songs and tempo
-// gained, and the points of the tempo-over-days chart.
+// gained, the points of the tempo-over-days chart, and the day of a session logged later.
 import {
+  dayNumber,
   dayOf,
+  dayText,
   isoWeekOf,
   localDay,
+  loggedLater,
+  parseDay,
+  practisedAtOf,
   previousWeek,
   tempoOverDays,
   weekStart,
@@ -141,4 +146,51 @@ test('the chart plots each session at its local day, oldest first, whatever orde
     { x: dec1, y: 92, clean: false },
     { x: dec1 + 1.5, y: 96, clean: true },
   ]);
+});
+
+describe('a session logged later', () => {
+  // ISO 8601 calendar dates in the extended format, YYYY-MM-DD; the Gregorian leap-year rule (every fourth
+  // year, not centuries unless divisible by 400) decides which 29 Februaries exist — both common practice.
+  test.each([
+    ['2026-11-30', { year: 2026, month: 11, day: 30 }],
+    [' 2026-1-5 ', { year: 2026, month: 1, day: 5 }],
+    ['2028-02-29', { year: 2028, month: 2, day: 29 }],
+    ['2000-02-29', { year: 2000, month: 2, day: 29 }],
+    ['2026-02-29', null],
+    ['1900-02-29', null],
+    ['2026-04-31', null],
+    ['2026-13-01', null],
+    ['30/11/2026', null],
+    ['yesterday', null],
+    ['', null],
+  ])('%j reads as %j', (text, day) => {
+    expect(parseDay(text)).toEqual(day);
+  });
+
+  test('a day is written back as ISO 8601, padded', () => {
+    expect(dayText({ year: 2026, month: 1, day: 5 })).toBe('2026-01-05');
+    expect(parseDay(dayText({ year: 2026, month: 12, day: 31 }))).toEqual({ year: 2026, month: 12, day: 31 });
+  });
+
+  test('today is sent as nothing (the server’s now); an earlier day as its noon, which is that local day', () => {
+    // Local times throughout, so the check holds in any time zone the tests run in.
+    const now = new Date(2026, 11, 2, 8, 15);
+    expect(practisedAtOf({ year: 2026, month: 12, day: 2 }, now)).toBeUndefined();
+    expect(practisedAtOf({ year: 2026, month: 12, day: 1 }, now)).toBe(new Date(2026, 11, 1, 12).toISOString());
+    // 29 March 2026 is the day Europe's clocks go forward (EU summer time: the last Sunday of March): noon
+    // stays on that day wherever the tests run.
+    const earlier = practisedAtOf({ year: 2026, month: 3, day: 29 }, now)!;
+    expect(localDay(earlier)).toEqual({ year: 2026, month: 3, day: 29 });
+    // The chart plots it at noon of that day, and the week counts it in that day's week.
+    expect(tempoOverDays([entry({ createdAt: earlier })])[0]!.x).toBeCloseTo(
+      dayNumber({ year: 2026, month: 3, day: 29 }) + 0.5,
+      9,
+    );
+    expect(isoWeekOf(localDay(earlier))).toEqual({ year: 2026, week: 13 }); // a Sunday: the end of week 13
+  });
+
+  test('an entry logged a day after it was played is told apart from one logged as it was played', () => {
+    expect(loggedLater({ createdAt: '2026-12-01T12:00:00Z', loggedAt: '2026-12-02T08:15:00Z' })).toBe(true);
+    expect(loggedLater({ createdAt: '2026-12-02T08:15:00Z', loggedAt: '2026-12-02T08:15:00Z' })).toBe(false);
+  });
 });

@@ -96,10 +96,11 @@ export default function SetListScreen() {
           onOrder={(songIds) => run(() => changeSetList(setList.id, { songIds }))}
         />
       )}
-      {setList.unknownDurations > 0 ? (
+      {setList.unknownDurations > 0 || setList.estimatedDurations > 0 ? (
         <Body muted>
-          A song&apos;s length is its analysed recording&apos;s beats played at its chosen tempo: choose a tempo and add
-          a recording to count it in the total.
+          A song&apos;s length is its analysed recording&apos;s beats played at its chosen tempo; until a tempo is
+          chosen, at the tempo the recording was analysed at (≈, an estimate). Add a recording to count a song in the
+          total, and choose its tempo to make the total exact.
         </Body>
       ) : null}
       <AddSongs
