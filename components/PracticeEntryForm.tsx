@@ -4,10 +4,10 @@
 import React, { useState } from 'react';
 import { View } from 'react-native';
 import { space, type } from './theme';
-import { Button, Card, Chip, Field, Heading, Notice, Row, Small } from './ui';
+import { Button, Card, Chip, DayField, Field, Heading, Notice, Row, Small } from './ui';
 import { RaiseOffer, offerAfter, type Offer } from './RaiseOffer';
 import { logPractice, useMe, usePassages } from '@/client/hooks';
-import { PracticeInputSchema, type Song } from '@/shared/schemas';
+import { PRACTICE_BACKDATE_DAYS, PracticeInputSchema, type Song } from '@/shared/schemas';
 import { DAY_TEXT_PROBLEM, fieldProblems } from '@/shared/messages';
 import { formatBpm, formatDate } from '@/shared/format';
 import { dayNumber, dayOf, dayText, localDay, parseDay, practisedAtOf } from '@/audio/practice/practice-log';
@@ -18,6 +18,8 @@ const num = (s: string) => (s.trim() === '' ? undefined : Number(s.trim().replac
 /** Today and yesterday in the player's time zone, as the day field writes them. */
 const todayText = () => dayText(localDay(new Date()));
 const yesterdayText = () => dayText(dayOf(dayNumber(localDay(new Date())) - 1));
+/** The earliest day the schema takes (its noon is within PRACTICE_BACKDATE_DAYS of now): the picker's lower end. */
+const earliestDayText = () => dayText(dayOf(dayNumber(localDay(new Date())) - (PRACTICE_BACKDATE_DAYS - 1)));
 
 /** The day field read back in words under it ("1 Dec 2026"), so a slip in the digits shows before logging. */
 function dayInWords(text: string): string | undefined {
@@ -149,11 +151,12 @@ export function PracticeEntryForm({ song }: { song: Song }) {
         <Chip label="Not clean yet" selected={!clean} onPress={() => setClean(false)} testID="log-not-clean" />
       </Row>
       <Row align="flex-start">
-        <Field
+        <DayField
           label="Day practised"
           value={day}
           onChangeText={changeDay}
-          placeholder="year-month-day"
+          min={earliestDayText()}
+          max={todayText()}
           error={errors.practisedAt}
           hint={dayInWords(day)}
           testID="log-day"

@@ -2,6 +2,7 @@
 import React from 'react';
 import {
   ActivityIndicator,
+  Platform,
   Pressable,
   ScrollView,
   StyleSheet,
@@ -98,6 +99,17 @@ const buttonColors: Record<ButtonKind, { bg: string; fg: string; border: string;
   danger: { bg: colors.card, fg: colors.danger, border: colors.danger, active: colors.dangerSoft },
 };
 
+/** Under a field: its problem (announced), else its hint. */
+function FieldNote({ error, hint }: { error?: string | null; hint?: string }) {
+  if (error)
+    return (
+      <Text role="alert" style={[type.small, { color: colors.danger }]}>
+        {error}
+      </Text>
+    );
+  return hint ? <Small>{hint}</Small> : null;
+}
+
 export function Field({
   label,
   error,
@@ -113,13 +125,74 @@ export function Field({
         style={[styles.input, error ? { borderColor: colors.danger } : null]}
         {...input}
       />
-      {error ? (
-        <Text role="alert" style={[type.small, { color: colors.danger }]}>
-          {error}
-        </Text>
-      ) : hint ? (
-        <Small>{hint}</Small>
-      ) : null}
+      <FieldNote error={error} hint={hint} />
+    </View>
+  );
+}
+
+/**
+ * A calendar day, written year-month-day. On the web it is the browser's own date input, so a phone offers its
+ * date picker instead of a keyboard; `min` and `max` (also year-month-day) keep the picker within the days allowed.
+ */
+export function DayField({
+  label,
+  value,
+  onChangeText,
+  min,
+  max,
+  error,
+  hint,
+  testID,
+}: {
+  label: string;
+  value: string;
+  onChangeText: (day: string) => void;
+  min?: string;
+  max?: string;
+  error?: string | null;
+  hint?: string;
+  testID?: string;
+}) {
+  if (Platform.OS !== 'web')
+    return (
+      <Field
+        label={label}
+        value={value}
+        onChangeText={onChangeText}
+        placeholder="year-month-day"
+        error={error}
+        hint={hint}
+        testID={testID}
+      />
+    );
+  return (
+    <View style={{ gap: space.xs }}>
+      <Text style={[type.label, { color: colors.ink }]}>{label}</Text>
+      {React.createElement('input', {
+        type: 'date',
+        value,
+        min,
+        max,
+        'aria-label': label,
+        'aria-invalid': error ? true : undefined,
+        'data-testid': testID,
+        onChange: (e: React.ChangeEvent<HTMLInputElement>) => onChangeText(e.target.value),
+        style: {
+          // The text field's look (styles.input) in CSS: React Native's numbers are pixels here too.
+          fontFamily: type.body.fontFamily,
+          fontSize: type.body.fontSize,
+          lineHeight: `${type.body.lineHeight}px`,
+          minHeight: layout.minTouch,
+          boxSizing: 'border-box',
+          alignSelf: 'flex-start',
+          border: `1.5px solid ${error ? colors.danger : colors.line}`,
+          borderRadius: radius.sm,
+          padding: `0 ${space.md}px`,
+          backgroundColor: colors.white,
+          color: colors.ink,
+        },
+      })}
+      <FieldNote error={error} hint={hint} />
     </View>
   );
 }

@@ -32,8 +32,8 @@ export const FIELD_LABELS: Record<string, string> = {
   practisedAt: 'Day practised',
 };
 
-/** A day typed in a form that is not one (the forms write days as ISO 8601, as a date field does). */
-export const DAY_TEXT_PROBLEM = 'write the day as year-month-day, such as 2026-11-30';
+/** A day field left empty or not a day (the forms hold days as ISO 8601, as a date input does). */
+export const DAY_TEXT_PROBLEM = 'choose the day it was played';
 
 const article = (n: number | bigint, unit: string) => `${n} ${unit}${Number(n) === 1 ? '' : 's'}`;
 

@@ -171,12 +171,16 @@ describe.each(viewports)('a session logged later at $width px', (viewport) => {
     const songChart = page.getByTestId('practice-chart-song');
     await songChart.getByText('1 session over 1 day; the last reached 100 BPM, clean.').waitFor();
 
-    // Refused days say why under the field, and nothing is logged.
+    // The day is the browser's date input (a phone's date picker), kept between a year back and today.
     const day = form.getByTestId('log-day');
+    expect(await day.getAttribute('type')).toBe('date');
+    expect(await day.getAttribute('max')).toBe(isoDay(0));
+    expect(await day.getAttribute('min')).toBe(isoDay(-366));
+    // Refused days (typed past the picker's ends, or cleared) say why under the field, and nothing is logged.
     const refused: [string, string][] = [
       [isoDay(+1), 'cannot be in the future'],
       [isoDay(-800), 'must be within the last year'],
-      ['last tuesday', 'write the day as year-month-day, such as 2026-11-30'],
+      ['', 'choose the day it was played'],
     ];
     for (const [text, words] of refused) {
       await day.fill(text);
