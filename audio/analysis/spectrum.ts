@@ -54,7 +54,10 @@ export function forEachSpectrum(
   const mags = new Float32Array(nBins);
   const frames = Math.max(0, Math.floor((samples.length + padStart - frameSize) / hop) + 1);
   const setup = m._pffft_new_setup(frameSize, 0);
+  if (!setup) throw new Error(`PFFFT has no real transform of ${frameSize} points (a multiple of 32 is needed)`);
   const frame = m._pffft_aligned_malloc(frameSize * 4);
+  // Scratch space of its own: without it PFFFT takes N floats of its small stack, which large frames overrun.
+  const work = m._pffft_aligned_malloc(frameSize * 4);
   try {
     // The frame is windowed in a plain array and copied in (writing element by element into the module's
     // memory was 3× slower); the memory is read after the allocation (it may have grown), nothing allocates
@@ -67,7 +70,7 @@ export function forEachSpectrum(
       if (start >= 0) for (let i = 0; i < frameSize; i++) windowed[i] = samples[start + i]! * window[i]!;
       else for (let i = 0; i < frameSize; i++) windowed[i] = start + i >= 0 ? samples[start + i]! * window[i]! : 0;
       spectrum.set(windowed);
-      m._pffft_transform_ordered(setup, frame, frame, 0, 0);
+      m._pffft_transform_ordered(setup, frame, frame, work, 0);
       // PFFFT's order for a real transform: DC and Nyquist (both real) first, then re/im pairs of bins 1…N/2−1.
       for (let k = 1; k < nBins && k < last; k++) {
         const re = spectrum[2 * k]!;
@@ -80,6 +83,7 @@ export function forEachSpectrum(
       onFrame(f, mags);
     }
   } finally {
+    m._pffft_aligned_free(work);
     m._pffft_aligned_free(frame);
     m._pffft_destroy_setup(setup);
   }

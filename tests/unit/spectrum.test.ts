@@ -25,6 +25,14 @@ test('a sine on bin 40 of a 512-point Hann frame reads N/4 there and N/8 on each
   for (const k of [0, 10, 38, 42, 100, 256]) expect(m![k]).toBeLessThan(1e-3);
 });
 
+test("a 65 536-point frame (the stretch benchmark measures a bass note's pitch with one) reads its sine", () => {
+  const N = 65536;
+  const x = Float32Array.from({ length: N }, (_, i) => Math.sin((2 * Math.PI * 82 * i) / N));
+  const [m] = spectra(x, N, N);
+  expect(m![82]! / (N / 4)).toBeCloseTo(1, 4);
+  expect(m![81]! / (N / 8)).toBeCloseTo(1, 4);
+});
+
 test.each([512, 2048])('every frame of noise matches fft.js (%p points) within single precision', (N) => {
   let seed = 7;
   const noise = Float32Array.from({ length: 6 * N }, () => ((seed = (seed * 16807) % 2147483647) / 2147483647) * 2 - 1);
