@@ -8,6 +8,7 @@ import { space } from './theme';
 import { barsIn, beatName, beatsInBar, bpmToFit, secondsFor, type BeatUnit } from '@/audio/practice/duration';
 import { barsFit, formatBpm, formatClock, parseClock, plural, tenth } from '@/shared/format';
 import type { Recording, Song } from '@/shared/schemas';
+import { feltBeatCount } from '@/audio/practice/beat-grid';
 
 export function DurationPlanner({
   song,
@@ -24,9 +25,11 @@ export function DurationPlanner({
   const [bars, setBars] = useState('');
   const [target, setTarget] = useState('');
   const perBar = beatsInBar(song.meter, unit);
-  // The recording's beats are counted at the level the engine found, i.e. the beat as felt.
+  // The recording's beats as the player feels them (their tempo correction and beat level), in the unit chosen.
   const measuredBeats = measured
-    ? (measured.analysis!.beatCount * beatsInBar(song.meter, unit)) / beatsInBar(song.meter, 'felt')
+    ? (feltBeatCount(measured.analysis!.beatCount, measured.analysis!.bpm, measured.correctedBpm, measured.beatLevel) *
+        beatsInBar(song.meter, unit)) /
+      beatsInBar(song.meter, 'felt')
     : null;
   const barCount = Number(bars);
   const beats = bars.trim() && barCount > 0 ? barCount * perBar : measuredBeats;

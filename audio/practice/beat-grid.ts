@@ -7,6 +7,21 @@ export type BeatLevel = 'half' | 'as-found' | 'double';
 /** How the felt tempo relates to the one found, per level. */
 export const LEVEL_FACTOR: Record<BeatLevel, number> = { half: 0.5, 'as-found': 1, double: 2 };
 
+/**
+ * How many beats the player feels in a recording: the engine's count, scaled by a tempo the player corrected by
+ * hand (the recording holds that many beats a minute, not the engine's) and by the level. At its own felt tempo
+ * the recording then lasts exactly as long as it does.
+ */
+export function feltBeatCount(
+  beatCount: number,
+  foundBpm: number | null,
+  correctedBpm: number | null,
+  level: BeatLevel,
+): number {
+  const corrected = correctedBpm && foundBpm ? correctedBpm / foundBpm : 1;
+  return beatCount * corrected * LEVEL_FACTOR[level];
+}
+
 export interface FeltChoices {
   beatLevel: BeatLevel;
   /** The time of the beat the player calls one; null = bar 1 as the engine found it. */

@@ -5,7 +5,7 @@ import { Analysis, Recording, SetList, SetListItem, Song } from '@/server/models
 import { sequelize } from '@/server/db';
 import { HttpError } from '@/server/http';
 import { secondsFor } from '@/audio/practice/duration';
-import { LEVEL_FACTOR, type BeatLevel } from '@/audio/practice/beat-grid';
+import { feltBeatCount, LEVEL_FACTOR, type BeatLevel } from '@/audio/practice/beat-grid';
 import type { Me, SetListDto, SetListInput, SetListPatch } from '@/shared/schemas';
 import { assertMay, missing, type Action } from './access';
 import { readStoredAnalysis } from './recordings';
@@ -35,8 +35,11 @@ async function measured(songIds: string[]): Promise<Map<string, Measured>> {
     const a = readStoredAnalysis(analyses.get(r.id) ?? null);
     const found = r.correctedBpm ?? a?.bpm;
     if (!a || a.beatCount <= 0 || !found) continue;
-    const level = LEVEL_FACTOR[r.beatLevel as BeatLevel];
-    out.set(r.songId, { beats: a.beatCount * level, bpm: found * level });
+    const level = r.beatLevel as BeatLevel;
+    out.set(r.songId, {
+      beats: feltBeatCount(a.beatCount, a.bpm, r.correctedBpm, level),
+      bpm: found * LEVEL_FACTOR[level],
+    });
   }
   return out;
 }

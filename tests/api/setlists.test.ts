@@ -82,22 +82,24 @@ test('a song with no chosen tempo shows its analysed tempo, as the player hears 
   const half = (await player.agent.get(`/api/set-lists/${list.id}`).expect(200)).body.songs[0];
   expect(half.analysedBpm).toBeCloseTo(bpm / 2, 6);
   expect(half.durationSec).toBeCloseTo((beats * 60) / bpm, 6);
-  // A tempo the player corrected by hand is the one shown.
+  // A tempo the player corrected by hand is the one shown; the recording still lasts as long as it does (its
+  // beats are counted at the corrected tempo: beats × 120 / found).
   await player.agent.patch(`/api/recordings/${rec}`).send({ beatLevel: 'as-found', correctedBpm: 120 }).expect(200);
   const corrected = (await player.agent.get(`/api/set-lists/${list.id}`).expect(200)).body.songs[0];
   expect(corrected.analysedBpm).toBe(120);
-  expect(corrected.durationSec).toBeCloseTo((beats * 60) / 120, 6);
+  expect(corrected.durationSec).toBeCloseTo((beats * 60) / bpm, 6);
+  const correctedBeats = (beats * 120) / bpm;
 
   // Once a tempo is chosen the song counts at it, and the total is no longer an estimate.
   await player.agent.post(`/api/songs/${reel}/choose`).send({ bpm: 100 }).expect(200);
   const after = (await player.agent.get(`/api/set-lists/${list.id}`).expect(200)).body;
   expect(after.songs[0]).toMatchObject({ chosenBpm: 100, durationAt: 'chosen' });
-  expect(after.songs[0].durationSec).toBeCloseTo((beats * 60) / 100, 6);
+  expect(after.songs[0].durationSec).toBeCloseTo((correctedBeats * 60) / 100, 6);
   expect(after.estimatedDurations).toBe(0);
   // The chosen tempo counts the beats the player feels: heard in half time, half as many beats at 100 BPM.
   await player.agent.patch(`/api/recordings/${rec}`).send({ beatLevel: 'half' }).expect(200);
   const halfTime = (await player.agent.get(`/api/set-lists/${list.id}`).expect(200)).body.songs[0];
-  expect(halfTime.durationSec).toBeCloseTo((beats * 0.5 * 60) / 100, 6);
+  expect(halfTime.durationSec).toBeCloseTo((correctedBeats * 0.5 * 60) / 100, 6);
 });
 
 test('only one’s own songs, each once; another player sees nothing', async () => {

@@ -1,7 +1,14 @@
 // The felt grid on exact grids: 120 BPM (a beat every 0.5 s), 4/4, bar 1 at 1.0 s. What half-time and double
 // time mean for a beat grid is common practice (half-time: the pulse on every other beat; double time: a pulse
 // between each pair), as is counting bars from the beat a player calls one.
-import { beatsAtLevel, downbeatsFrom, feltGrid, nudged, relationInWords } from '@/audio/practice/beat-grid';
+import {
+  beatsAtLevel,
+  downbeatsFrom,
+  feltBeatCount,
+  feltGrid,
+  nudged,
+  relationInWords,
+} from '@/audio/practice/beat-grid';
 import { analyse } from '@/audio/analysis/analyse';
 import type { Analysis } from '@/shared/analysis';
 import { clickTrack, RATE, steadyBeats } from './signals';
@@ -56,6 +63,17 @@ test('"this beat is one" at 2.5 s moves bar 1 there; a nudge of +10 ms moves the
   expect(g.downbeats.map((t) => Math.round(t * 1000))).toEqual([2510, 4510, 6510, 8510]);
   expect(g.beats[0]).toBeCloseTo(1.01, 9);
   expect(g.bpm).toBe(120);
+});
+
+test('felt beats: a 30 s recording found at 124 BPM (62 beats) that the player corrects to 120 holds 60 beats', () => {
+  // By construction: 30 s at 120 BPM is 60 beats, at 124 BPM 62; the level halves or doubles what is felt.
+  expect(feltBeatCount(62, 124, null, 'as-found')).toBe(62);
+  expect(feltBeatCount(62, 124, 120, 'as-found')).toBeCloseTo(60, 9);
+  expect(feltBeatCount(62, 124, 120, 'half')).toBeCloseTo(30, 9);
+  expect(feltBeatCount(62, 124, null, 'double')).toBe(124);
+  // At its own felt tempo it lasts as long as it does: 60 beats at 120 BPM, 30 beats at 60 BPM, both 30 s.
+  expect((feltBeatCount(62, 124, 120, 'as-found') * 60) / 120).toBeCloseTo(30, 9);
+  expect((feltBeatCount(62, 124, 120, 'half') * 60) / 60).toBeCloseTo(30, 9);
 });
 
 test('relations read in words', () => {
