@@ -182,7 +182,7 @@ export const StudentSongSchema = z.object({
       awaitingAnswer: z.boolean(),
     }),
   ),
-  /** Recordings of the song with open notes whose last word is the student's, and how many such notes each. */
+  /** Recordings of the song with open note threads waiting for this teacher (see `awaiting`), and how many each. */
   notesAwaiting: z.array(z.object({ recordingId: z.string(), label: z.string().nullable(), notes: z.number().int() })),
 });
 export const StudentSchema = z.object({
@@ -193,7 +193,8 @@ export const StudentSchema = z.object({
   songs: z.array(StudentSongSchema),
   /**
    * What waits for the teacher asking: takes of the last two weeks (since the link) they have not written on,
-   * and open notes on the student's recordings whose last word is the student's (a question or a reply).
+   * and open note threads on the student's recordings whose last word is the student's and that are this
+   * teacher's to answer (they wrote in it, or the student started it after the link and no other teacher wrote).
    */
   awaiting: z.object({ takes: z.number().int(), notes: z.number().int() }),
 });

@@ -140,21 +140,33 @@ export async function declineInvitation(user: Me, id: string): Promise<void> {
 export const TAKE_ANSWER_DAYS = 14;
 
 /**
- * Per recording, its open notes (not resolved) whose latest word — the note, or its last reply — is the
- * recording owner's: a question or an answer back that waits for the teacher.
+ * Per recording, the open note threads (not resolved) that wait for this teacher: the latest word (the note, or
+ * its last reply) is the recording owner's, and the thread is this teacher's to answer: they wrote in it, or the
+ * owner started it after the link and no other teacher has written in it. A reply to another teacher waits for
+ * that teacher; a thread from before the link is not this teacher's to answer.
  */
-function ownersLastWord(notes: RecordingNote[], ownerOf: Map<string, string>): Map<string, number> {
-  const latest = new Map<string, RecordingNote>();
+function threadsWaitingFor(
+  teacherId: string,
+  notes: RecordingNote[],
+  ownerOf: Map<string, string>,
+  linkedAt: Map<string, number>,
+): Map<string, number> {
+  const threads = new Map<string, RecordingNote[]>();
   for (const n of notes) {
-    const thread = n.parentId ?? n.id;
-    const seen = latest.get(thread);
-    if (!seen || n.createdAt >= seen.createdAt) latest.set(thread, n);
+    const key = n.parentId ?? n.id;
+    threads.set(key, [...(threads.get(key) ?? []), n]);
   }
   const out = new Map<string, number>();
-  for (const n of notes) {
-    if (n.parentId || n.resolved) continue;
-    if (latest.get(n.id)?.authorId !== ownerOf.get(n.recordingId)) continue;
-    out.set(n.recordingId, (out.get(n.recordingId) ?? 0) + 1);
+  for (const [key, thread] of threads) {
+    const root = thread.find((n) => n.id === key);
+    if (!root || root.resolved) continue;
+    const owner = ownerOf.get(root.recordingId);
+    const last = thread.reduce((a, b) => (b.createdAt >= a.createdAt ? b : a));
+    if (!owner || last.authorId !== owner) continue;
+    const teacherWrote = thread.some((n) => n.authorId === teacherId);
+    const otherWrote = thread.some((n) => n.authorId !== owner && n.authorId !== teacherId);
+    const sinceLink = root.authorId === owner && root.createdAt.getTime() >= (linkedAt.get(owner) ?? Infinity);
+    if (teacherWrote || (sinceLink && !otherWrote)) out.set(root.recordingId, (out.get(root.recordingId) ?? 0) + 1);
   }
   return out;
 }
@@ -197,9 +209,9 @@ export async function listStudents(teacherId: string): Promise<Student[]> {
         order: [['createdAt', 'ASC']],
       })
     : [];
-  const open = ownersLastWord(notes, new Map(recordings.map((r) => [r.id, r.ownerId])));
-  const answered = new Set(notes.filter((n) => n.authorId === teacherId).map((n) => n.recordingId));
   const since = new Map(links.map((l) => [l.studentId, l.createdAt.getTime()]));
+  const open = threadsWaitingFor(teacherId, notes, new Map(recordings.map((r) => [r.id, r.ownerId])), since);
+  const answered = new Set(notes.filter((n) => n.authorId === teacherId).map((n) => n.recordingId));
   const recent = Date.now() - TAKE_ANSWER_DAYS * 86_400_000;
   /** A take the student made lately, since the link, that this teacher has not written on. */
   const awaits = (r: Recording, studentId: string) =>
@@ -223,13 +235,16 @@ export async function listStudents(teacherId: string): Promise<Student[]> {
         workingBpm: song.workingBpm,
         chosenBpm: song.chosenBpm,
         lastPracticedAt: lastBySong.get(song.id) ?? null,
-        // The three newest takes are what a teacher looks at before a lesson.
-        recentTakes: takes.slice(0, 3).map((t) => ({
-          id: t.id,
-          label: nameOf(t),
-          createdAt: t.createdAt.toISOString(),
-          awaitingAnswer: awaits(t, s.id),
-        })),
+        // The three newest takes are what a teacher looks at before a lesson, and every take that waits for an
+        // answer, so each one the count names can be opened from the card.
+        recentTakes: takes
+          .filter((t, i) => i < 3 || awaits(t, s.id))
+          .map((t) => ({
+            id: t.id,
+            label: nameOf(t),
+            createdAt: t.createdAt.toISOString(),
+            awaitingAnswer: awaits(t, s.id),
+          })),
         notesAwaiting: rows
           .filter((r) => open.has(r.id))
           .map((r) => ({ recordingId: r.id, label: nameOf(r), notes: open.get(r.id)! })),

@@ -1,6 +1,7 @@
 // A teacher's students list flags what waits for the teacher's answer: a recent take they have not written on,
 // and an open note whose last word is the student's (a question, or a reply back). Answering, resolving, an old
-// take or another teacher's word each change it as a teacher would expect; each teacher sees their own.
+// take or another teacher's word each change it as a teacher would expect; each teacher sees their own (a reply to
+// the other teacher waits for that teacher; a note from before the link waits for no one).
 import fs from 'node:fs';
 import path from 'node:path';
 import { linkStudent, query, signedInUser } from './helpers';
@@ -54,12 +55,40 @@ test('a new take waits for each teacher until that teacher writes on it; a refer
   expect(answered.songs[0]!.recentTakes[0]!.awaitingAnswer).toBe(false);
   expect((await seenBy(otherTeacher)).awaiting).toEqual({ takes: 1, notes: 0 });
 
-  // A take older than two weeks no longer waits (it has been to a lesson or is past answering).
-  await query('tactus_test', 'UPDATE recordings SET createdAt = ? WHERE id = ?', [
-    new Date(Date.now() - 15 * 86_400_000),
-    take,
-  ]);
+  // With the links a month old, a take of 13 days still waits and one older than two weeks no longer does (it
+  // has been to a lesson or is past answering): the age rule, not the link's date, decides.
+  await query('tactus_test', 'UPDATE studio_links SET createdAt = ? WHERE studentId = ?', [daysAgo(30), student.id]);
+  await query('tactus_test', 'UPDATE recordings SET createdAt = ? WHERE id = ?', [daysAgo(13), take]);
+  expect((await seenBy(otherTeacher)).awaiting).toEqual({ takes: 1, notes: 0 });
+  await query('tactus_test', 'UPDATE recordings SET createdAt = ? WHERE id = ?', [daysAgo(15), take]);
   expect((await seenBy(otherTeacher)).awaiting).toEqual({ takes: 0, notes: 0 });
+});
+
+const daysAgo = (days: number) => new Date(Date.now() - days * 86_400_000);
+
+test('every take the count names is on the card, beyond the three newest', async () => {
+  const song = (await student.agent.post('/api/songs').send({ title: 'Nine Steps Waltz' }).expect(201)).body.id;
+  const ids: string[] = [];
+  for (let i = 1; i <= 4; i++)
+    ids.push(
+      (
+        await student.agent
+          .post(`/api/songs/${song}/recordings`)
+          .field('kind', 'take')
+          .field('label', `Waltz take ${i}`)
+          .attach('file', clip, `waltz-${i}.mp3`)
+          .expect(201)
+      ).body.id,
+    );
+  const card = (await seenBy(teacher)).songs.find((x) => x.id === song)!;
+  expect(
+    card.recentTakes
+      .filter((t) => t.awaitingAnswer)
+      .map((t) => t.id)
+      .sort(),
+  ).toEqual([...ids].sort());
+  for (const id of ids) await student.agent.delete(`/api/recordings/${id}`).expect(204);
+  await student.agent.delete(`/api/songs/${song}`).expect(204);
 });
 
 test('a note whose last word is the student’s waits until a teacher answers or it is resolved', async () => {
@@ -92,6 +121,23 @@ test('a note whose last word is the student’s waits until a teacher answers or
   );
   await student.agent.post(`/api/notes/${teachersNote.id}/replies`).send({ text: 'Thanks!' }).expect(201);
   expect((await seenBy(teacher)).songs[0]!.notesAwaiting).toEqual([{ recordingId: take, label: 'Take 2', notes: 2 }]);
+
+  // The student's reply to the other teacher's note waits for that teacher, not for this one.
+  const othersNote = (await teacher.agent.get(`/api/recordings/${take}/notes`).expect(200)).body.notes.find(
+    (n: { author: { id: string } }) => n.author.id === otherTeacher.id,
+  );
+  await student.agent.post(`/api/notes/${othersNote.id}/replies`).send({ text: 'Will do.' }).expect(201);
+  expect((await seenBy(teacher)).awaiting.notes).toBe(2);
+  expect((await seenBy(otherTeacher)).awaiting.notes).toBe(1);
+  await student.agent.patch(`/api/notes/${othersNote.id}`).send({ resolved: true }).expect(200);
+
+  // A note the student wrote before the link (their own, no teacher in it) is not this teacher's to answer.
+  const before = (
+    await student.agent.post(`/api/recordings/${take}/notes`).send({ atSec: 8, text: 'Breathe here.' }).expect(201)
+  ).body.id;
+  await query('tactus_test', 'UPDATE recording_notes SET createdAt = ? WHERE id = ?', [daysAgo(40), before]);
+  expect((await seenBy(teacher)).awaiting.notes).toBe(2);
+  await student.agent.patch(`/api/notes/${before}`).send({ resolved: true }).expect(200);
 
   // Resolved, from either side, a note no longer waits.
   await student.agent.patch(`/api/notes/${question}`).send({ resolved: true }).expect(200);
