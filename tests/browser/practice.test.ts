@@ -153,6 +153,7 @@ describe.each(viewports)('practice log at $width px', (viewport) => {
 
 describe.each(viewports)('a session logged later at $width px', (viewport) => {
   test('yesterday’s forgotten session lands on its day; a future, far-back or unreadable day is refused', async () => {
+    await clearOfMidnight();
     const player = await signedInUser(`practice-later-${viewport.name}`);
     const songId = (
       await player.agent.post('/api/songs').send({ title: 'Lantern Jig', meter: '6/8', goalBpm: 120 }).expect(201)
@@ -211,8 +212,19 @@ describe.each(viewports)('a session logged later at $width px', (viewport) => {
     });
     expect(errors).toEqual([]);
     await context.close();
-  });
+    // Room for the wait past midnight (clearOfMidnight) besides the test itself.
+  }, 120_000);
 });
+
+/**
+ * The test reads "today" when it logs its first session and "yesterday" and "today" later: it starts at least a
+ * minute clear of local midnight, waiting past it when closer, so both readings fall on the same day.
+ */
+async function clearOfMidnight() {
+  const now = new Date();
+  const untilMidnight = new Date(now.getFullYear(), now.getMonth(), now.getDate() + 1).getTime() - now.getTime();
+  if (untilMidnight < 60_000) await new Promise((r) => setTimeout(r, untilMidnight + 1000));
+}
 
 /** The local day `days` from today as the day field writes it (the browser runs in this machine's zone). */
 function isoDay(days: number): string {
