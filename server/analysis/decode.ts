@@ -45,10 +45,12 @@ function runDecoder(
         '-ar',
         String(sampleRate),
         ...(atMostSec ? ['-t', String(atMostSec)] : []),
-        // Write in full 32 KB blocks, not one small write per decoded frame: measured on a 5-minute MP3,
-        // 10 000 pipe reads became 400 and Node's share of the decode 66–122 ms became 10–16 ms.
-        '-flush_packets',
-        '0',
+        // Samples kept (an analysis): write in full 32 KB blocks, not one small write per decoded frame — on a
+        // 5-minute MP3, 10 000 pipe reads became 400 and Node's share of the decode 66–122 ms became 10–16 ms.
+        // Samples only counted (an upload's check): the small writes stay, as Node's pooled small buffers; its
+        // 64 KB blocks each held memory of their own until collected, and ten uploads checked at once grew the
+        // server by +81…+83 MB instead of +48…+56 (analyses held back, `npm run bench -- --uploads`).
+        ...(keep ? ['-flush_packets', '0'] : []),
         '-f',
         'f32le',
         '-',
